@@ -1,0 +1,32 @@
+#include "geometry/model.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+namespace lobe {
+namespace {
+
+std::vector<Real> inclusive_range(Real start, Real stop, Real step) {
+  std::vector<Real> values;
+  // The small allowance keeps a stop that is a whole number of steps away despite rounding.
+  const auto count = static_cast<long>(std::floor((stop - start) / step + 1e-9)) + 1;
+  for (long i = 0; i < count; ++i) values.push_back(start + static_cast<Real>(i) * step);
+  return values;
+}
+
+}  // namespace
+
+std::vector<Real> PatternGrid::thetas() const { return inclusive_range(theta_start, theta_stop, theta_step); }
+std::vector<Real> PatternGrid::phis() const { return inclusive_range(phi_start, phi_stop, phi_step); }
+
+const Wire* Model::find_wire(const std::string& name) const {
+  for (const auto& wire : wires)
+    if (wire.name == name) return &wire;
+  return nullptr;
+}
+
+Real Model::highest_frequency() const {
+  return frequencies_hz.empty() ? 0.0 : *std::max_element(frequencies_hz.begin(), frequencies_hz.end());
+}
+
+}  // namespace lobe

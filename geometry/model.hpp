@@ -1,0 +1,103 @@
+#pragma once
+/// The parsed model: named wires, ports, loads and run settings, all in SI units.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "core/input_error.hpp"
+#include "core/types.hpp"
+
+namespace lobe {
+
+enum class ShapeKind { line, polyline, arc, helix };
+
+/// The path a wire follows before any transform, in metres.
+struct WireShape {
+  ShapeKind kind = ShapeKind::line;
+  std::vector<Vec3> points;  ///< line: 2 points; polyline: its vertices
+  Vec3 center = Vec3::Zero();  ///< arc centre or helix base
+  Vec3 axis = Vec3::UnitZ();   ///< arc normal or helix axis (unit)
+  Vec3 start = Vec3::Zero();   ///< arc start point
+  Real angle = 0.0;            ///< arc sweep, rad (right-hand about `axis`)
+  Real diameter = 0.0;         ///< helix
+  Real pitch = 0.0;            ///< helix rise per turn
+  Real turns = 0.0;            ///< helix
+  bool right_handed = true;    ///< helix winding sense about `axis`
+};
+
+struct Wire {
+  std::string name;
+  SourceLocation where;
+  WireShape shape;
+  Real radius = 0.0;            ///< m
+  int segments = 0;             ///< 0: chosen from the highest frequency
+  Affine transform = Affine::Identity();
+  Real conductivity = 0.0;      ///< S/m; 0 means perfectly conducting
+};
+
+/// A position along a wire, as a fraction of its length (0 = start, 1 = end).
+struct WirePosition {
+  std::string wire;
+  SourceLocation wire_where;
+  Real fraction = 0.5;
+};
+
+struct Port {
+  std::string name;
+  SourceLocation where;
+  WirePosition position;
+  Complex voltage{1.0, 0.0};  ///< V, amplitude and phase
+};
+
+struct Load {
+  std::string name;
+  SourceLocation where;
+  WirePosition position;
+  Real resistance = 0.0;                 ///< ohm
+  Real inductance = 0.0;                 ///< H
+  std::optional<Real> capacitance;       ///< F; none means no capacitor
+  bool parallel = false;                 ///< parallel RLC instead of series
+};
+
+struct Band {
+  std::string name;
+  Real low_hz = 0.0;
+  Real high_hz = 0.0;
+};
+
+/// Directions at which the far field is reported; angles in radians.
+struct PatternGrid {
+  Real theta_start = 0.0, theta_stop = 0.0, theta_step = 0.0;
+  Real phi_start = 0.0, phi_stop = 0.0, phi_step = 0.0;
+  std::vector<Real> thetas() const;
+  std::vector<Real> phis() const;
+};
+
+/// The value of a `let` after overrides, kept so that a result can be reproduced.
+struct ResolvedValue {
+  std::string name;
+  Real value = 0.0;       ///< SI
+  std::string unit;       ///< SI unit text of its dimension, "" when plain
+  bool overridden = false;
+};
+
+struct Model {
+  std::string file;
+  std::string text;
+  Real length_unit = 1.0;  ///< metres per bare length number
+  std::vector<Wire> wires;
+  std::vector<Port> ports;
+  std::vector<Load> loads;
+  bool ground_perfect = false;
+  std::vector<Real> frequencies_hz;
+  SourceLocation frequency_where;
+  Real reference_ohm = 50.0;
+  std::vector<Band> bands;
+  PatternGrid pattern;
+  std::vector<ResolvedValue> values;
+
+  const Wire* find_wire(const std::string& name) const;
+  Real highest_frequency() const;
+};
+
+}  // namespace lobe

@@ -1,0 +1,625 @@
+#include "geometry/model_parser.hpp"
+
+#include <cmath>
+#include <map>
+#include <set>
+#include <sstream>
+
+#include "core/constants.hpp"
+#include "geometry/expression.hpp"
+
+namespace lobe {
+namespace {
+
+constexpr int max_segments_per_wire = 100000;
+constexpr int max_frequency_count = 10000;
+constexpr long max_pattern_points = 1000000;
+constexpr std::size_t max_model_bytes = 64u << 20;
+
+const std::set<std::string, std::less<>> statement_words = {
+    "units", "let", "wire", "arc", "helix", "copy", "shift", "turn", "mirror", "port",
+    "load", "conductor", "ground", "frequency", "reference", "band", "pattern"};
+
+std::string quoted(const Token& t) {
+  return t.kind == TokenKind::end ? std::string("the end of the line") : "'" + t.text + "'";
+}
+
+std::string si_unit_text(const Dimension& d) {
+  if (d.is_none()) return "";
+  if (d == dimension::length) return "m";
+  if (d == dimension::frequency) return "Hz";
+  if (d == dimension::angle) return "rad";
+  if (d == dimension::voltage) return "V";
+  if (d == dimension::resistance) return "ohm";
+  if (d == dimension::inductance) return "H";
+  if (d == dimension::capacitance) return "F";
+  if (d == dimension::conductivity) return "S/m";
+  static const char* symbols[] = {"m", "kg", "s", "A", "rad"};
+  std::string text;
+  for (std::size_t i = 0; i < d.exponent.size(); ++i) {
+    if (d.exponent[i] == 0) continue;
+    if (!text.empty()) text += " ";
+    text += symbols[i];
+    if (d.exponent[i] != 1) text += "^" + std::to_string(d.exponent[i]);
+  }
+  return text;
+}
+
+class ModelParser {
+ public:
+  ModelParser(const std::string& file, const std::vector<Override>& overrides) : m_file(file) {
+    for (const auto& o : overrides) m_overrides.emplace(o.name, o);
+    m_model.file = file;
+    m_model.pattern = {0.0, pi, 5.0 * pi / 180.0, 0.0, 355.0 * pi / 180.0, 5.0 * pi / 180.0};
+  }
+
+  Model parse(const std::string& text) {
+    m_model.text = text;
+    if (text.size() > max_model_bytes)
+      throw InputError({m_file, 1, 1}, "the model file is larger than 64 MiB; it cannot be a model");
+    int line_number = 0;
+    std::size_t start = 0;
+    bool any_statement = false;
+    while (start <= text.size()) {
+      std::size_t end = text.find('\n', start);
+      if (end == std::string::npos) end = text.size();
+      ++line_number;
+      const auto tokens = tokenize_line(std::string_view(text).substr(start, end - start), m_file, line_number);
+      if (tokens.size() > 1) {
+        TokenCursor cursor(tokens);
+        statement(cursor);
+        any_statement = true;
+      }
+      m_last_line = line_number;
+      if (end == text.size()) break;
+      start = end + 1;
+    }
+    if (!any_statement) throw InputError({m_file, 1, 1}, "the model is empty: it has no statements");
+    finish();
+    return std::move(m_model);
+  }
+
+ private:
+  // ---- statements -------------------------------------------------------------------
+  void statement(TokenCursor& c) {
+    const Token keyword = c.next();
+    if (keyword.kind != TokenKind::identifier)
+      throw InputError(keyword.where, "expected a statement keyword, found " + quoted(keyword));
+    const std::string& k = keyword.text;
+    if (k == "units") units(c);
+    else if (k == "let") let(c);
+    else if (k == "wire") wire(c, keyword);
+    else if (k == "arc") arc(c, keyword);
+    else if (k == "helix") helix(c, keyword);
+    else if (k == "copy") copy(c);
+    else if (k == "shift") shift(c);
+    else if (k == "turn") turn(c);
+    else if (k == "mirror") mirror(c);
+    else if (k == "port") port(c, keyword);
+    else if (k == "load") load(c, keyword);
+    else if (k == "conductor") conductor(c);
+    else if (k == "ground") ground(c);
+    else if (k == "frequency") frequency(c, keyword);
+    else if (k == "reference") reference(c);
+    else if (k == "band") band(c);
+    else if (k == "pattern") pattern(c);
+    else
+      throw InputError(keyword.where, "unknown statement '" + k + "'; statements are: units let wire arc helix "
+                                      "copy shift turn mirror port load conductor ground frequency reference band pattern");
+    end_of_statement(c);
+  }
+
+  void end_of_statement(TokenCursor& c) {
+    if (!c.at_end()) throw InputError(c.peek().where, "unexpected " + quoted(c.peek()) + " after the statement");
+  }
+
+  void units(TokenCursor& c) {
+    const Token& u = c.expect_name("a length unit (m cm mm um in mil)");
+    static const std::map<std::string, Real, std::less<>> scale = {
+        {"m", 1.0}, {"cm", 1e-2}, {"mm", 1e-3}, {"um", 1e-6}, {"in", 0.0254}, {"mil", 25.4e-6}};
+    auto it = scale.find(u.text);
+    if (it == scale.end()) throw InputError(u.where, "unknown length unit '" + u.text + "'; use m cm mm um in mil");
+    m_model.length_unit = it->second;
+  }
+
+  void let(TokenCursor& c) {
+    const Token& name = c.expect_name("a name after 'let'");
+    if (is_builtin_name(name.text) || statement_words.count(name.text))
+      throw InputError(name.where, "'" + name.text + "' is a built-in word and cannot be redefined");
+    if (m_symbols.count(name.text)) throw InputError(name.where, "'" + name.text + "' is already defined");
+    c.expect_symbol('=', "after the name");
+    Quantity value = parse_expression(c, m_symbols);
+    ResolvedValue resolved{name.text, value.value, si_unit_text(value.dim), false};
+    if (auto it = m_overrides.find(name.text); it != m_overrides.end()) {
+      const Quantity replaced = evaluate_override(it->second);
+      if (!replaced.dim.is_none() && replaced.dim != value.dim)
+        throw InputError(it->second.where, "--set " + name.text + " gives " + dimension_name(replaced.dim) +
+                                               " but the model defines it as " + dimension_name(value.dim));
+      value = replaced;
+      resolved = {name.text, value.value, si_unit_text(value.dim), true};
+      m_used_overrides.insert(name.text);
+    }
+    m_symbols[name.text] = value;
+    m_model.values.push_back(resolved);
+  }
+
+  Quantity evaluate_override(const Override& o) {
+    const auto tokens = tokenize_line(o.expression, o.where.file, o.where.line);
+    TokenCursor c(tokens);
+    const Quantity q = parse_expression(c, m_symbols);
+    if (!c.at_end()) throw InputError(c.peek().where, "unexpected " + quoted(c.peek()) + " in the --set value");
+    return q;
+  }
+
+  void wire(TokenCursor& c, const Token& keyword) {
+    Wire w = new_wire(c, keyword);
+    if (c.accept_word("from")) {
+      w.shape.kind = ShapeKind::line;
+      w.shape.points.push_back(point(c));
+      c.expect_word("to", "after the start point");
+      w.shape.points.push_back(point(c));
+    } else if (c.accept_word("through")) {
+      w.shape.kind = ShapeKind::polyline;
+      while (c.peek_symbol('(')) w.shape.points.push_back(point(c));
+      if (w.shape.points.size() < 2) throw InputError(c.peek().where, "'through' needs at least two points");
+    } else {
+      throw InputError(c.peek().where, "expected 'from' or 'through' after the wire name, found " + quoted(c.peek()));
+    }
+    for (std::size_t i = 1; i < w.shape.points.size(); ++i)
+      if ((w.shape.points[i] - w.shape.points[i - 1]).norm() == 0.0)
+        throw InputError(w.where, "wire '" + w.name + "' has a piece of zero length (point " +
+                                      std::to_string(i + 1) + " repeats point " + std::to_string(i) + ")");
+    wire_options(c, w);
+    add_wire(std::move(w));
+  }
+
+  void arc(TokenCursor& c, const Token& keyword) {
+    Wire w = new_wire(c, keyword);
+    w.shape.kind = ShapeKind::arc;
+    c.expect_word("center", "after the arc name");
+    w.shape.center = point(c);
+    c.expect_word("normal", "after the centre");
+    w.shape.axis = direction(c);
+    c.expect_word("from", "after the normal");
+    const Token& start_token = c.peek();
+    w.shape.start = point(c);
+    c.expect_word("angle", "after the start point");
+    w.shape.angle = angle(c);
+    const Vec3 offset = w.shape.start - w.shape.center;
+    const Vec3 in_plane = offset - offset.dot(w.shape.axis) * w.shape.axis;
+    if (in_plane.norm() == 0.0) throw InputError(start_token.where, "the arc's start point lies on its axis: its radius is zero");
+    if (w.shape.angle == 0.0 || std::abs(w.shape.angle) > 2 * pi + 1e-12)
+      throw InputError(w.where, "an arc's angle must be non-zero and at most 360 deg");
+    wire_options(c, w);
+    add_wire(std::move(w));
+  }
+
+  void helix(TokenCursor& c, const Token& keyword) {
+    Wire w = new_wire(c, keyword);
+    w.shape.kind = ShapeKind::helix;
+    c.expect_word("base", "after the helix name");
+    w.shape.center = point(c);
+    c.expect_word("axis", "after the base point");
+    w.shape.axis = direction(c);
+    c.expect_word("diameter", "after the axis");
+    w.shape.diameter = positive_length(c, "a helix diameter");
+    c.expect_word("pitch", "after the diameter");
+    w.shape.pitch = positive_length(c, "a helix pitch");
+    c.expect_word("turns", "after the pitch");
+    const Token& turns_token = c.peek();
+    const Quantity turns = plain(c, "the number of turns");
+    if (!(turns.value > 0.0) || turns.value > 10000)
+      throw InputError(turns_token.where, "turns must be above 0 and at most 10000");
+    w.shape.turns = turns.value;
+    if (c.accept_word("hand")) {
+      const Token& hand = c.expect_name("'right' or 'left'");
+      if (hand.text == "right") w.shape.right_handed = true;
+      else if (hand.text == "left") w.shape.right_handed = false;
+      else throw InputError(hand.where, "hand is 'right' or 'left', not '" + hand.text + "'");
+    }
+    wire_options(c, w);
+    add_wire(std::move(w));
+  }
+
+  Wire new_wire(TokenCursor& c, const Token& keyword) {
+    const Token& name = c.expect_name("a name for the " + keyword.text);
+    if (m_model.find_wire(name.text)) throw InputError(name.where, "a wire named '" + name.text + "' already exists");
+    Wire w;
+    w.name = name.text;
+    w.where = keyword.where;
+    return w;
+  }
+
+  /// `radius R` (required) and `segments N` (optional), in any order.
+  void wire_options(TokenCursor& c, Wire& w) {
+    bool have_radius = false;
+    while (!c.at_end()) {
+      const Token& option = c.peek();
+      if (c.accept_word("radius") && !have_radius) {
+        w.radius = positive_length(c, "a wire radius");
+        have_radius = true;
+      } else if (option.text == "segments" && c.accept_word("segments") && w.segments == 0) {
+        const Token& n_token = c.peek();
+        const Quantity n = plain(c, "a segment count");
+        if (n.value != std::round(n.value) || n.value < 1 || n.value > max_segments_per_wire)
+          throw InputError(n_token.where, "segments must be a whole number from 1 to " +
+                                              std::to_string(max_segments_per_wire));
+        w.segments = static_cast<int>(n.value);
+      } else {
+        throw InputError(option.where, "unexpected " + quoted(option) + "; a wire takes 'radius R' once and "
+                                       "optionally 'segments N' once");
+      }
+    }
+    if (!have_radius) throw InputError(c.peek().where, "wire '" + w.name + "' needs 'radius R'");
+  }
+
+  void add_wire(Wire w) {
+    if (w.conductivity == 0.0) w.conductivity = m_conductivity_for_all;
+    m_model.wires.push_back(std::move(w));
+  }
+
+  Wire& existing_wire(const Token& name) {
+    for (auto& w : m_model.wires)
+      if (w.name == name.text) return w;
+    throw InputError(name.where, "there is no wire named '" + name.text + "'");
+  }
+
+  void copy(TokenCursor& c) {
+    const Token& source = c.expect_name("the name of the wire to copy");
+    Wire w = existing_wire(source);
+    c.expect_word("as", "after the copied name");
+    const Token& new_name = c.expect_name("the name of the copy");
+    if (m_model.find_wire(new_name.text)) throw InputError(new_name.where, "a wire named '" + new_name.text + "' already exists");
+    w.name = new_name.text;
+    w.where = source.where;
+    while (!c.at_end()) {
+      if (c.accept_word("shift")) w.transform = Eigen::Translation3d(vector_length(c)) * w.transform;
+      else if (c.accept_word("turn")) w.transform = rotation(c) * w.transform;
+      else throw InputError(c.peek().where, "unexpected " + quoted(c.peek()) + "; copy takes 'shift V' and 'turn about AXIS by A'");
+    }
+    add_wire(std::move(w));
+  }
+
+  void shift(TokenCursor& c) {
+    Wire& w = existing_wire(c.expect_name("the name of the wire to shift"));
+    c.expect_word("by", "after the wire name");
+    w.transform = Eigen::Translation3d(vector_length(c)) * w.transform;
+  }
+
+  void turn(TokenCursor& c) {
+    Wire& w = existing_wire(c.expect_name("the name of the wire to turn"));
+    w.transform = rotation(c) * w.transform;
+  }
+
+  /// `about x|y|z|V by A`: a rotation about an axis through the origin.
+  Affine rotation(TokenCursor& c) {
+    c.expect_word("about", "to name the axis");
+    Vec3 axis;
+    if (c.accept_word("x")) axis = Vec3::UnitX();
+    else if (c.accept_word("y")) axis = Vec3::UnitY();
+    else if (c.accept_word("z")) axis = Vec3::UnitZ();
+    else axis = direction(c);
+    c.expect_word("by", "after the axis");
+    const Real a = angle(c);
+    return Affine(Eigen::AngleAxisd(a, axis));
+  }
+
+  void mirror(TokenCursor& c) {
+    Wire& w = existing_wire(c.expect_name("the name of the wire to mirror"));
+    c.expect_word("across", "after the wire name");
+    const Token& plane = c.expect_name("a plane: xy, yz or zx");
+    Eigen::Matrix3d m = Eigen::Matrix3d::Identity();
+    if (plane.text == "xy") m(2, 2) = -1;
+    else if (plane.text == "yz") m(0, 0) = -1;
+    else if (plane.text == "zx") m(1, 1) = -1;
+    else throw InputError(plane.where, "mirror plane is xy, yz or zx, not '" + plane.text + "'");
+    Affine reflection = Affine::Identity();
+    reflection.linear() = m;
+    w.transform = reflection * w.transform;
+  }
+
+  WirePosition position(TokenCursor& c) {
+    c.expect_word("on", "after the name");
+    const Token& wire_name = c.expect_name("a wire name");
+    WirePosition p{wire_name.text, wire_name.where, 0.5};
+    c.expect_word("at", "after the wire name");
+    if (c.accept_word("start")) p.fraction = 0.0;
+    else if (c.accept_word("middle")) p.fraction = 0.5;
+    else if (c.accept_word("end")) p.fraction = 1.0;
+    else {
+      const Token& at = c.peek();
+      const Quantity f = plain(c, "a position: start, middle, end or a fraction from 0 to 1");
+      if (f.value < 0.0 || f.value > 1.0)
+        throw InputError(at.where, "the position fraction must be from 0 to 1, got " + number_text(f.value));
+      p.fraction = f.value;
+    }
+    return p;
+  }
+
+  void port(TokenCursor& c, const Token& keyword) {
+    Port p;
+    const Token& name = c.expect_name("a port name");
+    for (const auto& other : m_model.ports)
+      if (other.name == name.text) throw InputError(name.where, "a port named '" + name.text + "' already exists");
+    p.name = name.text;
+    p.where = keyword.where;
+    p.position = position(c);
+    Real amplitude = 1.0, phase = 0.0;
+    std::set<std::string> seen;
+    while (!c.at_end()) {
+      const Token& option = c.next();
+      if (!seen.insert(option.text).second) throw InputError(option.where, "'" + option.text + "' is given twice");
+      if (option.text == "voltage") amplitude = quantity_in(c, dimension::voltage, 1.0, "a voltage").value;
+      else if (option.text == "phase") phase = angle(c);
+      else throw InputError(option.where, "unexpected " + quoted(option) + "; a port takes 'voltage V' and 'phase A'");
+    }
+    p.voltage = std::polar(amplitude, phase);
+    m_model.ports.push_back(p);
+  }
+
+  void load(TokenCursor& c, const Token& keyword) {
+    Load l;
+    const Token& name = c.expect_name("a load name");
+    for (const auto& other : m_model.loads)
+      if (other.name == name.text) throw InputError(name.where, "a load named '" + name.text + "' already exists");
+    l.name = name.text;
+    l.where = keyword.where;
+    l.position = position(c);
+    std::set<std::string> seen;
+    bool any = false;
+    while (!c.at_end()) {
+      const Token& option = c.next();
+      if (!seen.insert(option.text).second) throw InputError(option.where, "'" + option.text + "' is given twice");
+      if (option.text == "resistance") l.resistance = non_negative(c, dimension::resistance, 1.0, "a resistance");
+      else if (option.text == "inductance") l.inductance = non_negative(c, dimension::inductance, 0.0, "an inductance");
+      else if (option.text == "capacitance") {
+        const Token& at = c.peek();
+        l.capacitance = non_negative(c, dimension::capacitance, 0.0, "a capacitance");
+        if (*l.capacitance <= 0.0) throw InputError(at.where, "a capacitance must be above zero");
+      } else if (option.text == "series" || option.text == "parallel") {
+        if (seen.count("series") && seen.count("parallel"))
+          throw InputError(option.where, "a load is either series or parallel");
+        l.parallel = option.text == "parallel";
+        continue;
+      } else
+        throw InputError(option.where, "unexpected " + quoted(option) +
+                                           "; a load takes resistance, inductance, capacitance and series or parallel");
+      any = true;
+    }
+    if (!any) throw InputError(keyword.where, "load '" + l.name + "' needs a resistance, inductance or capacitance");
+    if (l.parallel && ((seen.count("resistance") && l.resistance == 0.0) || (seen.count("inductance") && l.inductance == 0.0)))
+      throw InputError(keyword.where, "a parallel load with a zero resistance or inductance is a short circuit; leave it out");
+    m_model.loads.push_back(l);
+  }
+
+  void conductor(TokenCursor& c) {
+    const Token& target = c.expect_name("a wire name or 'all'");
+    c.expect_word("conductivity", "after the wire name");
+    const Token& at = c.peek();
+    const Real sigma = quantity_in(c, dimension::conductivity, 1.0, "a conductivity").value;
+    if (!(sigma > 0.0)) throw InputError(at.where, "conductivity must be above zero");
+    if (target.text == "all") {
+      for (auto& w : m_model.wires) w.conductivity = sigma;
+      m_conductivity_for_all = sigma;
+    } else {
+      existing_wire(target).conductivity = sigma;
+    }
+  }
+
+  void ground(TokenCursor& c) {
+    const Token& kind = c.expect_name("'none' or 'perfect'");
+    if (kind.text == "none") m_model.ground_perfect = false;
+    else if (kind.text == "perfect") m_model.ground_perfect = true;
+    else throw InputError(kind.where, "ground is 'none' or 'perfect', not '" + kind.text + "'");
+  }
+
+  void frequency(TokenCursor& c, const Token& keyword) {
+    if (!m_model.frequencies_hz.empty()) throw InputError(keyword.where, "the frequencies are already given");
+    m_model.frequency_where = keyword.where;
+    const Real first = frequency_value(c);
+    if (!c.accept_word("to")) {
+      m_model.frequencies_hz = {first};
+      return;
+    }
+    const Token& stop_token = c.peek();
+    const Real last = frequency_value(c);
+    if (last < first) throw InputError(stop_token.where, "the last frequency is below the first");
+    if (c.accept_word("count")) {
+      const Token& n_token = c.peek();
+      const Quantity n = plain(c, "a frequency count");
+      if (n.value != std::round(n.value) || n.value < 1 || n.value > max_frequency_count)
+        throw InputError(n_token.where, "count must be a whole number from 1 to " + std::to_string(max_frequency_count));
+      const int count = static_cast<int>(n.value);
+      if (count == 1 && last != first) throw InputError(n_token.where, "a range with count 1 needs equal ends");
+      for (int i = 0; i < count; ++i)
+        m_model.frequencies_hz.push_back(count == 1 ? first : first + (last - first) * i / (count - 1));
+    } else if (c.accept_word("step")) {
+      const Token& step_token = c.peek();
+      const Real step = frequency_value(c);
+      const Real count = std::floor((last - first) / step + 1e-9) + 1;
+      if (count > max_frequency_count)
+        throw InputError(step_token.where, "this step gives more than " + std::to_string(max_frequency_count) + " frequencies");
+      for (int i = 0; i < static_cast<int>(count); ++i) m_model.frequencies_hz.push_back(first + i * step);
+    } else {
+      throw InputError(c.peek().where, "expected 'count N' or 'step DF' after the frequency range, found " + quoted(c.peek()));
+    }
+  }
+
+  void reference(TokenCursor& c) {
+    const Token& at = c.peek();
+    const Real z = quantity_in(c, dimension::resistance, 1.0, "a resistance").value;
+    if (!(z > 0.0)) throw InputError(at.where, "the reference impedance must be above zero");
+    m_model.reference_ohm = z;
+  }
+
+  void band(TokenCursor& c) {
+    const Token& name = c.expect_name("a band name");
+    for (const auto& b : m_model.bands)
+      if (b.name == name.text) throw InputError(name.where, "a band named '" + name.text + "' already exists");
+    Band b{name.text, frequency_value(c), 0.0};
+    c.expect_word("to", "after the band's low edge");
+    const Token& high = c.peek();
+    b.high_hz = frequency_value(c);
+    if (b.high_hz <= b.low_hz) throw InputError(high.where, "the band's high edge must be above its low edge");
+    m_model.bands.push_back(b);
+  }
+
+  void pattern(TokenCursor& c) {
+    PatternGrid& g = m_model.pattern;
+    c.expect_word("theta", "after 'pattern'");
+    angle_range(c, g.theta_start, g.theta_stop, g.theta_step, 0.0, 180.0, "theta");
+    c.expect_word("phi", "after the theta range");
+    angle_range(c, g.phi_start, g.phi_stop, g.phi_step, -360.0, 360.0, "phi");
+    const long points = static_cast<long>(g.thetas().size()) * static_cast<long>(g.phis().size());
+    if (points > max_pattern_points)
+      throw InputError(c.peek().where, "the pattern grid has " + std::to_string(points) + " directions; at most " +
+                                           std::to_string(max_pattern_points) + " are allowed");
+  }
+
+  void angle_range(TokenCursor& c, Real& start, Real& stop, Real& step, Real low_deg, Real high_deg, const char* what) {
+    const Token& start_token = c.peek();
+    start = angle(c);
+    c.expect_word("to", std::string("in the ") + what + " range");
+    const Token& stop_token = c.peek();
+    stop = angle(c);
+    c.expect_word("step", std::string("in the ") + what + " range");
+    const Token& step_token = c.peek();
+    step = angle(c);
+    const Real low = low_deg * pi / 180.0 - 1e-12, high = high_deg * pi / 180.0 + 1e-12;
+    if (start < low || start > high) throw InputError(start_token.where, std::string(what) + " must lie from " + number_text(low_deg) + " to " + number_text(high_deg) + " deg");
+    if (stop < start || stop > high) throw InputError(stop_token.where, std::string(what) + " range must end at or after its start and by " + number_text(high_deg) + " deg");
+    if (!(step > 0.0)) throw InputError(step_token.where, "the step must be above zero");
+    if ((stop - start) / step > 100000) throw InputError(step_token.where, "the step is too small for this range");
+  }
+
+  // ---- values ----------------------------------------------------------------------
+  Quantity plain(TokenCursor& c, const std::string& what) {
+    const Token& at = c.peek();
+    const Quantity q = parse_expression(c, m_symbols);
+    if (!q.dim.is_none()) throw InputError(at.where, "expected " + what + " (a plain number), got " + dimension_name(q.dim));
+    return q;
+  }
+
+  /// A value of dimension `want`; a plain number is read in `bare_scale` units, or is an
+  /// error when `bare_scale` is 0 (no unit can be assumed for it).
+  Quantity quantity_in(TokenCursor& c, const Dimension& want, Real bare_scale, const std::string& what) {
+    const Token& at = c.peek();
+    Quantity q = parse_expression(c, m_symbols);
+    if (q.dim.is_none()) {
+      if (bare_scale == 0.0) throw InputError(at.where, "expected " + what + " with a unit; a plain number is ambiguous here");
+      return {q.value * bare_scale, want};
+    }
+    if (q.dim != want) throw InputError(at.where, "expected " + what + ", got " + dimension_name(q.dim));
+    return q;
+  }
+
+  Real non_negative(TokenCursor& c, const Dimension& want, Real bare_scale, const std::string& what) {
+    const Token& at = c.peek();
+    const Real v = quantity_in(c, want, bare_scale, what).value;
+    if (v < 0.0) throw InputError(at.where, what + " cannot be negative");
+    return v;
+  }
+
+  Real length(TokenCursor& c, const std::string& what) {
+    return quantity_in(c, dimension::length, m_model.length_unit, what).value;
+  }
+
+  Real positive_length(TokenCursor& c, const std::string& what) {
+    const Token& at = c.peek();
+    const Real v = length(c, what);
+    if (!(v > 0.0)) throw InputError(at.where, what + " must be above zero, got " + number_text(v) + " m");
+    return v;
+  }
+
+  /// An angle; a plain number is read in degrees.
+  Real angle(TokenCursor& c) { return quantity_in(c, dimension::angle, pi / 180.0, "an angle").value; }
+
+  Real frequency_value(TokenCursor& c) {
+    const Token& at = c.peek();
+    const Real f = quantity_in(c, dimension::frequency, 0.0, "a frequency").value;
+    if (!(f > 0.0)) throw InputError(at.where, "a frequency must be above zero");
+    return f;
+  }
+
+  Vec3 point(TokenCursor& c) {
+    c.expect_symbol('(', "to start a point (x, y, z)");
+    Vec3 p;
+    for (int i = 0; i < 3; ++i) {
+      p[i] = length(c, "a coordinate (a length)");
+      if (i < 2) c.expect_symbol(',', "between coordinates");
+    }
+    c.expect_symbol(')', "to close the point");
+    return p;
+  }
+
+  Vec3 vector_length(TokenCursor& c) { return point(c); }
+
+  /// A direction (x, y, z): plain numbers or lengths, normalised.
+  Vec3 direction(TokenCursor& c) {
+    const Token& at = c.peek();
+    c.expect_symbol('(', "to start a direction (x, y, z)");
+    Vec3 v;
+    Dimension dim;
+    for (int i = 0; i < 3; ++i) {
+      const Token& component = c.peek();
+      const Quantity q = parse_expression(c, m_symbols);
+      if (i == 0) dim = q.dim;
+      if (q.dim != dim || !(q.dim.is_none() || q.dim == dimension::length))
+        throw InputError(component.where, "a direction's components must all be plain numbers or all lengths");
+      v[i] = q.value;
+      if (i < 2) c.expect_symbol(',', "between components");
+    }
+    c.expect_symbol(')', "to close the direction");
+    if (v.norm() == 0.0) throw InputError(at.where, "a direction cannot be (0, 0, 0)");
+    return v.normalized();
+  }
+
+  static std::string number_text(Real v) {
+    std::ostringstream s;
+    s << v;
+    return s.str();
+  }
+
+  // ---- whole-model checks ------------------------------------------------------------
+  void finish() {
+    const SourceLocation end_of_file{m_file, m_last_line, 1};
+    for (const auto& [name, o] : m_overrides)
+      if (!m_used_overrides.count(name))
+        throw InputError(o.where, "--set " + name + ": the model has no 'let " + name + "'");
+    if (m_model.wires.empty()) throw InputError(end_of_file, "the model has no wire, arc or helix");
+    if (m_model.frequencies_hz.empty()) throw InputError(end_of_file, "the model has no 'frequency' statement");
+    if (m_model.ports.empty()) throw InputError(end_of_file, "the model has no port; add one such as 'port feed on WIRE at middle'");
+    auto check_position = [&](const WirePosition& p) {
+      if (!m_model.find_wire(p.wire)) throw InputError(p.wire_where, "there is no wire named '" + p.wire + "'");
+    };
+    for (const auto& p : m_model.ports) check_position(p.position);
+    for (const auto& l : m_model.loads) check_position(l.position);
+  }
+
+  std::string m_file;
+  Model m_model;
+  SymbolTable m_symbols;
+  std::map<std::string, Override> m_overrides;
+  std::set<std::string> m_used_overrides;
+  Real m_conductivity_for_all = 0.0;
+  int m_last_line = 1;
+};
+
+}  // namespace
+
+Model parse_model(const std::string& text, const std::string& file, const std::vector<Override>& overrides) {
+  ModelParser parser(file, overrides);
+  return parser.parse(text);
+}
+
+Override parse_override(const std::string& option, int index) {
+  const SourceLocation where{"--set", index, 1};
+  const auto equals = option.find('=');
+  if (equals == std::string::npos || equals == 0)
+    throw InputError(where, "--set takes NAME=VALUE, got '" + option + "'");
+  Override o{option.substr(0, equals), option.substr(equals + 1), where};
+  o.where.column = static_cast<int>(equals) + 2;
+  return o;
+}
+
+}  // namespace lobe

@@ -1,0 +1,64 @@
+#pragma once
+/// Straight segments with radii, joined at nodes; the discrete form of a model's wires.
+#include <string>
+#include <vector>
+
+#include "geometry/model.hpp"
+
+namespace lobe {
+
+/// One straight piece of wire, from `start` to `end`; current is positive along it.
+struct Segment {
+  Vec3 start = Vec3::Zero();
+  Vec3 end = Vec3::Zero();
+  Real radius = 0.0;         ///< m
+  Real conductivity = 0.0;   ///< S/m; 0 = perfect conductor
+  int wire = 0;              ///< index into Model::wires
+  int node[2] = {-1, -1};    ///< node at start and at end
+
+  Real length() const { return (end - start).norm(); }
+  Vec3 direction() const { return (end - start).normalized(); }
+  Vec3 midpoint() const { return 0.5 * (start + end); }
+};
+
+/// A segment end: which segment, and 0 for its start or 1 for its end.
+struct SegmentEnd {
+  int segment = 0;
+  int end = 0;
+};
+
+/// A point where segment ends meet; on_ground when it touches a perfect ground at z = 0.
+struct MeshNode {
+  Vec3 position = Vec3::Zero();
+  std::vector<SegmentEnd> ends;
+  bool on_ground = false;
+};
+
+/// A place on a wire where a port or load sits: a segment end, with the wire's own
+/// direction as the positive sense of current.
+struct Gap {
+  SegmentEnd at;
+  int node = 0;
+};
+
+struct MeshWarning {
+  SourceLocation where;
+  std::string message;
+};
+
+struct WireMesh {
+  std::vector<Segment> segments;
+  std::vector<MeshNode> nodes;
+  std::vector<Gap> port_gaps;  ///< one per Model::ports, same order
+  std::vector<Gap> load_gaps;  ///< one per Model::loads, same order
+  std::vector<MeshWarning> warnings;
+  int junction_count = 0;      ///< nodes where three or more ends meet, or a wire meets the ground
+};
+
+/// Meshes every wire of the model: segment counts from `segments N` or from the highest
+/// frequency (about a twentieth of a wavelength), nodes at every port and load, ends joined
+/// where they touch. Throws InputError for geometry that cannot be solved; warns for
+/// geometry that is solvable but questionable.
+WireMesh mesh_wires(const Model& model);
+
+}  // namespace lobe

@@ -1,0 +1,73 @@
+#include "post/frequency_result.hpp"
+
+#include <cmath>
+
+#include "core/constants.hpp"
+
+namespace lobe {
+
+Real to_dbi(Real ratio) {
+  if (!(ratio > 0.0)) return gain_floor_dbi;
+  return std::max(gain_floor_dbi, 10.0 * std::log10(ratio));
+}
+
+FrequencyResult evaluate_frequency(const WireProblem& problem, const FrequencySolution& solution) {
+  FrequencyResult result;
+  const Real z0 = problem.model.reference_ohm;
+  result.frequency_hz = solution.frequency_hz;
+  result.ports = port_results(solution, z0);
+  result.z_matrix = impedance_matrix(solution);
+  result.s_matrix = scattering_matrix(result.z_matrix, z0);
+  result.segment_currents = solution.segment_currents;
+  result.report = solution.report;
+
+  const FarField field(problem.mesh, solution, problem.model.ground_perfect);
+  result.power = power_budget(problem, solution);
+  result.power.radiated = field.radiated_power();
+
+  // Incident power of waves a = (V + Z0 I)/(2√Z0) from Z0 sources: realized gain counts
+  // the mismatch, G_realized = 4πU / P_incident.
+  Real incident = 0.0;
+  for (const auto& p : result.ports) incident += 0.5 * std::norm((p.voltage + z0 * p.current) / (2 * std::sqrt(z0)));
+
+  PatternResult& pattern = result.pattern;
+  pattern.thetas = problem.model.pattern.thetas();
+  pattern.phis = problem.model.pattern.phis();
+  const auto nt = static_cast<Eigen::Index>(pattern.thetas.size());
+  const auto np = static_cast<Eigen::Index>(pattern.phis.size());
+  for (auto* a : {&pattern.directivity_dbi, &pattern.gain_dbi, &pattern.realized_gain_dbi, &pattern.rhcp_dbi,
+                  &pattern.lhcp_dbi, &pattern.axial_ratio_db})
+    a->resize(nt, np);
+  pattern.e_theta.resize(nt, np);
+  pattern.e_phi.resize(nt, np);
+  pattern.hand.resize(nt, np);
+  const Real accepted = result.power.accepted, radiated = result.power.radiated;
+#pragma omp parallel for collapse(2)
+  for (Eigen::Index i = 0; i < nt; ++i)
+    for (Eigen::Index j = 0; j < np; ++j) {
+      const FarFieldSample e = field.at(pattern.thetas[i], pattern.phis[j]);
+      const CircularComponents c = circular_components(e.e_theta, e.e_phi);
+      const Real to_intensity = 1.0 / (2 * eta0);
+      const Real u = (std::norm(e.e_theta) + std::norm(e.e_phi)) * to_intensity;
+      pattern.e_theta(i, j) = e.e_theta;
+      pattern.e_phi(i, j) = e.e_phi;
+      pattern.directivity_dbi(i, j) = to_dbi(radiated > 0 ? 4 * pi * u / radiated : 0.0);
+      pattern.gain_dbi(i, j) = to_dbi(accepted > 0 ? 4 * pi * u / accepted : 0.0);
+      pattern.realized_gain_dbi(i, j) = to_dbi(incident > 0 ? 4 * pi * u / incident : 0.0);
+      pattern.rhcp_dbi(i, j) = to_dbi(accepted > 0 ? 4 * pi * std::norm(c.right) * to_intensity / accepted : 0.0);
+      pattern.lhcp_dbi(i, j) = to_dbi(accepted > 0 ? 4 * pi * std::norm(c.left) * to_intensity / accepted : 0.0);
+      pattern.axial_ratio_db(i, j) = axial_ratio_db(c);
+      pattern.hand(i, j) = static_cast<int>(polarization_hand(c));
+    }
+  Eigen::Index pi_index = 0, pj_index = 0;
+  if (nt > 0 && np > 0) {
+    result.peak_gain_dbi = pattern.gain_dbi.maxCoeff(&pi_index, &pj_index);
+    result.peak_theta = pattern.thetas[pi_index];
+    result.peak_phi = pattern.phis[pj_index];
+    result.peak_axial_ratio_db = pattern.axial_ratio_db(pi_index, pj_index);
+    result.peak_hand = static_cast<Hand>(pattern.hand(pi_index, pj_index));
+  }
+  return result;
+}
+
+}  // namespace lobe

@@ -1,0 +1,45 @@
+#pragma once
+/// Every figure reported at one frequency, computed from the solved currents.
+#include <vector>
+
+#include "post/far_field.hpp"
+#include "post/polarization.hpp"
+#include "post/port_quantities.hpp"
+#include "post/power_budget.hpp"
+
+namespace lobe {
+
+/// Gains below this are reported as this value (no field, e.g. under a ground plane).
+constexpr Real gain_floor_dbi = -150.0;
+
+/// Far-field figures on the model's θ/φ grid; arrays are (θ index, φ index).
+struct PatternResult {
+  std::vector<Real> thetas;  ///< rad
+  std::vector<Real> phis;    ///< rad
+  Eigen::ArrayXXcd e_theta, e_phi;  ///< V at r = 1 m, e^{−jkr} removed
+  Eigen::ArrayXXd directivity_dbi, gain_dbi, realized_gain_dbi, rhcp_dbi, lhcp_dbi, axial_ratio_db;
+  Eigen::ArrayXXi hand;  ///< +1 right, −1 left, 0 linear
+};
+
+struct FrequencyResult {
+  Real frequency_hz = 0.0;
+  std::vector<PortResult> ports;
+  ComplexMatrix z_matrix;  ///< ohm
+  ComplexMatrix s_matrix;
+  PowerBudget power;
+  PatternResult pattern;
+  Real peak_gain_dbi = gain_floor_dbi;
+  Real peak_theta = 0.0, peak_phi = 0.0;  ///< rad, on the grid
+  Real peak_axial_ratio_db = axial_ratio_ceiling_db;
+  Hand peak_hand = Hand::linear;
+  std::vector<std::array<Complex, 2>> segment_currents;
+  SolveReport report;
+};
+
+/// Ports, powers and the pattern on the model's grid (OpenMP-parallel over directions).
+FrequencyResult evaluate_frequency(const WireProblem& problem, const FrequencySolution& solution);
+
+/// 10 log10(x) with gain_floor_dbi for zero or tiny values.
+Real to_dbi(Real ratio);
+
+}  // namespace lobe

@@ -1,0 +1,54 @@
+#include "post/port_quantities.hpp"
+
+#include <cmath>
+
+namespace lobe {
+
+Complex reflection_coefficient(Complex impedance, Real reference_ohm) {
+  return (impedance - reference_ohm) / (impedance + reference_ohm);
+}
+
+Real vswr_from_reflection(Real magnitude) {
+  if (magnitude >= 1.0) return vswr_ceiling;
+  return std::min(vswr_ceiling, (1.0 + magnitude) / (1.0 - magnitude));
+}
+
+Real return_loss_db(Real magnitude) {
+  if (magnitude <= 0.0) return return_loss_ceiling_db;
+  return std::min(return_loss_ceiling_db, -20.0 * std::log10(magnitude));
+}
+
+Real mismatch_loss_db(Real magnitude) {
+  const Real accepted = 1.0 - magnitude * magnitude;
+  if (accepted <= 0.0) return return_loss_ceiling_db;
+  return std::min(return_loss_ceiling_db, -10.0 * std::log10(accepted));
+}
+
+ComplexMatrix impedance_matrix(const FrequencySolution& solution) { return solution.port_admittance.inverse(); }
+
+ComplexMatrix scattering_matrix(const ComplexMatrix& impedance, Real reference_ohm) {
+  const auto n = impedance.rows();
+  const ComplexMatrix identity = ComplexMatrix::Identity(n, n);
+  return (impedance - reference_ohm * identity) * (impedance + reference_ohm * identity).inverse();
+}
+
+std::vector<PortResult> port_results(const FrequencySolution& solution, Real reference_ohm) {
+  const ComplexMatrix z = impedance_matrix(solution);
+  std::vector<PortResult> results;
+  for (Eigen::Index p = 0; p < solution.port_voltages.size(); ++p) {
+    PortResult r;
+    r.voltage = solution.port_voltages[p];
+    r.current = solution.port_currents[p];
+    r.driven = std::abs(r.voltage) > 0.0 && std::abs(r.current) > 0.0;
+    r.impedance = r.driven ? r.voltage / r.current : z(p, p);
+    r.reflection = reflection_coefficient(r.impedance, reference_ohm);
+    const Real magnitude = std::abs(r.reflection);
+    r.vswr = vswr_from_reflection(magnitude);
+    r.return_loss_db = lobe::return_loss_db(magnitude);
+    r.mismatch_loss_db = lobe::mismatch_loss_db(magnitude);
+    results.push_back(r);
+  }
+  return results;
+}
+
+}  // namespace lobe

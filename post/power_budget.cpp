@@ -1,0 +1,27 @@
+#include "post/power_budget.hpp"
+
+#include "solver/impedance_fill.hpp"
+#include "solver/lumped_load.hpp"
+
+namespace lobe {
+
+PowerBudget power_budget(const WireProblem& problem, const FrequencySolution& solution) {
+  PowerBudget budget;
+  budget.accepted = 0.5 * solution.port_voltages.dot(solution.port_currents).real();
+  for (std::size_t s = 0; s < problem.mesh.segments.size(); ++s) {
+    const Segment& seg = problem.mesh.segments[s];
+    if (seg.conductivity <= 0.0) continue;
+    const Real r = wire_internal_impedance(seg.radius, seg.conductivity, solution.frequency_hz).real();
+    const Complex c0 = solution.segment_currents[s][0], c1 = solution.segment_currents[s][1];
+    // ∫ |c0 (1−ξ) + c1 ξ|² dl = L (|c0|² + |c1|² + Re(c0 c1*)) / 3.
+    const Real squared = (std::norm(c0) + std::norm(c1) + (c0 * std::conj(c1)).real()) * seg.length() / 3.0;
+    budget.conductor_loss += 0.5 * r * squared;
+  }
+  for (std::size_t l = 0; l < problem.model.loads.size(); ++l) {
+    const Complex current = problem.load_vectors.col(static_cast<Eigen::Index>(l)).cast<Complex>().dot(solution.coefficients);
+    budget.load_loss += 0.5 * std::norm(current) * load_impedance(problem.model.loads[l], solution.frequency_hz).real();
+  }
+  return budget;
+}
+
+}  // namespace lobe

@@ -1,0 +1,21 @@
+#pragma once
+/// Where the power delivered to the ports goes.
+#include "solver/wire_problem.hpp"
+
+namespace lobe {
+
+/// Time-average powers, W.
+struct PowerBudget {
+  Real accepted = 0.0;        ///< ½ Re Σ V I* over all ports
+  Real conductor_loss = 0.0;  ///< skin-effect loss in finitely conducting wires
+  Real load_loss = 0.0;       ///< in the resistive parts of lumped loads
+  Real radiated = 0.0;        ///< from the far field over the sphere (hemisphere over ground)
+  Real efficiency() const { return accepted > 0.0 ? radiated / accepted : 0.0; }
+  /// (accepted − radiated − losses)/accepted: zero for an exact solution.
+  Real imbalance() const { return accepted > 0.0 ? (accepted - radiated - conductor_loss - load_loss) / accepted : 0.0; }
+};
+
+/// Accepted power and losses; `radiated` is left to the caller (see FarField).
+PowerBudget power_budget(const WireProblem& problem, const FrequencySolution& solution);
+
+}  // namespace lobe

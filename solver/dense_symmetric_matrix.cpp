@@ -1,0 +1,50 @@
+#include "solver/dense_symmetric_matrix.hpp"
+
+#include <lapacke.h>
+
+#include "core/check.hpp"
+
+namespace lobe {
+
+std::uint64_t dense_matrix_bytes(std::uint64_t n) { return 2 * n * n * sizeof(Complex); }
+
+DenseSymmetricMatrix::DenseSymmetricMatrix(Eigen::Index n) : m_entries(ComplexMatrix::Zero(n, n)) {}
+
+void DenseSymmetricMatrix::factor() {
+  LOBE_CHECK(!m_factored, "matrix factored twice");
+  const auto n = static_cast<lapack_int>(size());
+  if (!m_entries.allFinite()) throw NumericalError("the system matrix has non-finite entries");
+  m_original = m_entries;
+  const Real norm1 = m_entries.cwiseAbs().colwise().sum().maxCoeff();
+  m_pivots.assign(n, 0);
+  auto* a = reinterpret_cast<lapack_complex_double*>(m_entries.data());
+  const lapack_int info = LAPACKE_zsytrf(LAPACK_COL_MAJOR, 'U', n, a, n, m_pivots.data());
+  if (info > 0) throw NumericalError("the system matrix is singular (zsytrf pivot " + std::to_string(info) + ")");
+  LOBE_CHECK(info == 0, "zsytrf argument error");
+  double rcond = 0.0;
+  const lapack_int con = LAPACKE_zsycon(LAPACK_COL_MAJOR, 'U', n, a, n, m_pivots.data(), norm1, &rcond);
+  LOBE_CHECK(con == 0, "zsycon failed");
+  m_reciprocal_condition = rcond;
+  m_factored = true;
+}
+
+ComplexMatrix DenseSymmetricMatrix::solve(const ComplexMatrix& rhs, SolveReport& report) const {
+  LOBE_CHECK(m_factored, "solve before factor");
+  LOBE_CHECK(rhs.rows() == size(), "right-hand side has the wrong size");
+  ComplexMatrix x = rhs;
+  const auto n = static_cast<lapack_int>(size());
+  const lapack_int info = LAPACKE_zsytrs(LAPACK_COL_MAJOR, 'U', n, static_cast<lapack_int>(x.cols()),
+                                         reinterpret_cast<const lapack_complex_double*>(m_entries.data()), n,
+                                         m_pivots.data(), reinterpret_cast<lapack_complex_double*>(x.data()), n);
+  LOBE_CHECK(info == 0, "zsytrs failed");
+  if (!x.allFinite()) throw NumericalError("the solution has non-finite values");
+  report.reciprocal_condition = m_reciprocal_condition;
+  report.relative_residual = 0.0;
+  for (Eigen::Index c = 0; c < rhs.cols(); ++c) {
+    const Real b = rhs.col(c).norm();
+    if (b > 0) report.relative_residual = std::max(report.relative_residual, (m_original * x.col(c) - rhs.col(c)).norm() / b);
+  }
+  return x;
+}
+
+}  // namespace lobe

@@ -1,0 +1,40 @@
+#pragma once
+/// A meshed model ready to solve at any frequency, and the solution at one frequency.
+#include <array>
+#include <vector>
+
+#include "geometry/model.hpp"
+#include "geometry/wire_mesh.hpp"
+#include "solver/system_matrix.hpp"
+#include "solver/wire_basis.hpp"
+
+namespace lobe {
+
+/// Everything that does not change with frequency: mesh, basis, port and load couplings.
+struct WireProblem {
+  explicit WireProblem(const Model& model);
+  const Model& model;
+  WireMesh mesh;
+  WireBasis basis;
+  Eigen::MatrixXd port_vectors;  ///< N × ports: column p couples basis currents to port p
+  Eigen::MatrixXd load_vectors;  ///< N × loads
+};
+
+/// The solved currents at one frequency.
+struct FrequencySolution {
+  Real frequency_hz = 0.0;
+  /// Y(i, j): current into port i with 1 V at port j and 0 V at all others, siemens.
+  ComplexMatrix port_admittance;
+  ComplexVector port_voltages;   ///< as the model drives them, V
+  ComplexVector port_currents;   ///< resulting port currents, A
+  ComplexVector coefficients;    ///< basis-function currents for the model's drive, A
+  /// Current at the start and end of each segment, along the segment direction, A.
+  std::vector<std::array<Complex, 2>> segment_currents;
+  SolveReport report;
+};
+
+/// Fills, factors and solves once for all ports. Throws NumericalError on a singular
+/// matrix or non-finite results. Cost: O(S²) fill, O(N³/3) factorisation.
+FrequencySolution solve_frequency(const WireProblem& problem, Real frequency_hz);
+
+}  // namespace lobe
