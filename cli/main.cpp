@@ -1,1 +1,58 @@
-int main(){}
+/// The lobe command: `lobe run MODEL` and `lobe check MODEL`.
+#include <CLI/CLI.hpp>
+
+#include <cstdio>
+#include <exception>
+
+#include "cli/commands.hpp"
+#include "core/input_error.hpp"
+#include "solver/system_matrix.hpp"
+
+namespace {
+
+constexpr int exit_bad_input = 2;
+constexpr int exit_internal_failure = 1;
+
+}  // namespace
+
+int main(int argc, char** argv) {
+  CLI::App app{"lobe: method-of-moments antenna simulator for wire antennas"};
+  app.set_version_flag("--version", LOBE_VERSION);
+  app.require_subcommand(1);
+
+  lobe::cli::RunOptions run;
+  for (int i = 0; i < argc; ++i) run.command_line += (i ? " " : "") + std::string(argv[i]);
+  auto* run_app = app.add_subcommand("run", "Solve a model at its frequencies; print a summary and write HDF5 and CSV results");
+  run_app->add_option("MODEL", run.model_path, "Model file (.lobe)")->required();
+  run_app->add_option("-o,--output", run.output_directory, "Directory for result files (default: MODEL-STEM-results)");
+  run_app->add_option("--set", run.set_options, "Override a let value: NAME=VALUE (repeatable)");
+  run_app->add_option("--threads", run.threads, "Threads for matrix fill and factorisation (default: all cores)")
+      ->check(CLI::Range(1, 1024));
+
+  std::string check_path;
+  std::vector<std::string> check_sets;
+  auto* check_app = app.add_subcommand("check", "Parse and mesh a model; print counts and warnings without solving");
+  check_app->add_option("MODEL", check_path, "Model file (.lobe)")->required();
+  check_app->add_option("--set", check_sets, "Override a let value: NAME=VALUE (repeatable)");
+
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    const int code = app.exit(e);
+    return code == 0 ? 0 : exit_bad_input;
+  }
+
+  try {
+    if (*run_app) return lobe::cli::run_command(run);
+    return lobe::cli::check_command(check_path, check_sets);
+  } catch (const lobe::InputError& e) {
+    std::fprintf(stderr, "%s\n", e.formatted().c_str());
+    return exit_bad_input;
+  } catch (const lobe::NumericalError& e) {
+    std::fprintf(stderr, "lobe: numerical failure: %s; no results were written\n", e.what());
+    return exit_internal_failure;
+  } catch (const std::exception& e) {
+    std::fprintf(stderr, "lobe: internal failure: %s; no results were written\n", e.what());
+    return exit_internal_failure;
+  }
+}

@@ -59,9 +59,21 @@ FrequencyResult evaluate_frequency(const WireProblem& problem, const FrequencySo
       pattern.axial_ratio_db(i, j) = axial_ratio_db(c);
       pattern.hand(i, j) = static_cast<int>(polarization_hand(c));
     }
-  Eigen::Index pi_index = 0, pj_index = 0;
   if (nt > 0 && np > 0) {
-    result.peak_gain_dbi = pattern.gain_dbi.maxCoeff(&pi_index, &pj_index);
+    // The first direction (θ, then φ, ascending) within a rounding margin of the maximum,
+    // so that ties (a pattern symmetric about the axis) give a reproducible answer.
+    constexpr Real tie_margin_db = 1e-6;
+    const Real maximum = pattern.gain_dbi.maxCoeff();
+    Eigen::Index pi_index = 0, pj_index = 0;
+    bool found = false;
+    for (Eigen::Index i = 0; i < nt && !found; ++i)
+      for (Eigen::Index j = 0; j < np && !found; ++j)
+        if (pattern.gain_dbi(i, j) >= maximum - tie_margin_db) {
+          pi_index = i;
+          pj_index = j;
+          found = true;
+        }
+    result.peak_gain_dbi = pattern.gain_dbi(pi_index, pj_index);
     result.peak_theta = pattern.thetas[pi_index];
     result.peak_phi = pattern.phis[pj_index];
     result.peak_axial_ratio_db = pattern.axial_ratio_db(pi_index, pj_index);

@@ -1,0 +1,27 @@
+#pragma once
+/// The subcommands of the lobe program; each returns the process exit code.
+#include <string>
+#include <vector>
+
+#include "geometry/wire_mesh.hpp"
+
+namespace lobe::cli {
+
+struct RunOptions {
+  std::string model_path;
+  std::string output_directory;  ///< empty: <model stem>-results beside the current directory
+  std::vector<std::string> set_options;
+  int threads = 0;               ///< 0: all available
+  std::string command_line;
+};
+
+/// Solves every frequency, prints the summary and writes HDF5 and CSV files.
+int run_command(const RunOptions& options);
+
+/// Prints the mesher's warnings as FILE:LINE:COL: warning: ... on standard error.
+void print_warnings(const WireMesh& mesh);
+
+/// Parses and meshes; prints counts and warnings; solves nothing.
+int check_command(const std::string& model_path, const std::vector<std::string>& set_options);
+
+}  // namespace lobe::cli

@@ -1,0 +1,62 @@
+#include <unistd.h>
+
+#include <chrono>
+#include <cstdio>
+#include <filesystem>
+
+#include "cli/commands.hpp"
+#include "cli/model_loading.hpp"
+#include "post/csv_writer.hpp"
+#include "post/hdf5_writer.hpp"
+#include "post/output_files.hpp"
+#include "post/run_summary.hpp"
+#include "solver/threads.hpp"
+
+namespace lobe::cli {
+
+int run_command(const RunOptions& options) {
+  if (options.threads > 0) set_thread_count(options.threads);
+  const Model model = load_model(options.model_path, options.set_options);
+  const WireProblem problem(model);
+  print_warnings(problem.mesh);
+  const std::filesystem::path model_path(options.model_path);
+  const std::string stem = model_path.stem().string();
+  const std::filesystem::path directory =
+      options.output_directory.empty() ? std::filesystem::path(stem + "-results") : std::filesystem::path(options.output_directory);
+
+  std::printf("lobe %s: %s\n", LOBE_VERSION, options.model_path.c_str());
+  std::printf("configuration: %zu segments, %d unknowns, %zu ports, %zu loads, ground %s, reference %.6g ohm, "
+              "%zu frequencies, %d threads\n\n",
+              problem.mesh.segments.size(), problem.basis.size(), model.ports.size(), model.loads.size(),
+              model.ground_perfect ? "perfect" : "none", model.reference_ohm, model.frequencies_hz.size(), thread_count());
+  for (const auto& v : model.values)
+    if (v.overridden) std::printf("set %s = %.10g %s\n", v.name.c_str(), v.value, v.unit.c_str());
+
+  RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), options.command_line}};
+  const bool terminal = isatty(fileno(stderr));
+  const auto start = std::chrono::steady_clock::now();
+  for (std::size_t i = 0; i < model.frequencies_hz.size(); ++i) {
+    const Real f = model.frequencies_hz[i];
+    run.results.push_back(evaluate_frequency(problem, solve_frequency(problem, f)));
+    const double elapsed = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+    if (model.frequencies_hz.size() > 1)
+      std::fprintf(stderr, "%ssolved %zu/%zu (%.6g MHz), %.1f s elapsed, about %.0f s left%s",
+                   terminal ? "\r" : "", i + 1, model.frequencies_hz.size(), f / 1e6, elapsed,
+                   elapsed / (i + 1) * (model.frequencies_hz.size() - i - 1), terminal ? "   " : "\n");
+  }
+  if (terminal && model.frequencies_hz.size() > 1) std::fprintf(stderr, "\n");
+
+  OutputFiles files(directory);
+  write_hdf5(files.staging_path(stem + ".h5"), run);
+  write_ports_csv(files.staging_path(stem + "_ports.csv"), run);
+  write_pattern_csv(files.staging_path(stem + "_pattern.csv"), run);
+  write_currents_csv(files.staging_path(stem + "_currents.csv"), run);
+  const auto written = files.commit();
+
+  std::printf("%s\n", run_summary(run).c_str());
+  std::printf("results:\n");
+  for (const auto& path : written) std::printf("  %s\n", path.string().c_str());
+  return 0;
+}
+
+}  // namespace lobe::cli

@@ -1,0 +1,18 @@
+#pragma once
+/// Plain CSV tables of port, pattern and current results.
+#include <filesystem>
+
+#include "post/run_record.hpp"
+
+namespace lobe {
+
+/// One row per frequency and port. Header starts
+/// frequency_hz,port,resistance_ohm,reactance_ohm,vswr,return_loss_db.
+void write_ports_csv(const std::filesystem::path& path, const RunRecord& run);
+/// One row per frequency and direction. Header starts
+/// frequency_hz,theta_deg,phi_deg,gain_dbi,rhcp_dbi,lhcp_dbi,axial_ratio_db.
+void write_pattern_csv(const std::filesystem::path& path, const RunRecord& run);
+/// One row per frequency and segment: the current at the segment midpoint.
+void write_currents_csv(const std::filesystem::path& path, const RunRecord& run);
+
+}  // namespace lobe

@@ -1,0 +1,243 @@
+#include "post/hdf5_writer.hpp"
+
+#include <hdf5.h>
+
+#include <functional>
+#include <stdexcept>
+#include <vector>
+
+#include "core/constants.hpp"
+
+namespace lobe {
+namespace {
+
+/// Closes an HDF5 handle when it goes out of scope.
+class Handle {
+ public:
+  Handle(hid_t id, herr_t (*close)(hid_t)) : m_id(id), m_close(close) {
+    if (id < 0) throw std::runtime_error("HDF5 call failed");
+  }
+  ~Handle() { m_close(m_id); }
+  Handle(const Handle&) = delete;
+  Handle& operator=(const Handle&) = delete;
+  operator hid_t() const { return m_id; }
+
+ private:
+  hid_t m_id;
+  herr_t (*m_close)(hid_t);
+};
+
+void check(herr_t status) {
+  if (status < 0) throw std::runtime_error("HDF5 write failed");
+}
+
+void string_attribute(hid_t object, const char* name, const std::string& value) {
+  Handle type(H5Tcopy(H5T_C_S1), H5Tclose);
+  check(H5Tset_size(type, std::max<std::size_t>(1, value.size())));
+  Handle space(H5Screate(H5S_SCALAR), H5Sclose);
+  Handle attribute(H5Acreate2(object, name, type, space, H5P_DEFAULT, H5P_DEFAULT), H5Aclose);
+  check(H5Awrite(attribute, type, value.c_str()));
+}
+
+void int_attribute(hid_t object, const char* name, long value) {
+  Handle space(H5Screate(H5S_SCALAR), H5Sclose);
+  Handle attribute(H5Acreate2(object, name, H5T_NATIVE_LONG, space, H5P_DEFAULT, H5P_DEFAULT), H5Aclose);
+  check(H5Awrite(attribute, H5T_NATIVE_LONG, &value));
+}
+
+void write_reals(hid_t group, const char* name, const std::vector<hsize_t>& dims, const std::vector<Real>& data,
+                 const std::string& unit) {
+  Handle space(H5Screate_simple(static_cast<int>(dims.size()), dims.data(), nullptr), H5Sclose);
+  Handle set(H5Dcreate2(group, name, H5T_IEEE_F64LE, space, H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT), H5Dclose);
+  if (!data.empty()) check(H5Dwrite(set, H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, data.data()));
+  string_attribute(set, "unit", unit);
+}
+
+void write_ints(hid_t group, const char* name, const std::vector<hsize_t>& dims, const std::vector<int>& data) {
+  Handle space(H5Screate_simple(static_cast<int>(dims.size()), dims.data(), nullptr), H5Sclose);
+  Handle set(H5Dcreate2(group, name, H5T_STD_I32LE, space, H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT), H5Dclose);
+  if (!data.empty()) check(H5Dwrite(set, H5T_NATIVE_INT, H5S_ALL, H5S_ALL, H5P_DEFAULT, data.data()));
+}
+
+void write_strings(hid_t group, const char* name, const std::vector<std::string>& values) {
+  Handle type(H5Tcopy(H5T_C_S1), H5Tclose);
+  check(H5Tset_size(type, H5T_VARIABLE));
+  const hsize_t dims[1] = {values.size()};
+  Handle space(H5Screate_simple(1, dims, nullptr), H5Sclose);
+  Handle set(H5Dcreate2(group, name, type, space, H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT), H5Dclose);
+  std::vector<const char*> pointers;
+  for (const auto& v : values) pointers.push_back(v.c_str());
+  if (!values.empty()) check(H5Dwrite(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, pointers.data()));
+}
+
+void write_string(hid_t group, const char* name, const std::string& value) {
+  Handle type(H5Tcopy(H5T_C_S1), H5Tclose);
+  check(H5Tset_size(type, std::max<std::size_t>(1, value.size())));
+  Handle space(H5Screate(H5S_SCALAR), H5Sclose);
+  Handle set(H5Dcreate2(group, name, type, space, H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT), H5Dclose);
+  check(H5Dwrite(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, value.c_str()));
+}
+
+Handle group(hid_t parent, const char* name) {
+  return Handle(H5Gcreate2(parent, name, H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT), H5Gclose);
+}
+
+/// Gathers one value per (frequency, item) into a flat frequency-major array.
+std::vector<Real> per_frequency(const RunRecord& run, std::size_t items,
+                                const std::function<Real(const FrequencyResult&, std::size_t)>& value) {
+  std::vector<Real> data;
+  data.reserve(run.results.size() * items);
+  for (const auto& r : run.results)
+    for (std::size_t i = 0; i < items; ++i) data.push_back(value(r, i));
+  return data;
+}
+
+void write_model(hid_t file, const RunRecord& run) {
+  const Model& model = run.problem.model;
+  Handle g = group(file, "model");
+  write_string(g, "source", model.text);
+  std::vector<std::string> names, units;
+  std::vector<Real> values;
+  std::vector<int> overridden;
+  for (const auto& v : model.values) {
+    names.push_back(v.name);
+    units.push_back(v.unit);
+    values.push_back(v.value);
+    overridden.push_back(v.overridden ? 1 : 0);
+  }
+  write_strings(g, "value_names", names);
+  write_reals(g, "values", {values.size()}, values, "SI, per value_units");
+  write_strings(g, "value_units", units);
+  write_ints(g, "value_overridden", {overridden.size()}, overridden);
+  string_attribute(g, "file", model.file);
+  string_attribute(g, "ground", model.ground_perfect ? "perfect" : "none");
+  write_reals(g, "reference_ohm", {1}, {model.reference_ohm}, "ohm");
+}
+
+void write_ports(hid_t file, const RunRecord& run) {
+  const Model& model = run.problem.model;
+  const std::size_t np = model.ports.size(), nf = run.results.size();
+  Handle g = group(file, "ports");
+  std::vector<std::string> names;
+  for (const auto& p : model.ports) names.push_back(p.name);
+  write_strings(g, "names", names);
+  const std::vector<hsize_t> dims{nf, np};
+  auto port = [&](const char* name, const char* unit, const std::function<Real(const PortResult&)>& f) {
+    write_reals(g, name, dims, per_frequency(run, np, [&](const FrequencyResult& r, std::size_t i) { return f(r.ports[i]); }), unit);
+  };
+  port("resistance_ohm", "ohm", [](const PortResult& p) { return p.impedance.real(); });
+  port("reactance_ohm", "ohm", [](const PortResult& p) { return p.impedance.imag(); });
+  port("vswr", "1", [](const PortResult& p) { return p.vswr; });
+  port("return_loss_db", "dB", [](const PortResult& p) { return p.return_loss_db; });
+  port("mismatch_loss_db", "dB", [](const PortResult& p) { return p.mismatch_loss_db; });
+  port("reflection_re", "1", [](const PortResult& p) { return p.reflection.real(); });
+  port("reflection_im", "1", [](const PortResult& p) { return p.reflection.imag(); });
+  port("voltage_re", "V", [](const PortResult& p) { return p.voltage.real(); });
+  port("voltage_im", "V", [](const PortResult& p) { return p.voltage.imag(); });
+  port("current_re", "A", [](const PortResult& p) { return p.current.real(); });
+  port("current_im", "A", [](const PortResult& p) { return p.current.imag(); });
+  const std::vector<hsize_t> square{nf, np, np};
+  auto matrix = [&](const char* name, const char* unit, const std::function<Real(const FrequencyResult&, std::size_t)>& f) {
+    write_reals(g, name, square, per_frequency(run, np * np, f), unit);
+  };
+  // Row-major [port i, port j] within each frequency.
+  matrix("z_matrix_re", "ohm", [np](const FrequencyResult& r, std::size_t k) { return r.z_matrix(k / np, k % np).real(); });
+  matrix("z_matrix_im", "ohm", [np](const FrequencyResult& r, std::size_t k) { return r.z_matrix(k / np, k % np).imag(); });
+  matrix("s_matrix_re", "1", [np](const FrequencyResult& r, std::size_t k) { return r.s_matrix(k / np, k % np).real(); });
+  matrix("s_matrix_im", "1", [np](const FrequencyResult& r, std::size_t k) { return r.s_matrix(k / np, k % np).imag(); });
+}
+
+void write_power(hid_t file, const RunRecord& run) {
+  Handle g = group(file, "power");
+  const std::vector<hsize_t> dims{run.results.size()};
+  auto power = [&](const char* name, const char* unit, const std::function<Real(const PowerBudget&)>& f) {
+    write_reals(g, name, dims, per_frequency(run, 1, [&](const FrequencyResult& r, std::size_t) { return f(r.power); }), unit);
+  };
+  power("accepted_w", "W", [](const PowerBudget& p) { return p.accepted; });
+  power("radiated_w", "W", [](const PowerBudget& p) { return p.radiated; });
+  power("conductor_loss_w", "W", [](const PowerBudget& p) { return p.conductor_loss; });
+  power("load_loss_w", "W", [](const PowerBudget& p) { return p.load_loss; });
+  power("efficiency", "1", [](const PowerBudget& p) { return p.efficiency(); });
+}
+
+void write_pattern(hid_t file, const RunRecord& run) {
+  Handle g = group(file, "pattern");
+  const PatternGrid& grid = run.problem.model.pattern;
+  std::vector<Real> thetas = grid.thetas(), phis = grid.phis();
+  for (auto& t : thetas) t *= 180.0 / pi;
+  for (auto& p : phis) p *= 180.0 / pi;
+  write_reals(g, "theta_deg", {thetas.size()}, thetas, "deg");
+  write_reals(g, "phi_deg", {phis.size()}, phis, "deg");
+  const std::size_t nt = thetas.size(), np = phis.size();
+  const std::vector<hsize_t> dims{run.results.size(), nt, np};
+  auto field = [&](const char* name, const char* unit, const std::function<Real(const PatternResult&, Eigen::Index, Eigen::Index)>& f) {
+    write_reals(g, name, dims, per_frequency(run, nt * np, [&](const FrequencyResult& r, std::size_t k) {
+                  return f(r.pattern, static_cast<Eigen::Index>(k / np), static_cast<Eigen::Index>(k % np));
+                }), unit);
+  };
+  field("gain_dbi", "dBi", [](const PatternResult& p, auto i, auto j) { return p.gain_dbi(i, j); });
+  field("directivity_dbi", "dBi", [](const PatternResult& p, auto i, auto j) { return p.directivity_dbi(i, j); });
+  field("realized_gain_dbi", "dBi", [](const PatternResult& p, auto i, auto j) { return p.realized_gain_dbi(i, j); });
+  field("rhcp_dbi", "dBi", [](const PatternResult& p, auto i, auto j) { return p.rhcp_dbi(i, j); });
+  field("lhcp_dbi", "dBi", [](const PatternResult& p, auto i, auto j) { return p.lhcp_dbi(i, j); });
+  field("axial_ratio_db", "dB", [](const PatternResult& p, auto i, auto j) { return p.axial_ratio_db(i, j); });
+  field("hand", "+1 right, -1 left, 0 linear", [](const PatternResult& p, auto i, auto j) { return Real(p.hand(i, j)); });
+  field("e_theta_re", "V (r = 1 m)", [](const PatternResult& p, auto i, auto j) { return p.e_theta(i, j).real(); });
+  field("e_theta_im", "V (r = 1 m)", [](const PatternResult& p, auto i, auto j) { return p.e_theta(i, j).imag(); });
+  field("e_phi_re", "V (r = 1 m)", [](const PatternResult& p, auto i, auto j) { return p.e_phi(i, j).real(); });
+  field("e_phi_im", "V (r = 1 m)", [](const PatternResult& p, auto i, auto j) { return p.e_phi(i, j).imag(); });
+}
+
+void write_currents(hid_t file, const RunRecord& run) {
+  Handle g = group(file, "currents");
+  const auto& segments = run.problem.mesh.segments;
+  const std::size_t ns = segments.size();
+  std::vector<Real> starts, ends, radii;
+  std::vector<int> wires;
+  for (const auto& s : segments) {
+    for (int c = 0; c < 3; ++c) starts.push_back(s.start[c]);
+    for (int c = 0; c < 3; ++c) ends.push_back(s.end[c]);
+    radii.push_back(s.radius);
+    wires.push_back(s.wire);
+  }
+  write_reals(g, "segment_start_m", {ns, 3}, starts, "m");
+  write_reals(g, "segment_end_m", {ns, 3}, ends, "m");
+  write_reals(g, "radius_m", {ns}, radii, "m");
+  write_ints(g, "wire", {ns}, wires);
+  const std::vector<hsize_t> dims{run.results.size(), ns};
+  for (int end = 0; end < 2; ++end)
+    for (int part = 0; part < 2; ++part) {
+      const std::string name = std::string(end ? "end" : "start") + (part ? "_im_a" : "_re_a");
+      write_reals(g, name.c_str(), dims, per_frequency(run, ns, [&](const FrequencyResult& r, std::size_t s) {
+                    const Complex c = r.segment_currents[s][end];
+                    return part ? c.imag() : c.real();
+                  }), "A (along the segment)");
+    }
+}
+
+}  // namespace
+
+void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
+  Handle file(H5Fcreate(path.c_str(), H5F_ACC_TRUNC, H5P_DEFAULT, H5P_DEFAULT), H5Fclose);
+  string_attribute(file, "program", "lobe");
+  string_attribute(file, "version", run.info.version);
+  int_attribute(file, "threads", run.info.threads);
+  string_attribute(file, "command_line", run.info.command_line);
+  string_attribute(file, "time_convention", "exp(+j omega t)");
+  string_attribute(file, "angles", "theta from +z, phi from +x toward +y");
+  const std::vector<hsize_t> nf{run.results.size()};
+  write_reals(file, "frequency_hz", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.frequency_hz; }), "Hz");
+  write_model(file, run);
+  write_ports(file, run);
+  write_power(file, run);
+  write_pattern(file, run);
+  write_currents(file, run);
+  Handle solver = group(file, "solver");
+  write_reals(solver, "reciprocal_condition", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.report.reciprocal_condition; }), "1");
+  write_reals(solver, "relative_residual", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.report.relative_residual; }), "1");
+  int_attribute(solver, "unknowns", run.problem.basis.size());
+  int_attribute(solver, "segments", static_cast<long>(run.problem.mesh.segments.size()));
+  check(H5Fflush(file, H5F_SCOPE_GLOBAL));
+}
+
+}  // namespace lobe

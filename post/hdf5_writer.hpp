@@ -1,0 +1,21 @@
+#pragma once
+/// One self-describing HDF5 file per run.
+#include <filesystem>
+
+#include "post/run_record.hpp"
+
+namespace lobe {
+
+/// Layout (arrays indexed frequency first; every numeric dataset has a "unit" attribute):
+///   /frequency_hz
+///   /model/source, /model/value_names, /model/values, /model/value_units
+///   /ports/names, /ports/{resistance_ohm, reactance_ohm, vswr, return_loss_db, ...}
+///   /ports/{z_matrix,s_matrix}_{re,im}           [f, port, port]
+///   /power/{accepted_w, radiated_w, conductor_loss_w, load_loss_w, efficiency}
+///   /pattern/{theta_deg, phi_deg}, /pattern/{gain_dbi, rhcp_dbi, ...} [f, θ, φ]
+///   /currents/{segment_start_m, segment_end_m, radius_m, wire}, /currents/{start,end}_{re,im}_a [f, segment]
+///   /solver/{reciprocal_condition, relative_residual}
+/// Root attributes: program, version, threads, command_line, time_convention.
+void write_hdf5(const std::filesystem::path& path, const RunRecord& run);
+
+}  // namespace lobe

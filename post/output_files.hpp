@@ -1,0 +1,29 @@
+#pragma once
+/// Result files that appear all together or not at all.
+#include <filesystem>
+#include <string>
+#include <vector>
+
+namespace lobe {
+
+/// Hands out temporary names beside the final ones; commit() renames them into place.
+/// Destroyed uncommitted (an error on the way), it removes the temporaries, so a user's
+/// earlier results are never replaced by a half-written set.
+class OutputFiles {
+ public:
+  explicit OutputFiles(std::filesystem::path directory);
+  ~OutputFiles();
+  OutputFiles(const OutputFiles&) = delete;
+  OutputFiles& operator=(const OutputFiles&) = delete;
+  /// The temporary path to write `name` to.
+  std::filesystem::path staging_path(const std::string& name);
+  /// Renames every staged file to its final name; returns the final paths.
+  std::vector<std::filesystem::path> commit();
+
+ private:
+  std::filesystem::path m_directory;
+  std::vector<std::pair<std::filesystem::path, std::filesystem::path>> m_staged;
+  bool m_committed = false;
+};
+
+}  // namespace lobe

@@ -1,0 +1,18 @@
+#pragma once
+/// The compact text summary printed after a run.
+#include <string>
+
+#include "post/run_record.hpp"
+
+namespace lobe {
+
+/// VSWR above which the summary warns about reflected transmitter power (2:1 is the
+/// usual acceptance limit for a transmitter; common practice).
+constexpr Real vswr_caution_threshold = 2.0;
+
+/// Per port and frequency: impedance, VSWR and return loss; per frequency: peak gain,
+/// its direction, the axial ratio and hand there, and the efficiency; per band: the
+/// lowest, mean and highest VSWR at the computed frequencies inside it; then cautions.
+std::string run_summary(const RunRecord& run);
+
+}  // namespace lobe
