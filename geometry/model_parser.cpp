@@ -131,8 +131,9 @@ class ModelParser {
     Quantity value = parse_expression(c, m_symbols);
     ResolvedValue resolved{name.text, value.value, si_unit_text(value.dim), false};
     if (auto it = m_overrides.find(name.text); it != m_overrides.end()) {
-      const Quantity replaced = evaluate_override(it->second);
-      if (!replaced.dim.is_none() && replaced.dim != value.dim)
+      Quantity replaced = evaluate_override(it->second);
+      if (replaced.dim.is_none() && !value.dim.is_none()) replaced = plain_as(replaced.value, value.dim, it->second);
+      if (replaced.dim != value.dim)
         throw InputError(it->second.where, "--set " + name.text + " gives " + dimension_name(replaced.dim) +
                                                " but the model defines it as " + dimension_name(value.dim));
       value = replaced;
@@ -141,6 +142,16 @@ class ModelParser {
     }
     m_symbols[name.text] = value;
     m_model.values.push_back(resolved);
+  }
+
+  /// A plain number given for a value that has a unit is read as the model reads bare
+  /// numbers: lengths in `units`, angles in degrees, other quantities in SI; a frequency
+  /// must say its unit.
+  Quantity plain_as(Real number, const Dimension& dim, const Override& o) {
+    if (dim == dimension::frequency)
+      throw InputError(o.where, "--set " + o.name + " needs a unit (Hz, kHz, MHz or GHz)");
+    const Real scale = dim == dimension::length ? m_model.length_unit : dim == dimension::angle ? pi / 180.0 : 1.0;
+    return {number * scale, dim};
   }
 
   Quantity evaluate_override(const Override& o) {
@@ -309,9 +320,9 @@ class ModelParser {
     c.expect_word("across", "after the wire name");
     const Token& plane = c.expect_name("a plane: xy, yz or zx");
     Eigen::Matrix3d m = Eigen::Matrix3d::Identity();
-    if (plane.text == "xy") m(2, 2) = -1;
-    else if (plane.text == "yz") m(0, 0) = -1;
-    else if (plane.text == "zx") m(1, 1) = -1;
+    if (plane.text == "xy" || plane.text == "yx") m(2, 2) = -1;
+    else if (plane.text == "yz" || plane.text == "zy") m(0, 0) = -1;
+    else if (plane.text == "zx" || plane.text == "xz") m(1, 1) = -1;
     else throw InputError(plane.where, "mirror plane is xy, yz or zx, not '" + plane.text + "'");
     Affine reflection = Affine::Identity();
     reflection.linear() = m;

@@ -20,6 +20,8 @@ constexpr Real thin_wire_ratio = 8.0;
 /// Above this fraction of a wavelength a segment cannot follow the current well.
 constexpr Real longest_segment_wavelengths = 0.1;
 constexpr std::size_t max_total_segments = 200000;
+/// Relative to a segment's length, how close to z = 0 an end must be to touch the ground.
+constexpr Real ground_tolerance = 1e-6;
 
 std::string format(Real v) {
   std::ostringstream s;
@@ -210,13 +212,15 @@ class Mesher {
 
   void check_ground() {
     if (!m_model.ground_perfect) return;
+    // An end within a millionth of its segment's length of z = 0 touches the ground:
+    // rounding in the user's arithmetic, not a gap.
     for (auto& node : m_mesh.nodes) {
-      const Real tolerance = m_mesh.segments[node.ends.front().segment].radius;
+      const Real tolerance = ground_tolerance * m_mesh.segments[node.ends.front().segment].length();
       if (std::abs(node.position.z()) < tolerance) node.on_ground = true;
     }
     for (const auto& s : m_mesh.segments) {
       const Wire& wire = m_model.wires[s.wire];
-      const Real tolerance = s.radius;
+      const Real tolerance = ground_tolerance * s.length();
       if (s.start.z() < -tolerance || s.end.z() < -tolerance)
         throw InputError(wire.where, "wire '" + wire.name + "' goes below the ground plane at z = 0");
       if (m_mesh.nodes[s.node[0]].on_ground && m_mesh.nodes[s.node[1]].on_ground)

@@ -1,0 +1,49 @@
+#pragma once
+/// Runs the lobe executable as a user would and captures what it prints.
+#include <sys/wait.h>
+#include <unistd.h>
+
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+#include <string>
+
+namespace lobe::testing {
+
+struct ProcessResult {
+  int exit_code = -1;
+  std::string out;
+  std::string err;
+};
+
+inline std::string read_text(const std::filesystem::path& path) {
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream s;
+  s << in.rdbuf();
+  return s.str();
+}
+
+/// Runs `lobe ARGS` with a 120 s limit (a hang shows as exit code 124).
+inline ProcessResult run_lobe(const std::string& args, const std::filesystem::path& scratch) {
+  std::filesystem::create_directories(scratch);
+  const auto out = scratch / "stdout.txt", err = scratch / "stderr.txt";
+  const std::string command = "timeout 120 " + std::string(LOBE_EXECUTABLE) + " " + args + " > '" + out.string() +
+                              "' 2> '" + err.string() + "' < /dev/null";
+  const int status = std::system(command.c_str());
+  ProcessResult r;
+  r.exit_code = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
+  r.out = read_text(out);
+  r.err = read_text(err);
+  return r;
+}
+
+/// A fresh empty directory under the system's temporary directory.
+inline std::filesystem::path fresh_directory(const std::string& name) {
+  const auto dir = std::filesystem::temp_directory_path() / ("lobe-test-" + std::to_string(::getpid())) / name;
+  std::filesystem::remove_all(dir);
+  std::filesystem::create_directories(dir);
+  return dir;
+}
+
+}  // namespace lobe::testing

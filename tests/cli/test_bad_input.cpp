@@ -1,0 +1,106 @@
+// Every malformed model gives exit code 2 and one line FILE:LINE:COL: message naming the
+// problem; nothing crashes or hangs, and no result file appears or is replaced.
+#include <gtest/gtest.h>
+
+#include <regex>
+
+#include "cli/run_process.hpp"
+
+namespace lobe::testing {
+namespace {
+
+const std::filesystem::path corpus = std::filesystem::path(LOBE_SOURCE_DIR) / "tests" / "bad_models";
+
+/// The text after "# expect: " on a corpus file's first line.
+std::string expected_message(const std::filesystem::path& file) {
+  std::ifstream in(file, std::ios::binary);
+  std::string first;
+  std::getline(in, first);
+  const std::string marker = "# expect: ";
+  return first.rfind(marker, 0) == 0 ? first.substr(marker.size()) : "";
+}
+
+/// Runs check and run on `model`; both must fail cleanly with `expected` in the message.
+void expect_clean_rejection(const std::filesystem::path& model, const std::string& expected) {
+  const auto scratch = fresh_directory("bad-" + model.stem().string());
+  const auto results = scratch / "results";
+  std::filesystem::create_directories(results);
+  const auto keep = results / "earlier.txt";
+  std::ofstream(keep) << "a user's earlier result";
+  for (const std::string command : {"check", "run"}) {
+    const std::string args = command + " '" + model.string() + "'" + (command == "run" ? " -o '" + results.string() + "'" : "");
+    const ProcessResult r = run_lobe(args, scratch);
+    SCOPED_TRACE(model.filename().string() + " with " + command);
+    EXPECT_EQ(r.exit_code, 2) << r.err;
+    const std::regex one_line("^" + std::regex_replace(model.string(), std::regex(R"([.^$|()\[\]{}*+?\\])"), R"(\$&)") +
+                              R"(:\d+:\d+: [^\n]+\n$)");
+    EXPECT_TRUE(std::regex_match(r.err, one_line)) << r.err;
+    EXPECT_NE(r.err.find(expected), std::string::npos) << "expected '" << expected << "' in: " << r.err;
+  }
+  // Nothing written, nothing the user had lost.
+  std::size_t entries = 0;
+  for ([[maybe_unused]] const auto& e : std::filesystem::directory_iterator(results)) ++entries;
+  EXPECT_EQ(entries, 1u);
+  EXPECT_EQ(read_text(keep), "a user's earlier result");
+}
+
+TEST(BadInput, CorpusHasAtLeastThirtyModels) {
+  std::size_t count = 0;
+  for (const auto& e : std::filesystem::directory_iterator(corpus)) count += e.path().extension() == ".lobe";
+  EXPECT_GE(count, 30u);
+}
+
+TEST(BadInput, EveryCorpusModelIsRejectedCleanly) {
+  for (const auto& e : std::filesystem::directory_iterator(corpus)) {
+    if (e.path().extension() != ".lobe") continue;
+    const std::string expected = expected_message(e.path());
+    ASSERT_FALSE(expected.empty()) << e.path() << " lacks its '# expect:' line";
+    expect_clean_rejection(e.path(), expected);
+  }
+}
+
+// Inputs too large or too strange to keep in the repository are made here.
+TEST(BadInput, TenMegabyteLine) {
+  const auto dir = fresh_directory("generated-long");
+  const auto model = dir / "long_line.lobe";
+  std::ofstream(model) << "let x = " << std::string(10 << 20, '1') << "\n";
+  expect_clean_rejection(model, "characters long");
+}
+
+TEST(BadInput, BinaryGarbage) {
+  const auto dir = fresh_directory("generated-binary");
+  const auto model = dir / "garbage.lobe";
+  std::ofstream out(model, std::ios::binary);
+  for (int i = 0; i < 4096; ++i) out.put(static_cast<char>((i * 7919 + 13) % 256));
+  out.close();
+  expect_clean_rejection(model, "unexpected byte");
+}
+
+TEST(BadInput, EmptyFile) {
+  const auto dir = fresh_directory("generated-empty");
+  const auto model = dir / "empty.lobe";
+  std::ofstream{model};
+  expect_clean_rejection(model, "the model is empty");
+}
+
+TEST(BadInput, MissingFile) {
+  expect_clean_rejection(std::filesystem::temp_directory_path() / "lobe-no-such-model.lobe", "cannot open");
+}
+
+TEST(BadInput, BadSetOption) {
+  const auto scratch = fresh_directory("bad-set");
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
+  const ProcessResult r = run_lobe("check '" + model + "' --set nonexistent=3", scratch);
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_NE(r.err.find("--set:1:"), std::string::npos) << r.err;
+}
+
+TEST(BadInput, UnknownCommandLineOptionExitsTwo) {
+  const auto scratch = fresh_directory("bad-option");
+  EXPECT_EQ(run_lobe("run --no-such-option x.lobe", scratch).exit_code, 2);
+  EXPECT_EQ(run_lobe("", scratch).exit_code, 2);
+  EXPECT_EQ(run_lobe("--help", scratch).exit_code, 0);
+}
+
+}  // namespace
+}  // namespace lobe::testing

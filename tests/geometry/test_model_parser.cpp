@@ -1,0 +1,87 @@
+#include <gtest/gtest.h>
+
+#include <cmath>
+
+#include "core/constants.hpp"
+#include "geometry/model_parser.hpp"
+
+namespace lobe {
+namespace {
+
+const std::string base = "wire w from (0, 0, -1) to (0, 0, 1) radius 1 mm\nport p on w at middle\nfrequency 100 MHz\n";
+
+std::string error_of(const std::string& text, const std::vector<Override>& overrides = {}) {
+  try {
+    parse_model(text, "m.lobe", overrides);
+  } catch (const InputError& e) {
+    return e.formatted();
+  }
+  return "";
+}
+
+TEST(ModelParser, ReadsTheIssueSketch) {
+  const std::string text =
+      "units mm\n"
+      "let f0  = 1575.42 MHz\n"
+      "let arm = 0.235 * c0 / f0\n"
+      "let r   = 1\n"
+      "wire east  from (-arm, 0, 0) to (arm, 0, 0)  radius r\n"
+      "wire north from (0, -arm, 0) to (0, arm, 0)  radius r  segments 21\n"
+      "port a on east  at middle  voltage 1 V\n"
+      "port b on north at middle  voltage 1 V  phase -90 deg\n"
+      "frequency 1.50 GHz to 1.65 GHz count 31\n"
+      "reference 50 ohm\n"
+      "band nav 1574.4 MHz to 1576.4 MHz\n"
+      "pattern theta 0 to 180 step 2 deg  phi 0 to 355 step 5 deg\n";
+  const Model m = parse_model(text, "sketch");
+  ASSERT_EQ(m.wires.size(), 2u);
+  EXPECT_NEAR(m.wires[0].shape.points[1].x(), 0.235 * speed_of_light / 1575.42e6, 1e-15);
+  EXPECT_DOUBLE_EQ(m.wires[0].radius, 1e-3);  // bare number read in mm
+  EXPECT_EQ(m.wires[1].segments, 21);
+  EXPECT_NEAR(std::arg(m.ports[1].voltage), -pi / 2, 1e-15);
+  ASSERT_EQ(m.frequencies_hz.size(), 31u);
+  EXPECT_DOUBLE_EQ(m.frequencies_hz.back(), 1.65e9);
+  EXPECT_EQ(m.pattern.thetas().size(), 91u);
+  EXPECT_EQ(m.pattern.phis().size(), 72u);
+  EXPECT_EQ(m.bands.at(0).name, "nav");
+}
+
+TEST(ModelParser, OverrideReplacesALet) {
+  const std::string text = "units mm\nlet h = 10\nwire w from (0, 0, 0) to (0, 0, h) radius 1\n"
+                           "port p on w at middle\nfrequency 1 GHz\n";
+  const Model m = parse_model(text, "m", {parse_override("h=20", 1)});
+  EXPECT_DOUBLE_EQ(m.wires[0].shape.points[1].z(), 0.020);
+  EXPECT_TRUE(m.values.at(0).overridden);
+  EXPECT_NE(error_of(text, {parse_override("nope=3", 1)}).find("--set:1:"), std::string::npos);
+}
+
+TEST(ModelParser, FrequencyStepRange) {
+  const Model m = parse_model("wire w from (0,0,0) to (0,0,1) radius 1 mm\nport p on w at middle\n"
+                              "frequency 100 MHz to 200 MHz step 25 MHz\n", "m");
+  ASSERT_EQ(m.frequencies_hz.size(), 5u);
+  EXPECT_DOUBLE_EQ(m.frequencies_hz[4], 200e6);
+}
+
+TEST(ModelParser, TransformsCompose) {
+  const Model m = parse_model(base + "copy w as v shift (1, 0, 0)\nturn v about z by 90\nmirror v across zx\n", "m");
+  const Vec3 p = m.wires[1].transform * Vec3(0, 0, 1);
+  EXPECT_NEAR(p.x(), 0.0, 1e-15);
+  EXPECT_NEAR(p.y(), -1.0, 1e-15);  // (1,0,1) turned to (0,1,1), mirrored to (0,−1,1)
+  EXPECT_NEAR(p.z(), 1.0, 1e-15);
+}
+
+TEST(ModelParser, ErrorsPointAtTheCause) {
+  EXPECT_EQ(error_of("blorp\n"), "m.lobe:1:1: unknown statement 'blorp'; statements are: units let wire arc helix "
+                                 "copy shift turn mirror port load conductor ground frequency reference band pattern");
+  EXPECT_EQ(error_of("wire w from (0,0,0) to (0,0,1)\n"), "m.lobe:1:31: wire 'w' needs 'radius R'");
+  EXPECT_EQ(error_of("let a = 1\nlet a = 2\n"), "m.lobe:2:5: 'a' is already defined");
+  EXPECT_EQ(error_of(base + "port q on nowhere at middle\n"), "m.lobe:4:11: there is no wire named 'nowhere'");
+  EXPECT_EQ(error_of(base + "port q on w at 1.5\n"), "m.lobe:4:16: the position fraction must be from 0 to 1, got 1.5");
+  EXPECT_NE(error_of("wire w from (0,0,0) to (0,0,1) radius 1 MHz\n").find("expected a wire radius, got a frequency"),
+            std::string::npos);
+  EXPECT_EQ(error_of(""), "m.lobe:1:1: the model is empty: it has no statements");
+  EXPECT_NE(error_of("wire w from (0,0,0) to (0,0,0) radius 1\n").find("zero length"), std::string::npos);
+}
+
+}  // namespace
+}  // namespace lobe
