@@ -13,10 +13,12 @@ namespace {
 /// The z = 0 mirror image of a point.
 inline Vec3 mirrored(const Vec3& p) { return {p.x(), p.y(), -p.z()}; }
 
-struct PairBlock {
-  int source = 0;
-  PairIntegrals direct{};
-  PairIntegrals image{};
+/// One term of Z: added at (row, column), and at (column, row) too when `mirror`.
+struct Contribution {
+  int row;
+  int column;
+  bool mirror;
+  Complex value;
 };
 
 /// d_i: the slope of N_i along the segment, N_0 = 1−ξ falls, N_1 = ξ rises.
@@ -37,36 +39,36 @@ void add_wire_impedance(const WireMesh& mesh, const WireBasis& basis, bool groun
     geometry[s] = {seg.start, seg.end, seg.radius};
     images[s] = {mirrored(seg.start), mirrored(seg.end), seg.radius};
   }
+  std::vector<Real> lengths(count);
+  std::vector<Vec3> directions(count);
+  for (int s = 0; s < count; ++s) {
+    lengths[s] = mesh.segments[s].length();
+    directions[s] = mesh.segments[s].direction();
+  }
   std::exception_ptr failure;
 
-  // Adds the contribution of pair (s, t) to Z_mn for pieces m on s and n on t, and its
-  // transpose when s ≠ t. The image contribution has the mirrored direction and sign −1.
-  auto scatter = [&](int s, const PairBlock& block) {
-    const int t = block.source;
-    const Segment &a = mesh.segments[s], &b = mesh.segments[t];
-    const Vec3 ua = a.direction(), ub = b.direction();
-    const Real la = a.length(), lb = b.length();
-    const Real direct_dot = ua.dot(ub);
-    const Real image_dot = ua.dot(mirrored(ub));
-    const Complex phi = block.direct[0] + block.direct[1] + block.direct[2] + block.direct[3];
-    const Complex phi_image = block.image[0] + block.image[1] + block.image[2] + block.image[3];
+  // Z_mn for pieces m on s and n on t from the pair integrals; the image has the mirrored
+  // direction and the opposite sign. Appends one contribution per piece pair.
+  auto contributions = [&](int s, int t, const PairIntegrals& direct, const PairIntegrals& image,
+                           std::vector<Contribution>& out) {
+    const Real direct_dot = directions[s].dot(directions[t]);
+    const Real image_dot = directions[s].dot(mirrored(directions[t]));
+    const Complex phi = direct[0] + direct[1] + direct[2] + direct[3];
+    const Complex phi_image = image[0] + image[1] + image[2] + image[3];
     for (const BasisPiece& pm : basis.pieces_on(s)) {
       for (const BasisPiece& pn : basis.pieces_on(t)) {
         const int ij = 2 * pm.peak_end + pn.peak_end;
-        const Real divergence = slope[pm.peak_end] * slope[pn.peak_end] / (la * lb);
-        Complex value = vector_factor * direct_dot * block.direct[ij] + scalar_factor * divergence * phi;
-        if (ground_perfect)
-          value -= vector_factor * image_dot * block.image[ij] + scalar_factor * divergence * phi_image;
-        value *= pm.sign * pn.sign;
-        z(pm.basis, pn.basis) += value;
-        if (s != t) z(pn.basis, pm.basis) += value;
+        const Real divergence = slope[pm.peak_end] * slope[pn.peak_end] / (lengths[s] * lengths[t]);
+        Complex value = vector_factor * direct_dot * direct[ij] + scalar_factor * divergence * phi;
+        if (ground_perfect) value -= vector_factor * image_dot * image[ij] + scalar_factor * divergence * phi_image;
+        out.push_back({pm.basis, pn.basis, s != t, value * (pm.sign * pn.sign)});
       }
     }
   };
 
 #pragma omp parallel
   {
-    std::vector<PairBlock> row;
+    std::vector<Contribution> row;
 #pragma omp for schedule(dynamic, 4)
     for (int s = 0; s < count; ++s) {
       try {
@@ -74,19 +76,21 @@ void add_wire_impedance(const WireMesh& mesh, const WireBasis& basis, bool groun
         if (basis.pieces_on(s).empty()) continue;
         for (int t = s; t < count; ++t) {
           if (basis.pieces_on(t).empty()) continue;
-          PairBlock block;
-          block.source = t;
-          block.direct = segment_pair_integrals(geometry[s], geometry[t], k);
-          if (ground_perfect) block.image = segment_pair_integrals(geometry[s], images[t], k);
+          PairIntegrals direct = segment_pair_integrals(geometry[s], geometry[t], k);
+          PairIntegrals image{};
+          if (ground_perfect) image = segment_pair_integrals(geometry[s], images[t], k);
           if (s == t) {
             // The self pair is symmetric in (i, j); average away the quadrature's asymmetry.
-            block.direct[1] = block.direct[2] = 0.5 * (block.direct[1] + block.direct[2]);
-            block.image[1] = block.image[2] = 0.5 * (block.image[1] + block.image[2]);
+            direct[1] = direct[2] = 0.5 * (direct[1] + direct[2]);
+            image[1] = image[2] = 0.5 * (image[1] + image[2]);
           }
-          row.push_back(block);
+          contributions(s, t, direct, image, row);
         }
 #pragma omp critical(lobe_wire_scatter)
-        for (const PairBlock& block : row) scatter(s, block);
+        for (const Contribution& c : row) {
+          z(c.row, c.column) += c.value;
+          if (c.mirror) z(c.column, c.row) += c.value;
+        }
       } catch (...) {
 #pragma omp critical(lobe_wire_failure)
         failure = std::current_exception();

@@ -61,6 +61,11 @@ TEST(SegmentIntegrals, DistantParallelMatchesSlowReference) {
   expect_agree(segment_pair_integrals(self, far, k), brute_force(self, far, k, 20));
 }
 
+TEST(SegmentIntegrals, FarPairMatchesSlowReference) {
+  const SegmentGeometry far{{0.6, 0.5, 0.1}, {0.64, 0.53, 0.1}, 5e-4};  // beyond six combined lengths
+  expect_agree(segment_pair_integrals(self, far, k), brute_force(self, far, k, 8));
+}
+
 // Reciprocity of the kernel: swapping observer and source transposes the 2×2 block. The
 // two orders use different rules (analytic inner integral on the other segment), so this
 // checks the near-term accuracy as well.

@@ -1,0 +1,87 @@
+/// Times one frequency of wire models of about 1,000 and 2,000 unknowns: matrix fill,
+/// factorisation, and the factorisation's rate against this machine's own zgemm rate
+/// measured in the same run. Prints medians of several repetitions (shared machines are
+/// noisy; medians and ratios travel better than single timings).
+#include <cblas.h>
+
+#include <algorithm>
+#include <chrono>
+#include <cstdio>
+#include <sstream>
+#include <vector>
+
+#include "geometry/model_parser.hpp"
+#include "solver/dense_symmetric_matrix.hpp"
+#include "solver/impedance_fill.hpp"
+#include "solver/threads.hpp"
+#include "solver/wire_problem.hpp"
+
+namespace {
+
+using Clock = std::chrono::steady_clock;
+constexpr int repetitions = 5;
+
+double seconds_since(Clock::time_point start) { return std::chrono::duration<double>(Clock::now() - start).count(); }
+
+double median(std::vector<double> v) {
+  std::sort(v.begin(), v.end());
+  return v[v.size() / 2];
+}
+
+/// A broadside curtain of `count` half-wave dipoles of 51 segments (50 unknowns each), λ = 1 m.
+std::string curtain(int count) {
+  std::ostringstream text;
+  text << "units m\n";
+  for (int i = 0; i < count; ++i)
+    text << "wire d" << i << " from (" << 0.6 * (i % 10) << ", " << 0.7 * (i / 10) << ", -0.24) to (" << 0.6 * (i % 10)
+         << ", " << 0.7 * (i / 10) << ", 0.24) radius 1e-3 segments 51\n";
+  text << "port feed on d0 at middle\nfrequency 299.792458 MHz\n";
+  return text.str();
+}
+
+/// Complex matrix multiply rate, GFLOP/s (8 n³ real flops): the machine's practical peak.
+double zgemm_rate(int n) {
+  lobe::ComplexMatrix a = lobe::ComplexMatrix::Random(n, n), b = lobe::ComplexMatrix::Random(n, n), c(n, n);
+  const lobe::Complex one(1.0), zero(0.0);
+  std::vector<double> times;
+  for (int r = 0; r < repetitions; ++r) {
+    const auto start = Clock::now();
+    cblas_zgemm(CblasColMajor, CblasNoTrans, CblasNoTrans, n, n, n, &one, a.data(), n, b.data(), n, &zero, c.data(), n);
+    times.push_back(seconds_since(start));
+  }
+  return 8.0 * n * n * static_cast<double>(n) / median(times) / 1e9;
+}
+
+}  // namespace
+
+int main() {
+  using namespace lobe;
+  const int threads = thread_count();
+  set_thread_count(threads);
+  const double peak = zgemm_rate(1500);
+  std::printf("lobe wire benchmark: %d threads; zgemm (n = 1500) runs at %.1f GFLOP/s (this machine's reference)\n",
+              threads, peak);
+  std::printf("%9s %10s %10s %12s %12s %14s\n", "unknowns", "fill (s)", "factor (s)", "factor GF/s", "of zgemm", "total (s)");
+  for (int dipoles : {20, 40}) {
+    const Model model = parse_model(curtain(dipoles), "benchmark");
+    const WireProblem problem(model);
+    const auto n = problem.basis.size();
+    std::vector<double> fill, factor;
+    for (int r = 0; r < repetitions; ++r) {
+      DenseSymmetricMatrix matrix(n);
+      auto start = Clock::now();
+      add_wire_impedance(problem.mesh, problem.basis, false, model.frequencies_hz[0], matrix.entries());
+      fill.push_back(seconds_since(start));
+      start = Clock::now();
+      matrix.factor();
+      factor.push_back(seconds_since(start));
+    }
+    // LDLᵀ of a complex symmetric matrix takes n³/6 complex multiply-adds of 8 real flops
+    // each: (4/3) n³ flops, half of LU's (8/3) n³.
+    const double flops = 4.0 / 3.0 * n * static_cast<double>(n) * n;
+    const double rate = flops / median(factor) / 1e9;
+    std::printf("%9d %10.3f %10.3f %12.1f %11.0f%% %14.3f\n", n, median(fill), median(factor), rate, 100 * rate / peak,
+                median(fill) + median(factor));
+  }
+  return 0;
+}
