@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "solver/phase_factor.hpp"
 
 namespace lobe {
 namespace {
@@ -42,21 +43,30 @@ inline Complex smooth_kernel(Real k, Real r) {
 }
 
 PairIntegrals product_rule(const SegmentGeometry& obs, const SegmentGeometry& src, Real k, Real a2, int n) {
+  constexpr int max_points = 8;
   const QuadratureRule& rule = gauss_legendre(n);
   const Vec3 da = obs.end - obs.start, db = src.end - src.start;
+  // All n² distances first, then their phase factors in one vectorised call.
+  Real distance[max_points * max_points], phase[max_points * max_points];
+  Real sine[max_points * max_points], cosine[max_points * max_points];
+  for (int p = 0; p < n; ++p) {
+    const Vec3 x = obs.start + rule.nodes[p] * da - src.start;
+    for (int q = 0; q < n; ++q) {
+      distance[p * n + q] = std::sqrt((x - rule.nodes[q] * db).squaredNorm() + a2);
+      phase[p * n + q] = k * distance[p * n + q];
+    }
+  }
+  sine_cosine(phase, sine, cosine, n * n);
   const Real scale = da.norm() * db.norm() / (4 * pi);
   PairIntegrals result{};
   for (int p = 0; p < n; ++p) {
     const Real xi = rule.nodes[p];
-    const Vec3 x = obs.start + xi * da;
     Complex s0 = 0.0, s1 = 0.0;
     for (int q = 0; q < n; ++q) {
+      const int i = p * n + q;
+      const Real w = rule.weights[q] / distance[i];
+      const Complex g(w * cosine[i], -w * sine[i]);
       const Real eta = rule.nodes[q];
-      const Real r = std::sqrt((x - src.start - eta * db).squaredNorm() + a2);
-      Real sine, cosine;
-      sincos(k * r, &sine, &cosine);
-      const Real w = rule.weights[q] / r;
-      const Complex g(w * cosine, -w * sine);
       s0 += (1.0 - eta) * g;
       s1 += eta * g;
     }
