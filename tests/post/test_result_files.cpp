@@ -1,0 +1,96 @@
+// The HDF5 and CSV writers: what is written reads back as the numbers computed.
+#include <gtest/gtest.h>
+#include <hdf5.h>
+#include <unistd.h>
+
+#include <filesystem>
+#include <fstream>
+
+#include "post/csv_writer.hpp"
+#include "post/hdf5_writer.hpp"
+#include "post/output_files.hpp"
+#include "support/solve_text.hpp"
+
+namespace lobe::testing {
+namespace {
+
+std::filesystem::path scratch(const std::string& name) {
+  const auto dir = std::filesystem::temp_directory_path() / ("lobe-files-" + std::to_string(::getpid())) / name;
+  std::filesystem::remove_all(dir);
+  std::filesystem::create_directories(dir);
+  return dir;
+}
+
+std::vector<double> read_doubles(hid_t file, const char* name) {
+  const hid_t set = H5Dopen2(file, name, H5P_DEFAULT);
+  EXPECT_GE(set, 0) << name;
+  const hid_t space = H5Dget_space(set);
+  std::vector<double> data(static_cast<std::size_t>(H5Sget_simple_extent_npoints(space)));
+  H5Dread(set, H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, data.data());
+  H5Sclose(space);
+  H5Dclose(set);
+  return data;
+}
+
+std::string unit_of(hid_t file, const char* name) {
+  const hid_t set = H5Dopen2(file, name, H5P_DEFAULT);
+  const hid_t attribute = H5Aopen(set, "unit", H5P_DEFAULT);
+  const hid_t type = H5Aget_type(attribute);
+  std::string value(H5Tget_size(type), '\0');
+  H5Aread(attribute, type, value.data());
+  H5Tclose(type);
+  H5Aclose(attribute);
+  H5Dclose(set);
+  return value;
+}
+
+TEST(ResultFiles, Hdf5HoldsTheComputedNumbersWithUnits) {
+  const Solved s = solve_text(dipole_text(0.5, 1e-4, 20));
+  RunRecord run{*s.problem, {s.result}, {"test", 1, "lobe run test"}};
+  const auto path = scratch("h5") / "run.h5";
+  write_hdf5(path, run);
+  const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
+  ASSERT_GE(file, 0);
+  EXPECT_DOUBLE_EQ(read_doubles(file, "/frequency_hz").at(0), one_metre_wavelength_hz);
+  EXPECT_DOUBLE_EQ(read_doubles(file, "/ports/resistance_ohm").at(0), s.port_impedance().real());
+  EXPECT_DOUBLE_EQ(read_doubles(file, "/ports/reactance_ohm").at(0), s.port_impedance().imag());
+  EXPECT_EQ(unit_of(file, "/ports/resistance_ohm"), "ohm");
+  EXPECT_EQ(unit_of(file, "/pattern/gain_dbi"), "dBi");
+  const auto gains = read_doubles(file, "/pattern/gain_dbi");
+  EXPECT_EQ(gains.size(), s.result.pattern.thetas.size() * s.result.pattern.phis.size());
+  EXPECT_DOUBLE_EQ(gains.at(1), s.result.pattern.gain_dbi(0, 1));  // [f, θ, φ] row-major
+  EXPECT_EQ(read_doubles(file, "/currents/radius_m").size(), s.problem->mesh.segments.size());
+  EXPECT_GT(H5Lexists(file, "/model/source", H5P_DEFAULT), 0);
+  H5Fclose(file);
+}
+
+TEST(ResultFiles, PortsCsvHasTheDocumentedHeader) {
+  const Solved s = solve_text(dipole_text(0.5, 1e-4, 20));
+  RunRecord run{*s.problem, {s.result}, {"test", 1, ""}};
+  const auto path = scratch("csv") / "ports.csv";
+  write_ports_csv(path, run);
+  std::ifstream in(path);
+  std::string header;
+  std::getline(in, header);
+  EXPECT_EQ(header.rfind("frequency_hz,port,resistance_ohm,reactance_ohm,vswr,return_loss_db", 0), 0u);
+}
+
+// All-or-nothing output: abandoned staging files vanish and earlier results stay.
+TEST(ResultFiles, UncommittedOutputLeavesEarlierFilesAlone) {
+  const auto dir = scratch("staging");
+  std::ofstream(dir / "run.h5") << "earlier";
+  {
+    OutputFiles files(dir);
+    std::ofstream(files.staging_path("run.h5")) << "half written";
+  }
+  std::size_t entries = 0;
+  for ([[maybe_unused]] const auto& e : std::filesystem::directory_iterator(dir)) ++entries;
+  EXPECT_EQ(entries, 1u);
+  std::ifstream in(dir / "run.h5");
+  std::string content;
+  in >> content;
+  EXPECT_EQ(content, "earlier");
+}
+
+}  // namespace
+}  // namespace lobe::testing
