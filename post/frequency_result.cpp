@@ -79,7 +79,17 @@ FrequencyResult evaluate_frequency(const WireProblem& problem, const FrequencySo
     result.peak_axial_ratio_db = pattern.axial_ratio_db(pi_index, pj_index);
     result.peak_hand = static_cast<Hand>(pattern.hand(pi_index, pj_index));
   }
+  require_finite(result);
   return result;
+}
+
+void require_finite(const FrequencyResult& result) {
+  bool finite = result.z_matrix.allFinite() && result.s_matrix.allFinite() && std::isfinite(result.power.accepted) &&
+                std::isfinite(result.power.radiated) && result.pattern.gain_dbi.allFinite() &&
+                result.pattern.axial_ratio_db.allFinite() && result.pattern.realized_gain_dbi.allFinite();
+  for (const auto& p : result.ports) finite = finite && std::isfinite(std::abs(p.impedance)) && std::isfinite(p.vswr);
+  if (!finite)
+    throw NumericalError("a non-finite value arose at " + std::to_string(result.frequency_hz) + " Hz");
 }
 
 }  // namespace lobe

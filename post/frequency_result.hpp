@@ -37,7 +37,12 @@ struct FrequencyResult {
 };
 
 /// Ports, powers and the pattern on the model's grid (OpenMP-parallel over directions).
+/// Throws NumericalError if any of it is not finite.
 FrequencyResult evaluate_frequency(const WireProblem& problem, const FrequencySolution& solution);
+
+/// Throws NumericalError when any reported figure is not finite, so that nothing
+/// non-finite is ever written.
+void require_finite(const FrequencyResult& result);
 
 /// 10 log10(x) with gain_floor_dbi for zero or tiny values.
 Real to_dbi(Real ratio);

@@ -35,6 +35,16 @@ WireProblem::WireProblem(const Model& m) : model(m), mesh(mesh_wires(m)), basis(
   require_memory(m, basis.size());
   port_vectors.resize(basis.size(), static_cast<Eigen::Index>(mesh.port_gaps.size()));
   for (std::size_t p = 0; p < mesh.port_gaps.size(); ++p) port_vectors.col(p) = basis.gap_vector(mesh.port_gaps[p]);
+  // Ports whose gap vectors are dependent (two at one place, or one on every wire of a
+  // junction) have no port impedance matrix: refuse them here rather than divide by zero.
+  const Eigen::FullPivLU<Eigen::MatrixXd> ports_lu(port_vectors);
+  if (ports_lu.rank() < port_vectors.cols()) {
+    for (Eigen::Index p = 1; p < port_vectors.cols(); ++p)
+      if (Eigen::FullPivLU<Eigen::MatrixXd>(port_vectors.leftCols(p + 1)).rank() < p + 1)
+        throw InputError(m.ports[p].where, "port '" + m.ports[p].name +
+                                               "' is not independent of the ports before it (two ports at one "
+                                               "place, or a port on every wire of one junction)");
+  }
   load_vectors.resize(basis.size(), static_cast<Eigen::Index>(mesh.load_gaps.size()));
   for (std::size_t l = 0; l < mesh.load_gaps.size(); ++l) load_vectors.col(l) = basis.gap_vector(mesh.load_gaps[l]);
 }
