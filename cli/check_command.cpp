@@ -2,6 +2,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/model_loading.hpp"
+#include "post/run_summary.hpp"
 #include "solver/wire_problem.hpp"
 
 namespace lobe::cli {
@@ -15,12 +16,15 @@ int check_command(const std::string& model_path, const std::vector<std::string>&
   const Model model = load_model(model_path, set_options);
   const WireProblem problem(model);
   print_warnings(problem.mesh);
-  std::printf("%s: %zu wires, %zu segments, %zu nodes, %d junctions, %d unknowns, %zu ports, %zu loads\n",
-              model_path.c_str(), model.wires.size(), problem.mesh.segments.size(), problem.mesh.nodes.size(),
-              problem.mesh.junction_count, problem.basis.size(), model.ports.size(), model.loads.size());
-  std::printf("frequencies: %zu from %.6g Hz to %.6g Hz; ground %s; %zu warnings\n", model.frequencies_hz.size(),
-              model.frequencies_hz.front(), model.highest_frequency(), model.ground_perfect ? "perfect" : "none",
-              problem.mesh.warnings.size());
+  std::printf("%s: %s, %s, %s, %s, %s, %s, %s\n", model_path.c_str(), count_text(model.wires.size(), "wire").c_str(),
+              count_text(problem.mesh.segments.size(), "segment").c_str(),
+              count_text(problem.mesh.nodes.size(), "node").c_str(),
+              count_text(problem.mesh.junction_count, "junction").c_str(),
+              count_text(problem.basis.size(), "unknown").c_str(), count_text(model.ports.size(), "port").c_str(),
+              count_text(model.loads.size(), "load").c_str());
+  std::printf("%s from %s to %s; ground %s; %s\n", count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
+              frequency_text(model.frequencies_hz.front()).c_str(), frequency_text(model.highest_frequency()).c_str(),
+              model.ground_perfect ? "perfect" : "none", count_text(problem.mesh.warnings.size(), "warning").c_str());
   return 0;
 }
 

@@ -25,10 +25,12 @@ int run_command(const RunOptions& options) {
       options.output_directory.empty() ? std::filesystem::path(stem + "-results") : std::filesystem::path(options.output_directory);
 
   std::printf("lobe %s: %s\n", LOBE_VERSION, options.model_path.c_str());
-  std::printf("configuration: %zu segments, %d unknowns, %zu ports, %zu loads, ground %s, reference %.6g ohm, "
-              "%zu frequencies, %d threads\n\n",
-              problem.mesh.segments.size(), problem.basis.size(), model.ports.size(), model.loads.size(),
-              model.ground_perfect ? "perfect" : "none", model.reference_ohm, model.frequencies_hz.size(), thread_count());
+  std::printf("configuration: %s, %s, %s, %s, ground %s, reference %.6g ohm, %s, %s\n\n",
+              count_text(problem.mesh.segments.size(), "segment").c_str(),
+              count_text(problem.basis.size(), "unknown").c_str(), count_text(model.ports.size(), "port").c_str(),
+              count_text(model.loads.size(), "load").c_str(), model.ground_perfect ? "perfect" : "none",
+              model.reference_ohm, count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
+              count_text(thread_count(), "thread").c_str());
   for (const auto& v : model.values)
     if (v.overridden) std::printf("set %s = %.10g %s\n", v.name.c_str(), v.value, v.unit.c_str());
 

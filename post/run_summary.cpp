@@ -15,13 +15,17 @@ std::string printf_string(const char* format, auto... args) {
   return buffer;
 }
 
+}  // namespace
+
 std::string frequency_text(Real hz) {
   if (hz >= 1e9) return printf_string("%.4f GHz", hz / 1e9);
   if (hz >= 1e6) return printf_string("%.3f MHz", hz / 1e6);
   return printf_string("%.3f kHz", hz / 1e3);
 }
 
-}  // namespace
+std::string count_text(std::size_t count, const std::string& noun, const std::string& plural) {
+  return std::to_string(count) + " " + (count == 1 ? noun : plural.empty() ? noun + "s" : plural);
+}
 
 std::string run_summary(const RunRecord& run) {
   const Model& model = run.problem.model;

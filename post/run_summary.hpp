@@ -10,6 +10,12 @@ namespace lobe {
 /// usual acceptance limit for a transmitter; common practice).
 constexpr Real vswr_caution_threshold = 2.0;
 
+/// "868.000 MHz", "1.5754 GHz": a frequency with a unit that suits it.
+std::string frequency_text(Real hz);
+
+/// "1 port", "3 ports"; `plural` when adding "s" is wrong.
+std::string count_text(std::size_t count, const std::string& noun, const std::string& plural = "");
+
 /// Per port and frequency: impedance, VSWR and return loss; per frequency: peak gain,
 /// its direction, the axial ratio and hand there, and the efficiency; per band: the
 /// lowest, mean and highest VSWR at the computed frequencies inside it; then cautions.
