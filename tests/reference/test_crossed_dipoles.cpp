@@ -20,7 +20,9 @@ Solved crossed_dipoles(const char* y_phase) {
                 "frequency %.17g Hz\n"
                 "pattern theta 0 to 180 step 180 phi 0 to 0 step 1\n",
                 y_phase, one_metre_wavelength_hz);
-  return solve_text(text);
+  Solved s = solve_text(text);
+  expect_power_balance(s);
+  return s;
 }
 
 // IEEE Std 145-2013 (definitions of terms for antennas): right-hand polarisation rotates

@@ -47,7 +47,7 @@ TEST_F(HelixReference, BeamwidthBetweenEndFireLimits) {
   EXPECT_LT(hpbw, ordinary);
 }
 
-TEST_F(HelixReference, PowerBalance) { EXPECT_LT(std::abs(solved->result.power.imbalance()), 1e-3); }
+TEST_F(HelixReference, PowerBalance) { expect_power_balance(*solved); }
 
 }  // namespace
 }  // namespace lobe::testing

@@ -20,6 +20,7 @@ Complex mutual_impedance(Real spacing) {
                 "frequency %.17g Hz\n",
                 spacing, spacing, one_metre_wavelength_hz);
   const Solved s = solve_text(text);
+  expect_power_balance(s);
   // Reciprocity: Z₁₂ = Z₂₁ to 1e-6 relative (the tolerance).
   EXPECT_LE(std::abs(s.result.z_matrix(0, 1) - s.result.z_matrix(1, 0)), 1e-6 * std::abs(s.result.z_matrix(0, 1)));
   return s.result.z_matrix(1, 0);

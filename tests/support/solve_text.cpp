@@ -1,5 +1,7 @@
 #include "support/solve_text.hpp"
 
+#include <gtest/gtest.h>
+
 #include <cstdio>
 
 #include "core/constants.hpp"
@@ -24,6 +26,11 @@ std::string dipole_text(Real length, Real radius, int segments) {
                 "frequency %.17g Hz\n",
                 -length / 2, length / 2, radius, segments, one_metre_wavelength_hz);
   return buffer;
+}
+
+void expect_power_balance(const Solved& solved) {
+  EXPECT_LT(std::abs(solved.result.power.imbalance()), power_balance_tolerance)
+      << "accepted " << solved.result.power.accepted << " W, radiated " << solved.result.power.radiated << " W";
 }
 
 Real peak_directivity(const Solved& solved) {

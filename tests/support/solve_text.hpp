@@ -26,6 +26,13 @@ Solved solve_text(const std::string& text);
 /// A straight z-directed dipole centred at the origin, fed at its middle, at λ = 1 m.
 std::string dipole_text(Real length, Real radius, int segments);
 
+/// Power balance ½Re(V I*) = radiated + dissipated, relative: the tolerance for
+/// every reference case (the far-field sphere integral is independent of the matrix).
+constexpr Real power_balance_tolerance = 1e-3;
+
+/// Checks the power balance of a solved case (a GoogleTest expectation).
+void expect_power_balance(const Solved& solved);
+
 /// Maximum directivity over a fine θ grid in the φ = 0 plane (a z dipole is symmetric in φ).
 Real peak_directivity(const Solved& solved);
 
