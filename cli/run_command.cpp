@@ -13,6 +13,21 @@
 #include "solver/threads.hpp"
 
 namespace lobe::cli {
+namespace {
+
+/// Refuses, before any solving, an output directory that could not be created or written.
+void check_output_directory(const std::filesystem::path& directory) {
+  const SourceLocation where{"--output", 1, 1};
+  std::error_code error;
+  if (std::filesystem::exists(directory, error) && !std::filesystem::is_directory(directory, error))
+    throw InputError(where, "'" + directory.string() + "' exists and is not a directory");
+  std::filesystem::path existing = std::filesystem::absolute(directory, error);
+  while (!existing.empty() && !std::filesystem::exists(existing, error)) existing = existing.parent_path();
+  if (!std::filesystem::is_directory(existing, error) || ::access(existing.c_str(), W_OK) != 0)
+    throw InputError(where, "cannot write results under '" + existing.string() + "'");
+}
+
+}  // namespace
 
 int run_command(const RunOptions& options) {
   if (options.threads > 0) set_thread_count(options.threads);
@@ -24,8 +39,10 @@ int run_command(const RunOptions& options) {
   const std::filesystem::path directory =
       options.output_directory.empty() ? std::filesystem::path(stem + "-results") : std::filesystem::path(options.output_directory);
 
+  check_output_directory(directory);
+
   std::printf("lobe %s: %s\n", LOBE_VERSION, options.model_path.c_str());
-  std::printf("configuration: %s, %s, %s, %s, ground %s, reference %.6g ohm, %s, %s\n\n",
+  std::printf("configuration: %s, %s, %s, %s, ground %s, reference %.6g ohm, %s, %s\n",
               count_text(problem.mesh.segments.size(), "segment").c_str(),
               count_text(problem.basis.size(), "unknown").c_str(), count_text(model.ports.size(), "port").c_str(),
               count_text(model.loads.size(), "load").c_str(), model.ground_perfect ? "perfect" : "none",
@@ -33,6 +50,7 @@ int run_command(const RunOptions& options) {
               count_text(thread_count(), "thread").c_str());
   for (const auto& v : model.values)
     if (v.overridden) std::printf("set %s = %.10g %s\n", v.name.c_str(), v.value, v.unit.c_str());
+  std::printf("\n");
 
   RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), options.command_line}};
   const bool terminal = isatty(fileno(stderr));

@@ -95,6 +95,17 @@ TEST(BadInput, BadSetOption) {
   EXPECT_NE(r.err.find("--set:1:"), std::string::npos) << r.err;
 }
 
+TEST(BadInput, OutputDirectoryThatIsAFile) {
+  const auto scratch = fresh_directory("bad-output");
+  const auto file = scratch / "not-a-directory";
+  std::ofstream(file) << "keep me";
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
+  const ProcessResult r = run_lobe("run '" + model + "' -o '" + file.string() + "'", scratch);
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_EQ(r.err.rfind("--output:1:1: ", 0), 0u) << r.err;
+  EXPECT_EQ(read_text(file), "keep me");
+}
+
 TEST(BadInput, UnknownCommandLineOptionExitsTwo) {
   const auto scratch = fresh_directory("bad-option");
   EXPECT_EQ(run_lobe("run --no-such-option x.lobe", scratch).exit_code, 2);

@@ -68,6 +68,24 @@ const Row& direction(const std::vector<Row>& rows, double frequency, double thet
   throw std::runtime_error("direction not in the pattern table");
 }
 
+TEST(DemoModels, CheckCountsWithoutSolving) {
+  const auto dir = fresh_directory("check");
+  const ProcessResult r = run_lobe("check '" + std::string(LOBE_SOURCE_DIR) + "/models/ground_plane_433.lobe'", dir);
+  EXPECT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_NE(r.out.find("5 wires"), std::string::npos) << r.out;
+  EXPECT_NE(r.out.find("1 junction"), std::string::npos) << r.out;  // whip and four radials meet at one node
+  EXPECT_NE(r.out.find("31 frequencies"), std::string::npos) << r.out;
+}
+
+TEST(DemoModels, OverridesAndThreadsAreHonouredAndReported) {
+  const auto dir = fresh_directory("set");
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
+  const ProcessResult r = run_lobe("run '" + model + "' -o '" + (dir / "out").string() + "' --set rod=0.5 --threads 1", dir);
+  EXPECT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_NE(r.out.find("set rod = 0.5"), std::string::npos) << r.out;  // a plain number, read in mm
+  EXPECT_NE(r.out.find("1 thread"), std::string::npos) << r.out;
+}
+
 TEST(DemoModels, HalfWaveDipoleIsMatchedInItsBand) {
   const DemoRun run = run_demo("half_wave_dipole_ism");
   const auto band = in_band(run.ports, 863e6, 870e6);
