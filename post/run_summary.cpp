@@ -70,6 +70,16 @@ std::string run_summary(const RunRecord& run) {
     }
   }
 
+  Real smallest_rcond = 1.0, largest_residual = 0.0;
+  for (const auto& r : run.results) {
+    smallest_rcond = std::min(smallest_rcond, r.report.reciprocal_condition);
+    largest_residual = std::max(largest_residual, r.report.relative_residual);
+  }
+  const std::string condition = smallest_rcond > 0 ? printf_string("%.2g", 1.0 / smallest_rcond) : "infinite";
+  out += printf_string("\nmatrix: condition number up to %s, relative residual up to %.1e%s\n", condition.c_str(),
+                       largest_residual,
+                       smallest_rcond < ill_conditioned_rcond ? " (ill-conditioned: check the geometry)" : "");
+
   Real worst = 1.0, worst_hz = 0.0;
   for (const auto& r : run.results)
     for (const auto& p : r.ports)

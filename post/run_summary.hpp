@@ -10,6 +10,10 @@ namespace lobe {
 /// usual acceptance limit for a transmitter; common practice).
 constexpr Real vswr_caution_threshold = 2.0;
 
+/// Below this reciprocal condition number the summary flags the matrix: about eight
+/// digits of a double's sixteen would be lost to it.
+constexpr Real ill_conditioned_rcond = 1e-8;
+
 /// "868.000 MHz", "1.5754 GHz": a frequency with a unit that suits it.
 std::string frequency_text(Real hz);
 
