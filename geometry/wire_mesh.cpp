@@ -282,14 +282,22 @@ class Mesher {
   void check_crossings() {
     const auto& segs = m_mesh.segments;
     std::vector<std::pair<int, int>> reported;
-    // Sweep along x: only segments whose extents in x come within reach are compared.
+    // Sweep along the axis on which the structure is longest: only segments whose extents
+    // on it come within reach are compared, so a long straight wire costs O(S log S).
+    Vec3 lowest = segs.front().start, highest = segs.front().start;
+    for (const auto& s : segs) {
+      lowest = lowest.cwiseMin(s.start).cwiseMin(s.end);
+      highest = highest.cwiseMax(s.start).cwiseMax(s.end);
+    }
+    Eigen::Index axis = 0;
+    (highest - lowest).maxCoeff(&axis);
     std::vector<int> order(segs.size());
     std::iota(order.begin(), order.end(), 0);
-    auto low_x = [&](int i) { return std::min(segs[i].start.x(), segs[i].end.x()) - segs[i].radius; };
-    auto high_x = [&](int i) { return std::max(segs[i].start.x(), segs[i].end.x()) + segs[i].radius; };
-    std::sort(order.begin(), order.end(), [&](int a, int b) { return low_x(a) < low_x(b); });
+    auto low = [&](int i) { return std::min(segs[i].start[axis], segs[i].end[axis]) - segs[i].radius; };
+    auto high = [&](int i) { return std::max(segs[i].start[axis], segs[i].end[axis]) + segs[i].radius; };
+    std::sort(order.begin(), order.end(), [&](int a, int b) { return low(a) < low(b); });
     for (std::size_t oi = 0; oi < order.size(); ++oi) {
-      for (std::size_t oj = oi + 1; oj < order.size() && low_x(order[oj]) <= high_x(order[oi]); ++oj) {
+      for (std::size_t oj = oi + 1; oj < order.size() && low(order[oj]) <= high(order[oi]); ++oj) {
         const int i = std::min(order[oi], order[oj]), j = std::max(order[oi], order[oj]);
         const Segment &a = segs[i], &b = segs[j];
         if (a.node[0] == b.node[0] || a.node[0] == b.node[1] || a.node[1] == b.node[0] || a.node[1] == b.node[1])
