@@ -25,7 +25,7 @@ int main(int argc, char** argv) {
   auto* run_app = app.add_subcommand("run", "Solve a model at its frequencies; print a summary and write HDF5 and CSV results");
   run_app->add_option("MODEL", run.model_path, "Model file (.lobe)")->required();
   run_app->add_option("-o,--output", run.output_directory, "Directory for result files (default: MODEL-STEM-results)");
-  run_app->add_option("--set", run.set_options, "Override a let value: NAME=VALUE (repeatable)");
+  run_app->add_option("--set", run.set_options, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
   run_app->add_option("--threads", run.threads, "Threads for matrix fill and factorisation (default: all cores)")
       ->check(CLI::Range(1, 1024));
 
@@ -33,7 +33,7 @@ int main(int argc, char** argv) {
   std::vector<std::string> check_sets;
   auto* check_app = app.add_subcommand("check", "Parse and mesh a model; print counts and warnings without solving");
   check_app->add_option("MODEL", check_path, "Model file (.lobe)")->required();
-  check_app->add_option("--set", check_sets, "Override a let value: NAME=VALUE (repeatable)");
+  check_app->add_option("--set", check_sets, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
 
   try {
     app.parse(argc, argv);

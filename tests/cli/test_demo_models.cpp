@@ -80,7 +80,8 @@ TEST(DemoModels, CheckCountsWithoutSolving) {
 TEST(DemoModels, OverridesAndThreadsAreHonouredAndReported) {
   const auto dir = fresh_directory("set");
   const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
-  const ProcessResult r = run_lobe("run '" + model + "' -o '" + (dir / "out").string() + "' --set rod=0.5 --threads 1", dir);
+  // --set before the model must take one value only, not swallow the model's path.
+  const ProcessResult r = run_lobe("run --set rod=0.5 '" + model + "' -o '" + (dir / "out").string() + "' --threads 1", dir);
   EXPECT_EQ(r.exit_code, 0) << r.err;
   EXPECT_NE(r.out.find("set rod = 0.5"), std::string::npos) << r.out;  // a plain number, read in mm
   EXPECT_NE(r.out.find("1 thread"), std::string::npos) << r.out;
