@@ -9,6 +9,10 @@
 
 namespace lobe {
 
+/// Most segments one wire may have, given or automatic: far beyond any antenna this tool
+/// can solve, and small enough that no model can make the mesher run out of memory.
+constexpr int max_segments_per_wire = 100000;
+
 enum class ShapeKind { line, polyline, arc, helix };
 
 /// The path a wire follows before any transform, in metres.

@@ -11,7 +11,6 @@
 namespace lobe {
 namespace {
 
-constexpr int max_segments_per_wire = 100000;
 constexpr int max_frequency_count = 10000;
 constexpr long max_pattern_points = 1000000;
 constexpr std::size_t max_model_bytes = 64u << 20;

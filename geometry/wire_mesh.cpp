@@ -56,11 +56,18 @@ std::vector<Real> node_fractions(const Wire& wire, const WirePath& path, std::ve
                  breaks.end());
     breaks.back() = 1.0;
     std::vector<int> counts;
+    Real total = 0.0;
     for (std::size_t i = 0; i + 1 < breaks.size(); ++i) {
       const Real share = breaks[i + 1] - breaks[i];
       const Real by_length = std::ceil(share * length / target_length - 1e-9);
       const Real by_turning = std::ceil(share * min_curve_segments - 1e-9);
-      counts.push_back(static_cast<int>(std::max({1.0, by_length, by_turning})));
+      const Real count = std::max({1.0, by_length, by_turning});
+      total += count;
+      if (total > max_segments_per_wire)
+        throw InputError(wire.where, "wire '" + wire.name + "' is " + format(length / (default_segments_per_wavelength * target_length)) +
+                                         " wavelengths long at the highest frequency; it would need more than " +
+                                         std::to_string(max_segments_per_wire) + " segments");
+      counts.push_back(static_cast<int>(count));
     }
     subdivide(breaks, counts);
     return nodes;
