@@ -178,6 +178,8 @@ class Mesher {
       s.radius = wire.radius;
       s.conductivity = wire.conductivity;
       s.wire = index;
+      if (!s.start.allFinite() || !s.end.allFinite() || !std::isfinite(s.length()))
+        throw InputError(wire.where, "wire '" + wire.name + "' is too large: its coordinates overflow");
       if (s.length() <= 1e-6 * wire.radius)
         throw InputError(wire.where, "wire '" + wire.name + "' has a segment of zero length");
       m_mesh.segments.push_back(s);
