@@ -33,15 +33,7 @@ std::string si_unit_text(const Dimension& d) {
   if (d == dimension::inductance) return "H";
   if (d == dimension::capacitance) return "F";
   if (d == dimension::conductivity) return "S/m";
-  static const char* symbols[] = {"m", "kg", "s", "A", "rad"};
-  std::string text;
-  for (std::size_t i = 0; i < d.exponent.size(); ++i) {
-    if (d.exponent[i] == 0) continue;
-    if (!text.empty()) text += " ";
-    text += symbols[i];
-    if (d.exponent[i] != 1) text += "^" + std::to_string(d.exponent[i]);
-  }
-  return text;
+  return unit_symbols(d);
 }
 
 class ModelParser {

@@ -40,15 +40,22 @@ std::string dimension_name(const Dimension& d) {
   };
   for (const auto& [dim, name] : named)
     if (dim == d) return name;
+  return "a quantity in " + unit_symbols(d);
+}
+
+std::string unit_symbols(const Dimension& d) {
   static const char* symbols[] = {"m", "kg", "s", "A", "rad"};
   std::string text;
   for (std::size_t i = 0; i < d.exponent.size(); ++i) {
     if (d.exponent[i] == 0) continue;
     if (!text.empty()) text += ' ';
     text += symbols[i];
-    if (d.exponent[i] != 1) text += "^" + std::to_string(d.exponent[i]);
+    if (d.exponent[i] != 1) {
+      text += '^';
+      text += std::to_string(d.exponent[i]);
+    }
   }
-  return "a quantity in " + text;
+  return text;
 }
 
 }  // namespace lobe

@@ -34,6 +34,9 @@ inline constexpr Dimension conductivity{{-3, -1, 3, 2, 0}};
 /// A readable name of a dimension ("length", "frequency", or "m^2 s^-1").
 std::string dimension_name(const Dimension& d);
 
+/// The dimension in SI base symbols, "m^2 kg s^-3 A^-1"; empty for a plain number.
+std::string unit_symbols(const Dimension& d);
+
 /// A number with a dimension, in SI units (angles in radians).
 struct Quantity {
   Real value = 0.0;

@@ -32,8 +32,10 @@ void expect_clean_rejection(const std::filesystem::path& model, const std::strin
     const ProcessResult r = run_lobe(args, scratch);
     SCOPED_TRACE(model.filename().string() + " with " + command);
     EXPECT_EQ(r.exit_code, 2) << r.err;
-    const std::regex one_line("^" + std::regex_replace(model.string(), std::regex(R"([.^$|()\[\]{}*+?\\])"), R"(\$&)") +
-                              R"(:\d+:\d+: [^\n]+\n$)");
+    std::string pattern(1, '^');
+    pattern += std::regex_replace(model.string(), std::regex(R"([.^$|()\[\]{}*+?\\])"), R"(\$&)");
+    pattern += R"(:\d+:\d+: [^\n]+\n$)";
+    const std::regex one_line(pattern);
     EXPECT_TRUE(std::regex_match(r.err, one_line)) << r.err;
     EXPECT_NE(r.err.find(expected), std::string::npos) << "expected '" << expected << "' in: " << r.err;
   }
