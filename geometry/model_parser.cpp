@@ -13,6 +13,8 @@ namespace {
 
 constexpr int max_frequency_count = 10000;
 constexpr long max_pattern_points = 1000000;
+/// Far-field rows over all frequencies: beyond this the CSV alone passes several GB.
+constexpr double max_pattern_rows = 5e7;
 constexpr std::size_t max_model_bytes = 64u << 20;
 
 const std::set<std::string, std::less<>> statement_words = {
@@ -467,6 +469,7 @@ class ModelParser {
   }
 
   void pattern(TokenCursor& c) {
+    m_pattern_where = c.peek().where;
     PatternGrid& g = m_model.pattern;
     c.expect_word("theta", "after 'pattern'");
     angle_range(c, g.theta_start, g.theta_stop, g.theta_step, 0.0, 180.0, "theta");
@@ -591,6 +594,12 @@ class ModelParser {
     if (m_model.wires.empty()) throw InputError(end_of_file, "the model has no wire, arc or helix");
     if (m_model.frequencies_hz.empty()) throw InputError(end_of_file, "the model has no 'frequency' statement");
     if (m_model.ports.empty()) throw InputError(end_of_file, "the model has no port; add one such as 'port feed on WIRE at middle'");
+    const double rows = static_cast<double>(m_model.frequencies_hz.size()) * m_model.pattern.thetas().size() *
+                        m_model.pattern.phis().size();
+    if (rows > max_pattern_rows)
+      throw InputError(m_pattern_where, "the pattern grid at every frequency makes " + number_text(rows) +
+                                            " far-field rows; at most " + number_text(max_pattern_rows) +
+                                            " are allowed: use a coarser grid or fewer frequencies");
     auto check_position = [&](const WirePosition& p) {
       if (!m_model.find_wire(p.wire)) throw InputError(p.wire_where, "there is no wire named '" + p.wire + "'");
     };
@@ -605,6 +614,7 @@ class ModelParser {
   std::set<std::string> m_used_overrides;
   Real m_conductivity_for_all = 0.0;
   int m_last_line = 1;
+  SourceLocation m_pattern_where{m_file, 1, 1};
 };
 
 }  // namespace
