@@ -57,7 +57,9 @@ std::string run_summary(const RunRecord& run) {
       out += " no computed frequency lies inside; add frequencies that cover it\n";
       continue;
     }
-    out += " " + count_text(inside.size(), "computed frequency", "computed frequencies") + "\n";
+    out += ' ';
+    out += count_text(inside.size(), "computed frequency", "computed frequencies");
+    out += '\n';
     for (std::size_t p = 0; p < model.ports.size(); ++p) {
       Real low = vswr_ceiling, high = 0.0, sum = 0.0;
       for (const auto* r : inside) {
