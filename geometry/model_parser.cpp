@@ -277,7 +277,7 @@ class ModelParser {
     w.name = new_name.text;
     w.where = source.where;
     while (!c.at_end()) {
-      if (c.accept_word("shift")) w.transform = Eigen::Translation3d(vector_length(c)) * w.transform;
+      if (c.accept_word("shift")) w.transform = Eigen::Translation3d(point(c)) * w.transform;
       else if (c.accept_word("turn")) w.transform = rotation(c) * w.transform;
       else throw InputError(c.peek().where, "unexpected " + quoted(c.peek()) + "; copy takes 'shift V' and 'turn about AXIS by A'");
     }
@@ -287,7 +287,7 @@ class ModelParser {
   void shift(TokenCursor& c) {
     Wire& w = existing_wire(c.expect_name("the name of the wire to shift"));
     c.expect_word("by", "after the wire name");
-    w.transform = Eigen::Translation3d(vector_length(c)) * w.transform;
+    w.transform = Eigen::Translation3d(point(c)) * w.transform;
   }
 
   void turn(TokenCursor& c) {
@@ -556,8 +556,6 @@ class ModelParser {
     c.expect_symbol(')', "to close the point");
     return p;
   }
-
-  Vec3 vector_length(TokenCursor& c) { return point(c); }
 
   /// A direction (x, y, z): plain numbers or lengths, normalised.
   Vec3 direction(TokenCursor& c) {

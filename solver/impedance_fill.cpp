@@ -4,6 +4,7 @@
 #include <exception>
 #include <vector>
 
+#include "core/check.hpp"
 #include "core/constants.hpp"
 #include "solver/segment_integrals.hpp"
 
@@ -28,6 +29,7 @@ constexpr Real slope[2] = {-1.0, 1.0};
 
 void add_wire_impedance(const WireMesh& mesh, const WireBasis& basis, bool ground_perfect, Real frequency_hz,
                         ComplexMatrix& z) {
+  LOBE_CHECK(z.rows() == basis.size() && z.cols() == basis.size(), "impedance matrix of the wrong size");
   const Real omega = 2 * pi * frequency_hz;
   const Real k = omega / speed_of_light;
   const Complex vector_factor = j_unit * omega * mu0;
@@ -88,6 +90,7 @@ void add_wire_impedance(const WireMesh& mesh, const WireBasis& basis, bool groun
         }
 #pragma omp critical(lobe_wire_scatter)
         for (const Contribution& c : row) {
+          LOBE_ASSERT(c.row < z.rows() && c.column < z.cols());
           z(c.row, c.column) += c.value;
           if (c.mirror) z(c.column, c.row) += c.value;
         }
