@@ -22,6 +22,8 @@ int check_command(const std::string& model_path, const std::vector<std::string>&
               count_text(problem.mesh.junction_count, "junction").c_str(),
               count_text(problem.basis.size(), "unknown").c_str(), count_text(model.ports.size(), "port").c_str(),
               count_text(model.loads.size(), "load").c_str());
+  std::printf("dense matrices: %.3g MiB per frequency\n",
+              static_cast<double>(dense_matrix_bytes(static_cast<std::uint64_t>(problem.basis.size()))) / (1 << 20));
   std::printf("%s from %s to %s; ground %s; %s\n", count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
               frequency_text(model.frequencies_hz.front()).c_str(), frequency_text(model.highest_frequency()).c_str(),
               model.ground_perfect ? "perfect" : "none", count_text(problem.mesh.warnings.size(), "warning").c_str());

@@ -105,6 +105,11 @@ void write_model(hid_t file, const RunRecord& run) {
     values.push_back(v.value);
     overridden.push_back(v.overridden ? 1 : 0);
   }
+  std::vector<std::string> warnings;
+  for (const auto& w : run.problem.mesh.warnings)
+    warnings.push_back(w.where.file + ":" + std::to_string(w.where.line) + ":" + std::to_string(w.where.column) +
+                       ": warning: " + w.message);
+  write_strings(g, "warnings", warnings);
   write_strings(g, "value_names", names);
   write_reals(g, "values", {values.size()}, values, "SI, per value_units");
   write_strings(g, "value_units", units);
