@@ -1,0 +1,182 @@
+#include "geometry/surface_mesher.hpp"
+
+#include <gmsh.h>
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+#include <string>
+
+#include "core/constants.hpp"
+
+namespace lobe {
+namespace {
+
+/// Gmsh keeps global state; this opens and always closes one session.
+class GmshSession {
+ public:
+  GmshSession() {
+    gmsh::initialize();
+    gmsh::option::setNumber("General.Terminal", 0);
+    gmsh::model::add("lobe");
+  }
+  ~GmshSession() { gmsh::finalize(); }
+  GmshSession(const GmshSession&) = delete;
+  GmshSession& operator=(const GmshSession&) = delete;
+};
+
+/// In-plane unit vector nearest +x (nearest +y when the normal is along x).
+Vec3 in_plane_direction(const Vec3& normal) {
+  Vec3 u = Vec3::UnitX() - Vec3::UnitX().dot(normal) * normal;
+  if (u.norm() < 1e-9) u = Vec3::UnitY() - Vec3::UnitY().dot(normal) * normal;
+  return u.normalized();
+}
+
+int plane_from_points(const SurfaceShape& shape, const std::vector<Vec3>& corners) {
+  if (corners.size() < 3) throw InputError(shape.where, "plate '" + shape.name + "' needs at least three corners");
+  const Vec3 normal = (corners[1] - corners[0]).cross(corners[2] - corners[0]);
+  Real extent = 0.0;
+  for (const Vec3& c : corners) extent = std::max(extent, (c - corners[0]).norm());
+  if (normal.norm() <= 1e-12 * extent * extent)
+    throw InputError(shape.where, "plate '" + shape.name + "' has its first three corners on one line");
+  for (const Vec3& c : corners)
+    if (std::abs(normal.normalized().dot(c - corners[0])) > 1e-9 * extent)
+      throw InputError(shape.where, "plate '" + shape.name + "' is not flat: its corners do not lie in one plane");
+  std::vector<int> points, lines;
+  for (const Vec3& c : corners) points.push_back(gmsh::model::occ::addPoint(c.x(), c.y(), c.z()));
+  for (std::size_t i = 0; i < points.size(); ++i)
+    lines.push_back(gmsh::model::occ::addLine(points[i], points[(i + 1) % points.size()]));
+  return gmsh::model::occ::addPlaneSurface({gmsh::model::occ::addCurveLoop(lines)});
+}
+
+/// Adds one shape to the OpenCASCADE model; returns its (dimension, tag) entities.
+gmsh::vectorpair add_shape(const SurfaceShape& s) {
+  switch (s.kind) {
+    case SurfaceKind::rectangle: {
+      if (!(s.width > 0.0 && s.length > 0.0))
+        throw InputError(s.where, "plate '" + s.name + "' needs a width and length above zero");
+      const Vec3 n = s.normal.normalized(), u = in_plane_direction(n), w = n.cross(u);
+      return {{2, plane_from_points(s, {s.corner, s.corner + s.width * u, s.corner + s.width * u + s.length * w,
+                                        s.corner + s.length * w})}};
+    }
+    case SurfaceKind::polygon:
+      return {{2, plane_from_points(s, s.polygon)}};
+    case SurfaceKind::disc: {
+      if (!(s.diameter > 0.0)) throw InputError(s.where, "disc '" + s.name + "' needs a diameter above zero");
+      const int disc = gmsh::model::occ::addDisk(0, 0, 0, s.diameter / 2, s.diameter / 2);
+      const Vec3 n = s.normal.normalized(), axis = Vec3::UnitZ().cross(n);
+      const Real angle = std::atan2(axis.norm(), Vec3::UnitZ().dot(n));
+      if (axis.norm() > 1e-12) gmsh::model::occ::rotate({{2, disc}}, 0, 0, 0, axis.x(), axis.y(), axis.z(), angle);
+      else if (angle > 0.5 * pi) gmsh::model::occ::rotate({{2, disc}}, 0, 0, 0, 1, 0, 0, pi);
+      gmsh::model::occ::translate({{2, disc}}, s.corner.x(), s.corner.y(), s.corner.z());
+      return {{2, disc}};
+    }
+    case SurfaceKind::sphere:
+      if (!(s.diameter > 0.0)) throw InputError(s.where, "sphere '" + s.name + "' needs a diameter above zero");
+      return {{3, gmsh::model::occ::addSphere(s.corner.x(), s.corner.y(), s.corner.z(), s.diameter / 2)}};
+    case SurfaceKind::box:
+      if (!(s.size.minCoeff() > 0.0)) throw InputError(s.where, "box '" + s.name + "' needs sizes above zero");
+      return {{3, gmsh::model::occ::addBox(s.corner.x(), s.corner.y(), s.corner.z(), s.size.x(), s.size.y(), s.size.z())}};
+  }
+  return {};
+}
+
+Real smallest_angle_of(const SurfaceMesh& mesh, int t) {
+  Real smallest = pi;
+  for (int k = 0; k < 3; ++k) {
+    const Vec3 a = mesh.corner(t, (k + 1) % 3) - mesh.corner(t, k), b = mesh.corner(t, (k + 2) % 3) - mesh.corner(t, k);
+    smallest = std::min(smallest, std::acos(std::clamp(a.normalized().dot(b.normalized()), -1.0, 1.0)));
+  }
+  return smallest;
+}
+
+SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes) {
+  SurfaceMeshReport report;
+  std::vector<gmsh::vectorpair> entities;
+  gmsh::vectorpair all;
+  for (const auto& s : shapes) {
+    entities.push_back(add_shape(s));
+    all.insert(all.end(), entities.back().begin(), entities.back().end());
+  }
+  // Fragment everything against everything so that touching shapes share mesh edges; the
+  // map tells which new entities came from which shape.
+  std::vector<gmsh::vectorpair> pieces_of = entities;
+  if (all.size() > 1) {
+    gmsh::vectorpair out;
+    std::vector<gmsh::vectorpair> map;
+    gmsh::model::occ::fragment(all, {}, out, map);
+    std::size_t index = 0;
+    for (std::size_t s = 0; s < entities.size(); ++s) {
+      pieces_of[s].clear();
+      for (std::size_t e = 0; e < entities[s].size(); ++e, ++index)
+        pieces_of[s].insert(pieces_of[s].end(), map[index].begin(), map[index].end());
+    }
+  }
+  gmsh::model::occ::synchronize();
+  // Mesh size per shape, set on every point of the shape's boundary.
+  Real largest = 0.0;
+  for (std::size_t s = 0; s < shapes.size(); ++s) {
+    gmsh::vectorpair points;
+    gmsh::model::getBoundary(pieces_of[s], points, false, false, true);
+    gmsh::model::mesh::setSize(points, shapes[s].mesh_size);
+    largest = std::max(largest, shapes[s].mesh_size);
+  }
+  gmsh::option::setNumber("Mesh.MeshSizeMax", largest);
+  gmsh::model::mesh::generate(2);
+
+  std::vector<std::size_t> node_tags;
+  std::vector<double> coordinates, parametric;
+  gmsh::model::mesh::getNodes(node_tags, coordinates, parametric);
+  std::map<std::size_t, int> index_of;
+  for (std::size_t i = 0; i < node_tags.size(); ++i) {
+    index_of[node_tags[i]] = static_cast<int>(i);
+    report.mesh.vertices.emplace_back(coordinates[3 * i], coordinates[3 * i + 1], coordinates[3 * i + 2]);
+  }
+  // Triangles of each shape's surfaces (a body's surfaces are its boundary).
+  std::map<int, int> shape_of_surface;
+  for (std::size_t s = 0; s < shapes.size(); ++s) {
+    gmsh::vectorpair surfaces;
+    for (const auto& [dim, tag] : pieces_of[s]) {
+      if (dim == 2) surfaces.emplace_back(dim, tag);
+      if (dim == 3) {
+        gmsh::vectorpair boundary;
+        gmsh::model::getBoundary({{dim, tag}}, boundary, false, false, false);
+        surfaces.insert(surfaces.end(), boundary.begin(), boundary.end());
+      }
+    }
+    for (const auto& [dim, tag] : surfaces) shape_of_surface.emplace(std::abs(tag), static_cast<int>(s));
+  }
+  constexpr int three_node_triangle = 2;
+  for (const auto& [surface, shape] : shape_of_surface) {
+    std::vector<std::size_t> element_tags, element_nodes;
+    gmsh::model::mesh::getElementsByType(three_node_triangle, element_tags, element_nodes, surface);
+    for (std::size_t e = 0; e < element_tags.size(); ++e) {
+      report.mesh.triangles.push_back(
+          {index_of.at(element_nodes[3 * e]), index_of.at(element_nodes[3 * e + 1]), index_of.at(element_nodes[3 * e + 2])});
+      report.region.push_back(shape);
+    }
+  }
+  report.smallest_angle = pi;
+  for (std::size_t t = 0; t < report.mesh.triangles.size(); ++t)
+    report.smallest_angle = std::min(report.smallest_angle, smallest_angle_of(report.mesh, static_cast<int>(t)));
+  return report;
+}
+
+}  // namespace
+
+SurfaceMeshReport mesh_surfaces(const std::vector<SurfaceShape>& shapes) {
+  if (shapes.empty()) return {};
+  GmshSession session;
+  // Gmsh reports its own failures with exceptions of its choosing; turn them into ours.
+  try {
+    return mesh_in_session(shapes);
+  } catch (const InputError&) {
+    throw;
+  } catch (const std::exception& e) {
+    throw std::runtime_error(std::string("surface meshing failed: ") + e.what());
+  } catch (...) {
+    throw std::runtime_error("surface meshing failed inside Gmsh");
+  }
+}
+
+}  // namespace lobe

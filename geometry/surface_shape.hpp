@@ -1,0 +1,29 @@
+#pragma once
+/// Plates and closed bodies, before meshing, in metres.
+#include <string>
+#include <vector>
+
+#include "core/input_error.hpp"
+#include "core/types.hpp"
+
+namespace lobe {
+
+enum class SurfaceKind { rectangle, polygon, disc, sphere, box };
+
+/// One surface object. A rectangle spans `width` along u and `length` along n × u from
+/// `corner`, with u the unit vector in its plane nearest +x (nearest +y when the normal is
+/// along x); a disc is centred on `corner`; a box spans `size` from `corner`.
+struct SurfaceShape {
+  std::string name;
+  SourceLocation where;
+  SurfaceKind kind = SurfaceKind::rectangle;
+  Vec3 corner = Vec3::Zero();   ///< rectangle and box corner; disc and sphere centre
+  Vec3 normal = Vec3::UnitZ();  ///< rectangle and disc
+  Real width = 0.0, length = 0.0;
+  Real diameter = 0.0;          ///< disc and sphere
+  Vec3 size = Vec3::Zero();     ///< box extents along x, y, z
+  std::vector<Vec3> polygon;    ///< polygon corners, in order
+  Real mesh_size = 0.0;         ///< target triangle edge, m (> 0)
+};
+
+}  // namespace lobe
