@@ -4,6 +4,7 @@
 
 #include "core/constants.hpp"
 #include "solver/gauss_legendre.hpp"
+#include "solver/phase_factor.hpp"
 
 namespace lobe {
 namespace {
@@ -30,26 +31,53 @@ FarField::FarField(const WireMesh& mesh, const FrequencySolution& solution, bool
       const Complex current = c[0] * (1.0 - xi) + c[1] * xi;
       const Vec3 x = seg.start + xi * (seg.end - seg.start) - m_centre;
       const Complex weight = current * (rule.weights[q] * seg.length());
-      m_points.push_back(x);
-      m_moments.push_back(weight * u.cast<Complex>());
+      add_point(x, weight * u.cast<Complex>());
       m_extent = std::max(m_extent, x.norm());
       if (m_ground) {
         // Image of a current element over a perfect conductor: mirrored position,
         // horizontal components reversed, vertical kept.
-        m_points.emplace_back(x.x(), x.y(), -x.z());
         const Vec3 image_direction(-u.x(), -u.y(), u.z());
-        m_moments.push_back(weight * image_direction.cast<Complex>());
+        add_point(Vec3(x.x(), x.y(), -x.z()), weight * image_direction.cast<Complex>());
       }
     }
+  }
+}
+
+void FarField::add_point(const Vec3& x, const Eigen::Vector3cd& moment) {
+  m_x.push_back(x.x());
+  m_y.push_back(x.y());
+  m_z.push_back(x.z());
+  for (int c = 0; c < 3; ++c) {
+    m_moment_re[c].push_back(moment[c].real());
+    m_moment_im[c].push_back(moment[c].imag());
   }
 }
 
 FarFieldSample FarField::at(Real theta, Real phi) const {
   if (m_ground && theta > 0.5 * pi + 1e-12) return {0.0, 0.0};
   const Real st = std::sin(theta), ct = std::cos(theta), sp = std::sin(phi), cp = std::cos(phi);
-  const Vec3 r_hat(st * cp, st * sp, ct);
-  Eigen::Vector3cd n = Eigen::Vector3cd::Zero();
-  for (std::size_t p = 0; p < m_points.size(); ++p) n += m_moments[p] * std::polar(1.0, m_k * r_hat.dot(m_points[p]));
+  const Real rx = m_k * st * cp, ry = m_k * st * sp, rz = m_k * ct;
+  // Phases of all points first, then their factors in one vectorised call; per-thread
+  // buffers because directions are evaluated in parallel.
+  thread_local std::vector<Real> phase, sine, cosine;
+  const int count = static_cast<int>(m_x.size());
+  phase.resize(count);
+  sine.resize(count);
+  cosine.resize(count);
+  for (int p = 0; p < count; ++p) phase[p] = rx * m_x[p] + ry * m_y[p] + rz * m_z[p];
+  sine_cosine(phase.data(), sine.data(), cosine.data(), count);
+  Eigen::Vector3cd n;
+  for (int c = 0; c < 3; ++c) {
+    const Real* re = m_moment_re[c].data();
+    const Real* im = m_moment_im[c].data();
+    Real sum_re = 0.0, sum_im = 0.0;
+#pragma omp simd reduction(+ : sum_re, sum_im)
+    for (int p = 0; p < count; ++p) {
+      sum_re += re[p] * cosine[p] - im[p] * sine[p];
+      sum_im += re[p] * sine[p] + im[p] * cosine[p];
+    }
+    n[c] = Complex(sum_re, sum_im);
+  }
   const Vec3 theta_hat(ct * cp, ct * sp, -st), phi_hat(-sp, cp, 0.0);
   const Complex factor = -j_unit * m_omega * mu0 / (4 * pi);
   return {factor * theta_hat.cast<Complex>().dot(n), factor * phi_hat.cast<Complex>().dot(n)};

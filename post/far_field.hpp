@@ -1,5 +1,6 @@
 #pragma once
 /// Far field radiated by the solved wire currents.
+#include <array>
 #include <vector>
 
 #include "geometry/wire_mesh.hpp"
@@ -34,8 +35,12 @@ class FarField {
   bool m_ground = false;
   Vec3 m_centre = Vec3::Zero();
   Real m_extent = 0.0;
-  std::vector<Vec3> m_points;     ///< quadrature points, relative to m_centre
-  std::vector<Eigen::Vector3cd> m_moments;  ///< current × direction × weight, A·m
+  /// Quadrature points relative to m_centre (m), and current × direction × weight (A·m),
+  /// as separate real arrays so that the sum over points vectorises.
+  std::vector<Real> m_x, m_y, m_z;
+  std::array<std::vector<Real>, 3> m_moment_re, m_moment_im;
+
+  void add_point(const Vec3& x, const Eigen::Vector3cd& moment);
 };
 
 }  // namespace lobe
