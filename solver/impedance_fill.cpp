@@ -1,11 +1,11 @@
 #include "solver/impedance_fill.hpp"
 
 #include <cmath>
-#include <exception>
 #include <vector>
 
 #include "core/check.hpp"
 #include "core/constants.hpp"
+#include "solver/pair_fill.hpp"
 #include "solver/segment_integrals.hpp"
 
 namespace lobe {
@@ -14,13 +14,6 @@ namespace {
 /// The z = 0 mirror image of a point.
 inline Vec3 mirrored(const Vec3& p) { return {p.x(), p.y(), -p.z()}; }
 
-/// One term of Z: added at (row, column), and at (column, row) too when `mirror`.
-struct Contribution {
-  int row;
-  int column;
-  bool mirror;
-  Complex value;
-};
 
 /// d_i: the slope of N_i along the segment, N_0 = 1−ξ falls, N_1 = ξ rises.
 constexpr Real slope[2] = {-1.0, 1.0};
@@ -36,23 +29,20 @@ void add_wire_impedance(const WireMesh& mesh, const WireBasis& basis, bool groun
   const Complex scalar_factor = -j_unit / (omega * eps0);
   const int count = static_cast<int>(mesh.segments.size());
   std::vector<SegmentGeometry> geometry(count), images(count);
+  std::vector<Real> lengths(count);
+  std::vector<Vec3> directions(count);
   for (int s = 0; s < count; ++s) {
     const Segment& seg = mesh.segments[s];
     geometry[s] = {seg.start, seg.end, seg.radius};
     images[s] = {mirrored(seg.start), mirrored(seg.end), seg.radius};
+    lengths[s] = seg.length();
+    directions[s] = seg.direction();
   }
-  std::vector<Real> lengths(count);
-  std::vector<Vec3> directions(count);
-  for (int s = 0; s < count; ++s) {
-    lengths[s] = mesh.segments[s].length();
-    directions[s] = mesh.segments[s].direction();
-  }
-  std::exception_ptr failure;
 
   // Z_mn for pieces m on s and n on t from the pair integrals; the image has the mirrored
   // direction and the opposite sign. Appends one contribution per piece pair.
   auto contributions = [&](int s, int t, const PairIntegrals& direct, const PairIntegrals& image,
-                           std::vector<Contribution>& out) {
+                           std::vector<MatrixContribution>& out) {
     const Real direct_dot = directions[s].dot(directions[t]);
     const Real image_dot = directions[s].dot(mirrored(directions[t]));
     const Complex phi = direct[0] + direct[1] + direct[2] + direct[3];
@@ -68,14 +58,10 @@ void add_wire_impedance(const WireMesh& mesh, const WireBasis& basis, bool groun
     }
   };
 
-#pragma omp parallel
-  {
-    std::vector<Contribution> row;
-#pragma omp for schedule(dynamic, 4)
-    for (int s = 0; s < count; ++s) {
-      try {
-        row.clear();
-        if (basis.pieces_on(s).empty()) continue;
+  fill_by_element_rows(
+      count,
+      [&](int s, std::vector<MatrixContribution>& row) {
+        if (basis.pieces_on(s).empty()) return;
         for (int t = s; t < count; ++t) {
           if (basis.pieces_on(t).empty()) continue;
           PairIntegrals direct = segment_pair_integrals(geometry[s], geometry[t], k);
@@ -88,19 +74,8 @@ void add_wire_impedance(const WireMesh& mesh, const WireBasis& basis, bool groun
           }
           contributions(s, t, direct, image, row);
         }
-#pragma omp critical(lobe_wire_scatter)
-        for (const Contribution& c : row) {
-          LOBE_ASSERT(c.row < z.rows() && c.column < z.cols());
-          z(c.row, c.column) += c.value;
-          if (c.mirror) z(c.column, c.row) += c.value;
-        }
-      } catch (...) {
-#pragma omp critical(lobe_wire_failure)
-        failure = std::current_exception();
-      }
-    }
-  }
-  if (failure) std::rethrow_exception(failure);
+      },
+      z);
 }
 
 Complex wire_internal_impedance(Real radius, Real conductivity, Real frequency_hz) {

@@ -1,26 +1,15 @@
 #include "solver/surface_fill.hpp"
 
 #include <cmath>
-#include <exception>
 #include <vector>
 
 #include "core/check.hpp"
 #include "core/constants.hpp"
+#include "solver/pair_fill.hpp"
 #include "solver/triangle_pair_integrals.hpp"
 #include "solver/triangle_rules.hpp"
 
 namespace lobe {
-namespace {
-
-struct Contribution {
-  int row;
-  int column;
-  bool mirror;
-  Complex value;
-};
-
-}  // namespace
-
 void add_surface_impedance(const SurfaceMesh& mesh, const RwgBasis& basis, Real frequency_hz, ComplexMatrix& z) {
   LOBE_CHECK(z.rows() == basis.size() && z.cols() == basis.size(), "impedance matrix of the wrong size");
   const Real omega = 2 * pi * frequency_hz;
@@ -28,15 +17,10 @@ void add_surface_impedance(const SurfaceMesh& mesh, const RwgBasis& basis, Real 
   const Complex vector_factor = j_unit * omega * mu0;
   const Complex scalar_factor = -j_unit / (omega * eps0);
   const int count = static_cast<int>(mesh.triangles.size());
-  std::exception_ptr failure;
-#pragma omp parallel
-  {
-    std::vector<Contribution> row;
-#pragma omp for schedule(dynamic, 4)
-    for (int p = 0; p < count; ++p) {
-      try {
-        row.clear();
-        if (basis.pieces_on(p).empty()) continue;
+  fill_by_element_rows(
+      count,
+      [&](int p, std::vector<MatrixContribution>& row) {
+        if (basis.pieces_on(p).empty()) return;
         for (int q = p; q < count; ++q) {
           if (basis.pieces_on(q).empty()) continue;
           TrianglePairIntegrals integrals = triangle_pair_integrals(mesh, p, q, k);
@@ -44,24 +28,14 @@ void add_surface_impedance(const SurfaceMesh& mesh, const RwgBasis& basis, Real 
           for (const RwgPiece& pm : basis.pieces_on(p))
             for (const RwgPiece& pn : basis.pieces_on(q)) {
               // f = c (r − v_free), ∇·f = 2c.
-              const Complex value =
-                  pm.coefficient * pn.coefficient *
-                  (vector_factor * integrals.vector(pm.free_corner, pn.free_corner) + scalar_factor * 4.0 * integrals.scalar);
+              const Complex value = pm.coefficient * pn.coefficient *
+                                    (vector_factor * integrals.vector(pm.free_corner, pn.free_corner) +
+                                     scalar_factor * 4.0 * integrals.scalar);
               row.push_back({pm.basis, pn.basis, p != q, value});
             }
         }
-#pragma omp critical(lobe_surface_scatter)
-        for (const Contribution& c : row) {
-          z(c.row, c.column) += c.value;
-          if (c.mirror) z(c.column, c.row) += c.value;
-        }
-      } catch (...) {
-#pragma omp critical(lobe_surface_failure)
-        failure = std::current_exception();
-      }
-    }
-  }
-  if (failure) std::rethrow_exception(failure);
+      },
+      z);
 }
 
 ComplexVector plane_wave_excitation(const SurfaceMesh& mesh, const RwgBasis& basis, Real frequency_hz, Real theta,

@@ -52,44 +52,31 @@ double PecSphereMie::backscatter_efficiency() const {
   return std::norm(sum) / (m_x * m_x);
 }
 
-std::complex<double> PecSphereMie::amplitude_s1(double theta) const {
+PecSphereMie::Amplitudes PecSphereMie::amplitudes(double theta) const {
   // Angular functions π_n, τ_n by their upward recurrences (Bohren & Huffman 4.47).
   const double mu = std::cos(theta);
   double pi_previous = 0.0, pi_n = 1.0;
-  std::complex<double> s1 = 0.0;
+  Amplitudes s;
   for (std::size_t i = 0; i < m_a.size(); ++i) {
     const int n = static_cast<int>(i) + 1;
     const double tau_n = n * mu * pi_n - (n + 1) * pi_previous;
-    s1 += (2.0 * n + 1) / (n * (n + 1.0)) * (m_a[i] * pi_n + m_b[i] * tau_n);
+    const double weight = (2.0 * n + 1) / (n * (n + 1.0));
+    s.s1 += weight * (m_a[i] * pi_n + m_b[i] * tau_n);
+    s.s2 += weight * (m_a[i] * tau_n + m_b[i] * pi_n);
     const double pi_next = ((2.0 * n + 1) * mu * pi_n - (n + 1.0) * pi_previous) / n;
     pi_previous = pi_n;
     pi_n = pi_next;
   }
-  return s1;
-}
-
-std::complex<double> PecSphereMie::amplitude_s2(double theta) const {
-  const double mu = std::cos(theta);
-  double pi_previous = 0.0, pi_n = 1.0;
-  std::complex<double> s2 = 0.0;
-  for (std::size_t i = 0; i < m_a.size(); ++i) {
-    const int n = static_cast<int>(i) + 1;
-    const double tau_n = n * mu * pi_n - (n + 1) * pi_previous;
-    s2 += (2.0 * n + 1) / (n * (n + 1.0)) * (m_a[i] * tau_n + m_b[i] * pi_n);
-    const double pi_next = ((2.0 * n + 1) * mu * pi_n - (n + 1.0) * pi_previous) / n;
-    pi_previous = pi_n;
-    pi_n = pi_next;
-  }
-  return s2;
+  return s;
 }
 
 // σ(θ) = (4π/k²) |S|² = 4 a² |S|² / x², so σ/(πa²) = 4 |S|² / x².
 double PecSphereMie::bistatic_efficiency_e_plane(double theta) const {
-  return 4.0 * std::norm(amplitude_s2(theta)) / (m_x * m_x);
+  return 4.0 * std::norm(amplitudes(theta).s2) / (m_x * m_x);
 }
 
 double PecSphereMie::bistatic_efficiency_h_plane(double theta) const {
-  return 4.0 * std::norm(amplitude_s1(theta)) / (m_x * m_x);
+  return 4.0 * std::norm(amplitudes(theta).s1) / (m_x * m_x);
 }
 
 double PecSphereMie::scattering_efficiency() const {

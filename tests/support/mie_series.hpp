@@ -26,8 +26,10 @@ class PecSphereMie {
 
  private:
   /// S1 (perpendicular) and S2 (parallel) amplitude functions at angle θ.
-  std::complex<double> amplitude_s1(double theta) const;
-  std::complex<double> amplitude_s2(double theta) const;
+  struct Amplitudes {
+    std::complex<double> s1 = 0.0, s2 = 0.0;
+  };
+  Amplitudes amplitudes(double theta) const;
   double m_x;
   std::vector<std::complex<double>> m_a, m_b;  ///< index n − 1
 };
