@@ -3,6 +3,8 @@
 #include "cli/commands.hpp"
 #include "cli/model_loading.hpp"
 #include "post/run_summary.hpp"
+#include "core/constants.hpp"
+#include "solver/scattering_problem.hpp"
 #include "solver/wire_problem.hpp"
 
 namespace lobe::cli {
@@ -14,6 +16,16 @@ void print_warnings(const WireMesh& mesh) {
 
 int check_command(const std::string& model_path, const std::vector<std::string>& set_options) {
   const Model model = load_model(model_path, set_options);
+  if (!model.surfaces.empty()) {
+    const ScatteringProblem problem(model);
+    std::printf("%s: %s, %s, %s (RWG edges), smallest triangle angle %.1f deg\n", model_path.c_str(),
+                count_text(model.surfaces.size(), "plate or body", "plates and bodies").c_str(),
+                count_text(problem.surfaces.mesh.triangles.size(), "triangle").c_str(),
+                count_text(problem.basis.size(), "unknown").c_str(), problem.surfaces.smallest_angle * 180 / pi);
+    std::printf("dense matrices: %.3g MiB per frequency\n",
+                static_cast<double>(dense_matrix_bytes(static_cast<std::uint64_t>(problem.basis.size()))) / (1 << 20));
+    return 0;
+  }
   const WireProblem problem(model);
   print_warnings(problem.mesh);
   std::printf("%s: %s, %s, %s, %s, %s, %s, %s\n", model_path.c_str(), count_text(model.wires.size(), "wire").c_str(),

@@ -1,8 +1,10 @@
 #pragma once
 /// The subcommands of the lobe program; each returns the process exit code.
+#include <filesystem>
 #include <string>
 #include <vector>
 
+#include "geometry/model.hpp"
 #include "geometry/wire_mesh.hpp"
 
 namespace lobe::cli {
@@ -15,8 +17,16 @@ struct RunOptions {
   std::string command_line;
 };
 
+/// Refuses, before any solving, an output directory that could not be created or written.
+void check_output_directory(const std::filesystem::path& directory);
+/// The directory results go to: -o, or MODEL-STEM-results.
+std::filesystem::path output_directory(const RunOptions& options);
+
 /// Solves every frequency, prints the summary and writes HDF5 and CSV files.
 int run_command(const RunOptions& options);
+
+/// Solves a model of plates and bodies lit by its plane wave; writes RCS files.
+int run_scattering(const RunOptions& options, const Model& model);
 
 /// Prints the mesher's warnings as FILE:LINE:COL: warning: ... on standard error.
 void print_warnings(const WireMesh& mesh);

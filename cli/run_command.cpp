@@ -13,9 +13,7 @@
 #include "solver/threads.hpp"
 
 namespace lobe::cli {
-namespace {
 
-/// Refuses, before any solving, an output directory that could not be created or written.
 void check_output_directory(const std::filesystem::path& directory) {
   const SourceLocation where{"--output", 1, 1};
   std::error_code error;
@@ -27,11 +25,16 @@ void check_output_directory(const std::filesystem::path& directory) {
     throw InputError(where, "cannot write results under '" + existing.string() + "'");
 }
 
-}  // namespace
+std::filesystem::path output_directory(const RunOptions& options) {
+  const std::string stem = std::filesystem::path(options.model_path).stem().string();
+  return options.output_directory.empty() ? std::filesystem::path(stem + "-results")
+                                          : std::filesystem::path(options.output_directory);
+}
 
 int run_command(const RunOptions& options) {
   if (options.threads > 0) set_thread_count(options.threads);
   const Model model = load_model(options.model_path, options.set_options);
+  if (!model.surfaces.empty()) return run_scattering(options, model);
   const WireProblem problem(model);
   print_warnings(problem.mesh);
   const std::filesystem::path model_path(options.model_path);

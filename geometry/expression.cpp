@@ -146,10 +146,11 @@ class Evaluator {
     if (!unit) return q;
     m_cursor.next();
     Quantity result{q.value * unit->scale, q.dim * unit->dim};
-    if (token.text == "S") {
-      // Conductance alone is never needed; "S" must be the start of "S/m".
-      if (!(m_cursor.peek_symbol('/') && m_cursor.peek(1).text == "m"))
-        throw InputError(token.where, "the unit S is only accepted as S/m (conductivity)");
+    // A compound unit per metre: S/m (conductivity), V/m (field strength).
+    const bool per_metre = m_cursor.peek_symbol('/') && m_cursor.peek(1).text == "m";
+    if (token.text == "S" && !per_metre)
+      throw InputError(token.where, "the unit S is only accepted as S/m (conductivity)");
+    if (per_metre && (token.text == "S" || token.text == "V")) {
       m_cursor.next();
       m_cursor.next();
       result.dim = result.dim / dimension::length;

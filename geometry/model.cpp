@@ -25,6 +25,13 @@ const Wire* Model::find_wire(const std::string& name) const {
   return nullptr;
 }
 
+bool Model::has_object(const std::string& name) const {
+  if (find_wire(name)) return true;
+  for (const auto& s : surfaces)
+    if (s.name == name) return true;
+  return false;
+}
+
 Real Model::highest_frequency() const {
   return frequencies_hz.empty() ? 0.0 : *std::max_element(frequencies_hz.begin(), frequencies_hz.end());
 }

@@ -6,6 +6,7 @@
 
 #include "core/input_error.hpp"
 #include "core/types.hpp"
+#include "geometry/surface_shape.hpp"
 
 namespace lobe {
 
@@ -63,6 +64,15 @@ struct Load {
   bool parallel = false;                 ///< parallel RLC instead of series
 };
 
+/// An incident plane wave, arriving from direction (θ, φ), its electric field along θ̂ or
+/// φ̂ there, `amplitude` V/m at the origin.
+struct PlaneWave {
+  SourceLocation where;
+  Real theta = 0.0, phi = 0.0;  ///< rad
+  bool theta_polarized = true;
+  Real amplitude = 1.0;
+};
+
 struct Band {
   std::string name;
   Real low_hz = 0.0;
@@ -90,6 +100,8 @@ struct Model {
   std::string text;
   Real length_unit = 1.0;  ///< metres per bare length number
   std::vector<Wire> wires;
+  std::vector<SurfaceShape> surfaces;
+  std::optional<PlaneWave> wave;
   std::vector<Port> ports;
   std::vector<Load> loads;
   bool ground_perfect = false;
@@ -101,6 +113,8 @@ struct Model {
   std::vector<ResolvedValue> values;
 
   const Wire* find_wire(const std::string& name) const;
+  /// True when a wire or surface already has this name.
+  bool has_object(const std::string& name) const;
   Real highest_frequency() const;
 };
 

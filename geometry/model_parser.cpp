@@ -19,7 +19,7 @@ constexpr std::size_t max_model_bytes = 64u << 20;
 
 const std::set<std::string, std::less<>> statement_words = {
     "units", "let", "wire", "arc", "helix", "copy", "shift", "turn", "mirror", "port",
-    "load", "conductor", "ground", "frequency", "reference", "band", "pattern"};
+    "load", "conductor", "ground", "frequency", "reference", "band", "pattern", "plate", "sphere", "box", "mesh", "wave"};
 
 std::string quoted(const Token& t) {
   return t.kind == TokenKind::end ? std::string("the end of the line") : "'" + t.text + "'";
@@ -96,9 +96,15 @@ class ModelParser {
     else if (k == "reference") reference(c);
     else if (k == "band") band(c);
     else if (k == "pattern") pattern(c);
+    else if (k == "plate") plate(c, keyword);
+    else if (k == "sphere") sphere(c, keyword);
+    else if (k == "box") box(c, keyword);
+    else if (k == "mesh") mesh(c);
+    else if (k == "wave") wave(c, keyword);
     else
-      throw InputError(keyword.where, "unknown statement '" + k + "'; statements are: units let wire arc helix "
-                                      "copy shift turn mirror port load conductor ground frequency reference band pattern");
+      throw InputError(keyword.where, "unknown statement '" + k + "'; statements are: units let wire arc helix plate "
+                                      "sphere box copy shift turn mirror mesh port load conductor ground wave frequency "
+                                      "reference band pattern");
     end_of_statement(c);
   }
 
@@ -227,7 +233,7 @@ class ModelParser {
 
   Wire new_wire(TokenCursor& c, const Token& keyword) {
     const Token& name = c.expect_name("a name for the " + keyword.text);
-    if (m_model.find_wire(name.text)) throw InputError(name.where, "a wire named '" + name.text + "' already exists");
+    if (m_model.has_object(name.text)) throw InputError(name.where, "'" + name.text + "' is already the name of an object");
     Wire w;
     w.name = name.text;
     w.where = keyword.where;
@@ -268,31 +274,56 @@ class ModelParser {
     throw InputError(name.where, "there is no wire named '" + name.text + "'");
   }
 
+  /// The transform of a named wire or surface.
+  Affine& object_transform(const Token& name) {
+    for (auto& w : m_model.wires)
+      if (w.name == name.text) return w.transform;
+    for (auto& s : m_model.surfaces)
+      if (s.name == name.text) return s.transform;
+    throw InputError(name.where, "there is no wire, plate or body named '" + name.text + "'");
+  }
+
   void copy(TokenCursor& c) {
-    const Token& source = c.expect_name("the name of the wire to copy");
-    Wire w = existing_wire(source);
+    const Token& source = c.expect_name("the name of the object to copy");
+    object_transform(source);  // it must exist
     c.expect_word("as", "after the copied name");
     const Token& new_name = c.expect_name("the name of the copy");
-    if (m_model.find_wire(new_name.text)) throw InputError(new_name.where, "a wire named '" + new_name.text + "' already exists");
-    w.name = new_name.text;
-    w.where = source.where;
+    if (m_model.has_object(new_name.text))
+      throw InputError(new_name.where, "'" + new_name.text + "' is already the name of an object");
+    Affine transform = object_transform(source);
     while (!c.at_end()) {
-      if (c.accept_word("shift")) w.transform = Eigen::Translation3d(point(c)) * w.transform;
-      else if (c.accept_word("turn")) w.transform = rotation(c) * w.transform;
+      if (c.accept_word("shift")) transform = Eigen::Translation3d(point(c)) * transform;
+      else if (c.accept_word("turn")) transform = rotation(c) * transform;
       else throw InputError(c.peek().where, "unexpected " + quoted(c.peek()) + "; copy takes 'shift V' and 'turn about AXIS by A'");
     }
-    add_wire(std::move(w));
+    if (const Wire* wire = m_model.find_wire(source.text)) {
+      Wire w = *wire;
+      w.name = new_name.text;
+      w.where = source.where;
+      w.transform = transform;
+      add_wire(std::move(w));
+      return;
+    }
+    for (const auto& shape : m_model.surfaces)
+      if (shape.name == source.text) {
+        SurfaceShape s = shape;
+        s.name = new_name.text;
+        s.where = source.where;
+        s.transform = transform;
+        m_model.surfaces.push_back(std::move(s));
+        return;
+      }
   }
 
   void shift(TokenCursor& c) {
-    Wire& w = existing_wire(c.expect_name("the name of the wire to shift"));
-    c.expect_word("by", "after the wire name");
-    w.transform = Eigen::Translation3d(point(c)) * w.transform;
+    Affine& transform = object_transform(c.expect_name("the name of the object to shift"));
+    c.expect_word("by", "after the name");
+    transform = Eigen::Translation3d(point(c)) * transform;
   }
 
   void turn(TokenCursor& c) {
-    Wire& w = existing_wire(c.expect_name("the name of the wire to turn"));
-    w.transform = rotation(c) * w.transform;
+    Affine& transform = object_transform(c.expect_name("the name of the object to turn"));
+    transform = rotation(c) * transform;
   }
 
   /// `about x|y|z|V by A`: a rotation about an axis through the origin.
@@ -309,8 +340,8 @@ class ModelParser {
   }
 
   void mirror(TokenCursor& c) {
-    Wire& w = existing_wire(c.expect_name("the name of the wire to mirror"));
-    c.expect_word("across", "after the wire name");
+    Affine& transform = object_transform(c.expect_name("the name of the object to mirror"));
+    c.expect_word("across", "after the name");
     const Token& plane = c.expect_name("a plane: xy, yz or zx");
     Eigen::Matrix3d m = Eigen::Matrix3d::Identity();
     if (plane.text == "xy" || plane.text == "yx") m(2, 2) = -1;
@@ -319,7 +350,105 @@ class ModelParser {
     else throw InputError(plane.where, "mirror plane is xy, yz or zx, not '" + plane.text + "'");
     Affine reflection = Affine::Identity();
     reflection.linear() = m;
-    w.transform = reflection * w.transform;
+    transform = reflection * transform;
+  }
+
+  SurfaceShape new_surface(TokenCursor& c, const Token& keyword) {
+    const Token& name = c.expect_name("a name for the " + keyword.text);
+    if (m_model.has_object(name.text)) throw InputError(name.where, "'" + name.text + "' is already the name of an object");
+    SurfaceShape s;
+    s.name = name.text;
+    s.where = keyword.where;
+    return s;
+  }
+
+  void plate(TokenCursor& c, const Token& keyword) {
+    SurfaceShape s = new_surface(c, keyword);
+    const Token& kind = c.expect_name("'rectangle', 'polygon' or 'disc'");
+    if (kind.text == "rectangle") {
+      s.kind = SurfaceKind::rectangle;
+      c.expect_word("corner", "after 'rectangle'");
+      s.corner = point(c);
+      c.expect_word("size", "after the corner");
+      c.expect_symbol('(', "to start the size (width, length)");
+      s.width = positive_length(c, "a plate width");
+      c.expect_symbol(',', "between width and length");
+      s.length = positive_length(c, "a plate length");
+      c.expect_symbol(')', "to close the size");
+      if (c.accept_word("normal")) s.normal = direction(c);
+    } else if (kind.text == "polygon") {
+      s.kind = SurfaceKind::polygon;
+      while (c.peek_symbol('(')) s.polygon.push_back(point(c));
+      if (s.polygon.size() < 3) throw InputError(c.peek().where, "a polygon needs at least three corners");
+    } else if (kind.text == "disc") {
+      s.kind = SurfaceKind::disc;
+      c.expect_word("center", "after 'disc'");
+      s.corner = point(c);
+      c.expect_word("normal", "after the centre");
+      s.normal = direction(c);
+      c.expect_word("diameter", "after the normal");
+      s.diameter = positive_length(c, "a disc diameter");
+    } else {
+      throw InputError(kind.where, "a plate is a 'rectangle', 'polygon' or 'disc', not '" + kind.text + "'");
+    }
+    m_model.surfaces.push_back(std::move(s));
+  }
+
+  void sphere(TokenCursor& c, const Token& keyword) {
+    SurfaceShape s = new_surface(c, keyword);
+    s.kind = SurfaceKind::sphere;
+    c.expect_word("center", "after the sphere's name");
+    s.corner = point(c);
+    c.expect_word("diameter", "after the centre");
+    s.diameter = positive_length(c, "a sphere diameter");
+    m_model.surfaces.push_back(std::move(s));
+  }
+
+  void box(TokenCursor& c, const Token& keyword) {
+    SurfaceShape s = new_surface(c, keyword);
+    s.kind = SurfaceKind::box;
+    c.expect_word("corner", "after the box's name");
+    s.corner = point(c);
+    c.expect_word("size", "after the corner");
+    const Token& at = c.peek();
+    s.size = point(c);
+    if (!(s.size.minCoeff() > 0.0)) throw InputError(at.where, "a box's sizes must all be above zero");
+    m_model.surfaces.push_back(std::move(s));
+  }
+
+  void mesh(TokenCursor& c) {
+    const Token& name = c.expect_name("the name of a plate or body");
+    c.expect_word("size", "after the name");
+    const Real size = positive_length(c, "a mesh size");
+    for (auto& s : m_model.surfaces)
+      if (s.name == name.text) {
+        s.mesh_size = size;
+        return;
+      }
+    throw InputError(name.where, "there is no plate or body named '" + name.text + "'");
+  }
+
+  void wave(TokenCursor& c, const Token& keyword) {
+    if (m_model.wave) throw InputError(keyword.where, "the model already has a wave");
+    PlaneWave w;
+    w.where = keyword.where;
+    c.expect_word("theta", "after 'wave'");
+    const Token& theta_at = c.peek();
+    w.theta = angle(c);
+    if (w.theta < -1e-12 || w.theta > pi + 1e-12) throw InputError(theta_at.where, "theta must lie from 0 to 180 deg");
+    c.expect_word("phi", "after theta");
+    w.phi = angle(c);
+    c.expect_word("polarization", "after phi");
+    const Token& pol = c.expect_name("'theta' or 'phi'");
+    if (pol.text == "theta") w.theta_polarized = true;
+    else if (pol.text == "phi") w.theta_polarized = false;
+    else throw InputError(pol.where, "polarization is 'theta' or 'phi', not '" + pol.text + "'");
+    if (c.accept_word("amplitude")) {
+      const Token& at = c.peek();
+      w.amplitude = quantity_in(c, dimension::voltage / dimension::length, 1.0, "a field strength (V/m)").value;
+      if (!(w.amplitude > 0.0)) throw InputError(at.where, "the wave's amplitude must be above zero");
+    }
+    m_model.wave = w;
   }
 
   WirePosition position(TokenCursor& c) {
@@ -589,9 +718,19 @@ class ModelParser {
     for (const auto& [name, o] : m_overrides)
       if (!m_used_overrides.count(name))
         throw InputError(o.where, "--set " + name + ": the model has no 'let " + name + "'");
-    if (m_model.wires.empty()) throw InputError(end_of_file, "the model has no wire, arc or helix");
+    if (m_model.wires.empty() && m_model.surfaces.empty())
+      throw InputError(end_of_file, "the model has no wire, arc, helix, plate or body");
     if (m_model.frequencies_hz.empty()) throw InputError(end_of_file, "the model has no 'frequency' statement");
-    if (m_model.ports.empty()) throw InputError(end_of_file, "the model has no port; add one such as 'port feed on WIRE at middle'");
+    if (!m_model.surfaces.empty() && !m_model.wires.empty())
+      throw InputError(m_model.surfaces.front().where,
+                       "models that combine wires with plates or bodies cannot be solved yet; solve them apart");
+    if (!m_model.surfaces.empty() && !m_model.wave)
+      throw InputError(end_of_file, "plates and bodies are lit by a plane wave (ports on them are not supported yet); "
+                                    "add one such as 'wave theta 0 phi 0 polarization theta'");
+    if (m_model.wave && !m_model.wires.empty())
+      throw InputError(m_model.wave->where, "a plane wave lights plates and bodies only; drive wires with ports");
+    if (!m_model.wires.empty() && m_model.ports.empty())
+      throw InputError(end_of_file, "the model has no port; add one such as 'port feed on WIRE at middle'");
     const double rows = static_cast<double>(m_model.frequencies_hz.size()) * m_model.pattern.thetas().size() *
                         m_model.pattern.phis().size();
     if (rows > max_pattern_rows)

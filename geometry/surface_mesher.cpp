@@ -1,6 +1,9 @@
 #include "geometry/surface_mesher.hpp"
 
 #include <gmsh.h>
+#ifdef _OPENMP
+#include <omp.h>
+#endif
 
 #include <algorithm>
 #include <cmath>
@@ -12,17 +15,29 @@
 namespace lobe {
 namespace {
 
-/// Gmsh keeps global state; this opens and always closes one session.
+/// Gmsh keeps global state; this opens and always closes one session. Gmsh also sets the
+/// OpenMP thread count for its own use, so the caller's count is restored afterwards.
 class GmshSession {
  public:
   GmshSession() {
+#ifdef _OPENMP
+    m_threads = omp_get_max_threads();
+#endif
     gmsh::initialize();
     gmsh::option::setNumber("General.Terminal", 0);
     gmsh::model::add("lobe");
   }
-  ~GmshSession() { gmsh::finalize(); }
+  ~GmshSession() {
+    gmsh::finalize();
+#ifdef _OPENMP
+    omp_set_num_threads(m_threads);
+#endif
+  }
   GmshSession(const GmshSession&) = delete;
   GmshSession& operator=(const GmshSession&) = delete;
+
+ private:
+  int m_threads = 1;
 };
 
 /// In-plane unit vector nearest +x (nearest +y when the normal is along x).
@@ -95,7 +110,15 @@ SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes) {
   std::vector<gmsh::vectorpair> entities;
   gmsh::vectorpair all;
   for (const auto& s : shapes) {
+    if (!(s.mesh_size > 0.0)) throw InputError(s.where, "'" + s.name + "' needs a mesh size above zero");
     entities.push_back(add_shape(s));
+    if (!s.transform.matrix().isIdentity()) {
+      // Copies, shifts, turns and mirrors, as a 3×4 matrix by rows.
+      std::vector<double> rows;
+      for (int r = 0; r < 3; ++r)
+        for (int c = 0; c < 4; ++c) rows.push_back(s.transform.matrix()(r, c));
+      gmsh::model::occ::affineTransform(entities.back(), rows);
+    }
     all.insert(all.end(), entities.back().begin(), entities.back().end());
   }
   // Fragment everything against everything so that touching shapes share mesh edges; the

@@ -23,7 +23,8 @@ struct SurfaceShape {
   Real diameter = 0.0;          ///< disc and sphere
   Vec3 size = Vec3::Zero();     ///< box extents along x, y, z
   std::vector<Vec3> polygon;    ///< polygon corners, in order
-  Real mesh_size = 0.0;         ///< target triangle edge, m (> 0)
+  Real mesh_size = 0.0;         ///< target triangle edge, m; 0: a tenth of the shortest wavelength
+  Affine transform = Affine::Identity();  ///< copy/shift/turn/mirror, applied after building
 };
 
 }  // namespace lobe

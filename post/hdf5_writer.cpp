@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "core/constants.hpp"
+#include "post/scattering_result.hpp"
 
 namespace lobe {
 namespace {
@@ -242,6 +243,63 @@ void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
   write_reals(solver, "relative_residual", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.report.relative_residual; }), "1");
   int_attribute(solver, "unknowns", run.problem.basis.size());
   int_attribute(solver, "segments", static_cast<long>(run.problem.mesh.segments.size()));
+  check(H5Fflush(file, H5F_SCOPE_GLOBAL));
+}
+
+void write_scattering_hdf5(const std::filesystem::path& path, const ScatteringRun& run) {
+  Handle file(H5Fcreate(path.c_str(), H5F_ACC_TRUNC, H5P_DEFAULT, H5P_DEFAULT), H5Fclose);
+  string_attribute(file, "program", "lobe");
+  string_attribute(file, "version", run.info.version);
+  int_attribute(file, "threads", run.info.threads);
+  string_attribute(file, "command_line", run.info.command_line);
+  string_attribute(file, "time_convention", "exp(+j omega t)");
+  string_attribute(file, "angles", "theta from +z, phi from +x toward +y");
+  const std::size_t nf = run.results.size();
+  std::vector<Real> frequencies, monostatic, rcs, rcond, residual;
+  for (const auto& r : run.results) {
+    frequencies.push_back(r.frequency_hz);
+    monostatic.push_back(r.monostatic_m2);
+    rcond.push_back(r.report.reciprocal_condition);
+    residual.push_back(r.report.relative_residual);
+    for (Eigen::Index i = 0; i < r.rcs_m2.rows(); ++i)
+      for (Eigen::Index j = 0; j < r.rcs_m2.cols(); ++j) rcs.push_back(r.rcs_m2(i, j));
+  }
+  write_reals(file, "frequency_hz", {nf}, frequencies, "Hz");
+  {
+    Handle model = group(file, "model");
+    write_string(model, "source", run.problem.model.text);
+    string_attribute(model, "file", run.problem.model.file);
+  }
+  {
+    Handle g = group(file, "scattering");
+    const PlaneWave& wave = *run.problem.model.wave;
+    write_reals(g, "wave_theta_deg", {1}, {wave.theta * 180 / pi}, "deg");
+    write_reals(g, "wave_phi_deg", {1}, {wave.phi * 180 / pi}, "deg");
+    write_reals(g, "wave_amplitude", {1}, {wave.amplitude}, "V/m");
+    string_attribute(g, "polarization", wave.theta_polarized ? "theta" : "phi");
+    std::vector<Real> thetas = run.problem.model.pattern.thetas(), phis = run.problem.model.pattern.phis();
+    for (auto& t : thetas) t *= 180 / pi;
+    for (auto& p : phis) p *= 180 / pi;
+    write_reals(g, "theta_deg", {thetas.size()}, thetas, "deg");
+    write_reals(g, "phi_deg", {phis.size()}, phis, "deg");
+    write_reals(g, "rcs_m2", {nf, thetas.size(), phis.size()}, rcs, "m2");
+    write_reals(g, "monostatic_m2", {nf}, monostatic, "m2");
+  }
+  {
+    Handle g = group(file, "mesh");
+    const SurfaceMesh& mesh = run.problem.surfaces.mesh;
+    std::vector<Real> vertices;
+    for (const Vec3& v : mesh.vertices) vertices.insert(vertices.end(), {v.x(), v.y(), v.z()});
+    std::vector<int> triangles;
+    for (const auto& t : mesh.triangles) triangles.insert(triangles.end(), t.begin(), t.end());
+    write_reals(g, "vertices_m", {mesh.vertices.size(), 3}, vertices, "m");
+    write_ints(g, "triangles", {mesh.triangles.size(), 3}, triangles);
+    write_ints(g, "region", {run.problem.surfaces.region.size()}, run.problem.surfaces.region);
+  }
+  Handle solver = group(file, "solver");
+  write_reals(solver, "reciprocal_condition", {nf}, rcond, "1");
+  write_reals(solver, "relative_residual", {nf}, residual, "1");
+  int_attribute(solver, "unknowns", run.problem.basis.size());
   check(H5Fflush(file, H5F_SCOPE_GLOBAL));
 }
 

@@ -18,4 +18,9 @@ namespace lobe {
 /// Root attributes: program, version, threads, command_line, time_convention.
 void write_hdf5(const std::filesystem::path& path, const RunRecord& run);
 
+struct ScatteringRun;
+/// A scattering run: /frequency_hz, /model/source, /scattering/{wave_*, theta_deg, phi_deg,
+/// rcs_m2 [f, θ, φ], monostatic_m2 [f]}, /mesh/{vertices_m, triangles, region}, /solver/...
+void write_scattering_hdf5(const std::filesystem::path& path, const ScatteringRun& run);
+
 }  // namespace lobe

@@ -1,12 +1,33 @@
 #include "solver/dense_symmetric_matrix.hpp"
 
 #include <lapacke.h>
+#include <unistd.h>
+
+#include <cstdio>
 
 #include "core/check.hpp"
 
 namespace lobe {
 
 std::uint64_t dense_matrix_bytes(std::uint64_t n) { return 2 * n * n * sizeof(Complex); }
+
+namespace {
+/// Share of the machine's memory the dense matrices may take.
+constexpr double usable_memory_share = 0.8;
+}  // namespace
+
+void require_dense_memory(const Model& model, int unknowns) {
+  const double available = static_cast<double>(sysconf(_SC_PHYS_PAGES)) * static_cast<double>(sysconf(_SC_PAGE_SIZE));
+  const double needed = static_cast<double>(dense_matrix_bytes(static_cast<std::uint64_t>(unknowns)));
+  if (needed > usable_memory_share * available) {
+    char message[256];
+    std::snprintf(message, sizeof message,
+                  "the model has %d unknowns; its matrices need %.1f GiB but this machine has %.1f GiB; "
+                  "use fewer segments or a coarser mesh",
+                  unknowns, needed / (1 << 30), available / (1 << 30));
+    throw InputError({model.file, 1, 1}, message);
+  }
+}
 
 DenseSymmetricMatrix::DenseSymmetricMatrix(Eigen::Index n) : m_entries(n, n), m_original(n, n) {
   // Both buffers are written column by column, in parallel, so that every page is really

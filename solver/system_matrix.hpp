@@ -5,6 +5,7 @@
 #include <string>
 
 #include "core/types.hpp"
+#include "geometry/model.hpp"
 
 namespace lobe {
 
@@ -32,5 +33,9 @@ class SystemMatrix {
 
 /// Bytes a dense complex matrix of n unknowns takes, including the copy kept for residuals.
 std::uint64_t dense_matrix_bytes(std::uint64_t n);
+
+/// Throws InputError (located at the model file) when the dense matrices of `unknowns`
+/// would not fit in the machine's memory.
+void require_dense_memory(const Model& model, int unknowns);
 
 }  // namespace lobe

@@ -1,38 +1,14 @@
 #include "solver/wire_problem.hpp"
 
-#include <unistd.h>
-
-#include <cstdio>
-
 #include "solver/dense_symmetric_matrix.hpp"
 #include "solver/impedance_fill.hpp"
 #include "solver/lumped_load.hpp"
 
 namespace lobe {
 
-namespace {
-
-/// Share of the machine's memory the dense matrices may take.
-constexpr double usable_memory_share = 0.8;
-
-void require_memory(const Model& model, int unknowns) {
-  const double available = static_cast<double>(sysconf(_SC_PHYS_PAGES)) * static_cast<double>(sysconf(_SC_PAGE_SIZE));
-  const double needed = static_cast<double>(dense_matrix_bytes(static_cast<std::uint64_t>(unknowns)));
-  if (needed > usable_memory_share * available) {
-    char message[256];
-    std::snprintf(message, sizeof message,
-                  "the model has %d unknowns; its matrices need %.1f GiB but this machine has %.1f GiB; "
-                  "use fewer segments",
-                  unknowns, needed / (1 << 30), available / (1 << 30));
-    throw InputError({model.file, 1, 1}, message);
-  }
-}
-
-}  // namespace
-
 WireProblem::WireProblem(const Model& m) : model(m), mesh(mesh_wires(m)), basis(mesh) {
   if (basis.size() == 0) throw InputError({m.file, 1, 1}, "the model has no place for current to flow (no unknowns)");
-  require_memory(m, basis.size());
+  require_dense_memory(m, basis.size());
   port_vectors.resize(basis.size(), static_cast<Eigen::Index>(mesh.port_gaps.size()));
   for (std::size_t p = 0; p < mesh.port_gaps.size(); ++p) port_vectors.col(p) = basis.gap_vector(mesh.port_gaps[p]);
   // Ports whose gap vectors are dependent (two at one place, or one on every wire of a

@@ -6,6 +6,8 @@
 #include <vector>
 
 #include "cli/run_process.hpp"
+#include "core/constants.hpp"
+#include "support/mie_series.hpp"
 
 namespace lobe::testing {
 namespace {
@@ -129,6 +131,26 @@ TEST(DemoModels, HelixIsADirectionalRightHandBeam) {
   EXPECT_GT(number(axis, "gain_dbi"), 10.5);
   // Kraus ch. 7: R ≈ 140 (C/λ) Ω.
   for (const auto& r : in_band(run.ports, f - 1e6, f + 1e6)) EXPECT_NEAR(number(r, "resistance_ohm"), 140.0, 50.0);
+}
+
+// The calibration sphere's monostatic RCS against the Mie series (Mie 1908; Bohren &
+// Huffman ch. 4) within ±0.5 dB at every frequency (ka from 1.05 to 2.1).
+TEST(DemoModels, CalibrationSphereMatchesTheMieSeries) {
+  const auto dir = fresh_directory("demo-sphere");
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/calibration_sphere.lobe";
+  const ProcessResult r = run_lobe("run '" + model + "' -o '" + (dir / "out").string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const auto rows = read_csv(dir / "out" / "calibration_sphere_rcs.csv");
+  const double radius = 0.05;
+  int checked = 0;
+  for (const auto& row : rows) {
+    if (number(row, "theta_deg") != 0 || number(row, "phi_deg") != 0) continue;
+    const double ka = 2 * pi * number(row, "frequency_hz") / speed_of_light * radius;
+    const double mie = PecSphereMie(ka).backscatter_efficiency() * pi * radius * radius;
+    EXPECT_NEAR(number(row, "rcs_dbsm"), 10 * std::log10(mie), 0.5) << "ka = " << ka;
+    ++checked;
+  }
+  EXPECT_EQ(checked, 5);
 }
 
 TEST(DemoModels, YagiBeamsForward) {

@@ -70,9 +70,34 @@ TEST(ModelParser, TransformsCompose) {
   EXPECT_NEAR(p.z(), 1.0, 1e-15);
 }
 
+TEST(ModelParser, PlatesBodiesAndWaves) {
+  const Model m = parse_model(
+      "units mm\n"
+      "plate floor rectangle corner (0, 0, 0) size (100, 50) normal (0, 0, 1)\n"
+      "plate lid polygon (0, 0, 10) (10, 0, 10) (0, 10, 10)\n"
+      "plate coin disc center (0, 0, 20) normal (1, 0, 0) diameter 30\n"
+      "sphere ball center (0, 0, 100) diameter 40\n"
+      "box crate corner (200, 0, 0) size (10, 20, 30)\n"
+      "copy ball as ball2 shift (0, 0, 50)\n"
+      "mesh ball size 5\n"
+      "wave theta 90 phi 0 polarization phi amplitude 2 V/m\n"
+      "frequency 1 GHz\n",
+      "m");
+  ASSERT_EQ(m.surfaces.size(), 6u);
+  EXPECT_DOUBLE_EQ(m.surfaces[0].width, 0.1);
+  EXPECT_EQ(m.surfaces[1].polygon.size(), 3u);
+  EXPECT_DOUBLE_EQ(m.surfaces[3].mesh_size, 0.005);
+  EXPECT_NEAR((m.surfaces[5].transform * Vec3::Zero()).z(), 0.05, 1e-15);
+  ASSERT_TRUE(m.wave.has_value());
+  EXPECT_NEAR(m.wave->theta, pi / 2, 1e-15);
+  EXPECT_FALSE(m.wave->theta_polarized);
+  EXPECT_DOUBLE_EQ(m.wave->amplitude, 2.0);
+}
+
 TEST(ModelParser, ErrorsPointAtTheCause) {
-  EXPECT_EQ(error_of("blorp\n"), "m.lobe:1:1: unknown statement 'blorp'; statements are: units let wire arc helix "
-                                 "copy shift turn mirror port load conductor ground frequency reference band pattern");
+  EXPECT_EQ(error_of("blorp\n"), "m.lobe:1:1: unknown statement 'blorp'; statements are: units let wire arc helix plate "
+                                 "sphere box copy shift turn mirror mesh port load conductor ground wave frequency "
+                                 "reference band pattern");
   EXPECT_EQ(error_of("wire w from (0,0,0) to (0,0,1)\n"), "m.lobe:1:31: wire 'w' needs 'radius R'");
   EXPECT_EQ(error_of("let a = 1\nlet a = 2\n"), "m.lobe:2:5: 'a' is already defined");
   EXPECT_EQ(error_of(base + "port q on nowhere at middle\n"), "m.lobe:4:11: there is no wire named 'nowhere'");

@@ -1,0 +1,43 @@
+#include <chrono>
+#include <cstdio>
+#include <filesystem>
+
+#include "cli/commands.hpp"
+#include "core/constants.hpp"
+#include "post/hdf5_writer.hpp"
+#include "post/output_files.hpp"
+#include "post/run_summary.hpp"
+#include "post/scattering_result.hpp"
+#include "solver/threads.hpp"
+
+namespace lobe::cli {
+
+int run_scattering(const RunOptions& options, const Model& model) {
+  const std::string stem = std::filesystem::path(options.model_path).stem().string();
+  const std::filesystem::path directory = output_directory(options);
+  check_output_directory(directory);
+  const ScatteringProblem problem(model);
+  std::printf("lobe %s: %s\n", LOBE_VERSION, options.model_path.c_str());
+  std::printf("configuration: %s, %s, smallest triangle angle %.1f deg, %s, %s\n\n",
+              count_text(problem.surfaces.mesh.triangles.size(), "triangle").c_str(),
+              count_text(problem.basis.size(), "unknown").c_str(), problem.surfaces.smallest_angle * 180 / pi,
+              count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
+              count_text(thread_count(), "thread").c_str());
+  ScatteringRun run{problem, {}, {LOBE_VERSION, thread_count(), options.command_line}};
+  const auto start = std::chrono::steady_clock::now();
+  for (std::size_t i = 0; i < model.frequencies_hz.size(); ++i) {
+    run.results.push_back(evaluate_scattering(problem, solve_scattering(problem, model.frequencies_hz[i])));
+    const double elapsed = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+    if (model.frequencies_hz.size() > 1)
+      std::fprintf(stderr, "solved %zu/%zu, %.1f s elapsed\n", i + 1, model.frequencies_hz.size(), elapsed);
+  }
+  OutputFiles files(directory);
+  write_scattering_hdf5(files.staging_path(stem + ".h5"), run);
+  write_scattering_csv(files.staging_path(stem + "_rcs.csv"), run);
+  const auto written = files.commit();
+  std::printf("%s\nresults:\n", scattering_summary(run).c_str());
+  for (const auto& path : written) std::printf("  %s\n", path.string().c_str());
+  return 0;
+}
+
+}  // namespace lobe::cli
