@@ -290,6 +290,7 @@ class Mesher {
   /// overlap (an error) or cross unjoined (a warning).
   void check_crossings() {
     const auto& segs = m_mesh.segments;
+    if (segs.empty()) return;
     std::vector<std::pair<int, int>> reported;
     // Sweep along the axis on which the structure is longest: only segments whose extents
     // on it come within reach are compared, so a long straight wire costs O(S log S).

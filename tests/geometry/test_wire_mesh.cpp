@@ -100,6 +100,14 @@ TEST(WireMesh, OverlappingWiresAreAnError) {
                InputError);
 }
 
+// A model of plates and bodies alone has no segments; meshing its wires gives nothing.
+TEST(WireMesh, NoWiresGiveAnEmptyMesh) {
+  const WireMesh mesh = mesh_of("sphere s center (0,0,0) diameter 0.1\nwave theta 0 phi 0 polarization theta\n"
+                                "frequency 1 GHz\n");
+  EXPECT_TRUE(mesh.segments.empty());
+  EXPECT_TRUE(mesh.nodes.empty());
+}
+
 TEST(WireMesh, PortOnAFreeEndIsAnError) {
   EXPECT_THROW(mesh_of("wire a from (0,0,0) to (1,0,0) radius 1 mm\nport p on a at start\nfrequency 100 MHz\n"),
                InputError);
