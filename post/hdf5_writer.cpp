@@ -221,16 +221,21 @@ void write_currents(hid_t file, const RunRecord& run) {
     }
 }
 
+/// What made the file and the conventions its numbers follow, as root attributes.
+void write_run_attributes(hid_t file, const RunInfo& info) {
+  string_attribute(file, "program", "lobe");
+  string_attribute(file, "version", info.version);
+  int_attribute(file, "threads", info.threads);
+  string_attribute(file, "command_line", info.command_line);
+  string_attribute(file, "time_convention", "exp(+j omega t)");
+  string_attribute(file, "angles", "theta from +z, phi from +x toward +y");
+}
+
 }  // namespace
 
 void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
   Handle file(H5Fcreate(path.c_str(), H5F_ACC_TRUNC, H5P_DEFAULT, H5P_DEFAULT), H5Fclose);
-  string_attribute(file, "program", "lobe");
-  string_attribute(file, "version", run.info.version);
-  int_attribute(file, "threads", run.info.threads);
-  string_attribute(file, "command_line", run.info.command_line);
-  string_attribute(file, "time_convention", "exp(+j omega t)");
-  string_attribute(file, "angles", "theta from +z, phi from +x toward +y");
+  write_run_attributes(file, run.info);
   const std::vector<hsize_t> nf{run.results.size()};
   write_reals(file, "frequency_hz", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.frequency_hz; }), "Hz");
   write_model(file, run);
@@ -248,12 +253,7 @@ void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
 
 void write_scattering_hdf5(const std::filesystem::path& path, const ScatteringRun& run) {
   Handle file(H5Fcreate(path.c_str(), H5F_ACC_TRUNC, H5P_DEFAULT, H5P_DEFAULT), H5Fclose);
-  string_attribute(file, "program", "lobe");
-  string_attribute(file, "version", run.info.version);
-  int_attribute(file, "threads", run.info.threads);
-  string_attribute(file, "command_line", run.info.command_line);
-  string_attribute(file, "time_convention", "exp(+j omega t)");
-  string_attribute(file, "angles", "theta from +z, phi from +x toward +y");
+  write_run_attributes(file, run.info);
   const std::size_t nf = run.results.size();
   std::vector<Real> frequencies, monostatic, rcs, rcond, residual;
   for (const auto& r : run.results) {
