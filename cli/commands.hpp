@@ -28,6 +28,9 @@ int run_command(const RunOptions& options);
 /// Solves a model of plates and bodies lit by its plane wave; writes RCS files.
 int run_scattering(const RunOptions& options, const Model& model);
 
+/// Meshes the model and writes the mesh as a VTK XML file (.vtu) for ParaView.
+int mesh_command(const std::string& model_path, const std::string& output, const std::vector<std::string>& set_options);
+
 /// Prints the mesher's warnings as FILE:LINE:COL: warning: ... on standard error.
 void print_warnings(const WireMesh& mesh);
 

@@ -1,4 +1,4 @@
-/// The lobe command: `lobe run MODEL` and `lobe check MODEL`.
+/// The lobe command: `lobe run MODEL`, `lobe check MODEL` and `lobe mesh MODEL -o FILE.vtu`.
 #include <CLI/CLI.hpp>
 
 #include <cstdio>
@@ -35,6 +35,13 @@ int main(int argc, char** argv) {
   check_app->add_option("MODEL", check_path, "Model file (.lobe)")->required();
   check_app->add_option("--set", check_sets, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
 
+  std::string mesh_path, mesh_output;
+  std::vector<std::string> mesh_sets;
+  auto* mesh_app = app.add_subcommand("mesh", "Mesh a model and write the mesh as VTK XML (.vtu) for ParaView");
+  mesh_app->add_option("MODEL", mesh_path, "Model file (.lobe)")->required();
+  mesh_app->add_option("-o,--output", mesh_output, "Mesh file to write (.vtu)")->required();
+  mesh_app->add_option("--set", mesh_sets, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -44,6 +51,7 @@ int main(int argc, char** argv) {
 
   try {
     if (*run_app) return lobe::cli::run_command(run);
+    if (*mesh_app) return lobe::cli::mesh_command(mesh_path, mesh_output, mesh_sets);
     return lobe::cli::check_command(check_path, check_sets);
   } catch (const lobe::InputError& e) {
     std::fprintf(stderr, "%s\n", e.formatted().c_str());

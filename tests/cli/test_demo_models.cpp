@@ -153,6 +153,44 @@ TEST(DemoModels, CalibrationSphereMatchesTheMieSeries) {
   EXPECT_EQ(checked, 5);
 }
 
+/// Every opened tag is closed in order (enough for the VTK files written here).
+bool well_formed_xml(const std::string& text) {
+  std::vector<std::string> open;
+  for (std::size_t at = text.find('<'); at != std::string::npos; at = text.find('<', at + 1)) {
+    const std::size_t end = text.find('>', at);
+    if (end == std::string::npos) return false;
+    const std::string tag = text.substr(at + 1, end - at - 1);
+    if (tag.empty() || tag[0] == '?' || tag.back() == '/') continue;
+    const std::string name = tag.substr(tag[0] == '/' ? 1 : 0, tag.find(' ') == std::string::npos ? std::string::npos
+                                                                : tag.find(' ') - (tag[0] == '/' ? 1 : 0));
+    if (tag[0] != '/') {
+      open.push_back(name);
+    } else {
+      if (open.empty() || open.back() != name) return false;
+      open.pop_back();
+    }
+  }
+  return open.empty();
+}
+
+TEST(DemoModels, MeshCommandWritesVtkForWiresAndSurfaces) {
+  const auto dir = fresh_directory("vtk");
+  ProcessResult r = run_lobe("mesh '" + std::string(LOBE_SOURCE_DIR) + "/models/yagi_3el_144.lobe' -o '" +
+                                 (dir / "yagi.vtu").string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  std::string vtu = read_text(dir / "yagi.vtu");
+  EXPECT_TRUE(well_formed_xml(vtu));
+  EXPECT_NE(vtu.find("NumberOfCells=\"34\""), std::string::npos);  // the 34 segments `check` reports
+  r = run_lobe("mesh '" + std::string(LOBE_SOURCE_DIR) + "/models/calibration_sphere.lobe' -o '" +
+                   (dir / "ball.vtu").string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  vtu = read_text(dir / "ball.vtu");
+  EXPECT_TRUE(well_formed_xml(vtu));
+  EXPECT_NE(vtu.find("Name=\"region\""), std::string::npos);
+  EXPECT_EQ(run_lobe("mesh '" + std::string(LOBE_SOURCE_DIR) + "/models/yagi_3el_144.lobe' -o '" +
+                         (dir / "yagi.txt").string() + "'", dir).exit_code, 2);
+}
+
 TEST(DemoModels, YagiBeamsForward) {
   const DemoRun run = run_demo("yagi_3el_144");
   const double f = 145e6;
