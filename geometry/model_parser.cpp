@@ -727,6 +727,9 @@ class ModelParser {
     if (!m_model.surfaces.empty() && !m_model.wave)
       throw InputError(end_of_file, "plates and bodies are lit by a plane wave (ports on them are not supported yet); "
                                     "add one such as 'wave theta 0 phi 0 polarization theta'");
+    if (!m_model.surfaces.empty() && m_conductivity_for_all > 0.0)
+      throw InputError(m_model.surfaces.front().where,
+                       "plates and bodies are perfect conductors for now; 'conductor all' cannot apply to them");
     if (!m_model.surfaces.empty() && m_model.ground_perfect)
       throw InputError(m_model.surfaces.front().where,
                        "plates and bodies over a ground plane cannot be solved yet; use 'ground none'");
