@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "solver/smooth_kernel.hpp"
 #include "solver/phase_factor.hpp"
 
 namespace lobe {
@@ -33,13 +34,6 @@ StaticLine static_line(const Vec3& x, const Vec3& b0, const Vec3& u, Real length
   const Real r_start = std::sqrt(rho2 + z0 * z0);
   const Real j1 = (r_end - r_start + z0 * j0) / length;  // ∫ ξ'/R dl'
   return {j0 - j1, j1};
-}
-
-/// (e^{−jkR} − 1)/R without cancellation for small kR.
-inline Complex smooth_kernel(Real k, Real r) {
-  const Real half = 0.5 * k * r;
-  const Real s = std::sin(half);
-  return Complex(-2.0 * s * s, -std::sin(k * r)) / r;
 }
 
 PairIntegrals product_rule(const SegmentGeometry& obs, const SegmentGeometry& src, Real k, Real a2, int n) {

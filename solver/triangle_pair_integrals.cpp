@@ -3,6 +3,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "solver/smooth_kernel.hpp"
 #include "solver/triangle_potentials.hpp"
 #include "solver/triangle_rules.hpp"
 
@@ -24,14 +25,6 @@ struct Triangle {
 
 Triangle triangle_of(const SurfaceMesh& mesh, int t) {
   return {{mesh.corner(t, 0), mesh.corner(t, 1), mesh.corner(t, 2)}, mesh.area(t)};
-}
-
-/// (e^{−jkR} − 1)/R without cancellation for small kR; −jk at R = 0 (self-term points
-/// coincide with source points).
-inline Complex smooth_kernel(Real k, Real r) {
-  if (k * r < 1e-8) return Complex(-0.5 * k * k * r, -k);
-  const Real s = std::sin(0.5 * k * r);
-  return Complex(-2.0 * s * s, -std::sin(k * r)) / r;
 }
 
 }  // namespace
