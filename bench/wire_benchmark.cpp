@@ -14,7 +14,7 @@
 #include "solver/dense_symmetric_matrix.hpp"
 #include "solver/impedance_fill.hpp"
 #include "solver/threads.hpp"
-#include "solver/wire_problem.hpp"
+#include "solver/antenna_problem.hpp"
 
 namespace {
 
@@ -64,7 +64,7 @@ int main() {
   std::printf("%9s %10s %10s %12s %12s %14s\n", "unknowns", "fill (s)", "factor (s)", "factor GF/s", "of zgemm", "total (s)");
   for (int dipoles : {20, 40}) {
     const Model model = parse_model(curtain(dipoles), "benchmark");
-    const WireProblem problem(model);
+    const AntennaProblem problem(model);
     const auto n = problem.basis.size();
     // All fills first, then all factorisations: OpenBLAS's worker threads keep spinning
     // for a while after a factorisation and would slow a fill that follows at once.

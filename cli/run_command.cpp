@@ -34,8 +34,8 @@ std::filesystem::path output_directory(const RunOptions& options) {
 int run_command(const RunOptions& options) {
   if (options.threads > 0) set_thread_count(options.threads);
   const Model model = load_model(options.model_path, options.set_options);
-  if (!model.surfaces.empty()) return run_scattering(options, model);
-  const WireProblem problem(model);
+  if (model.wave) return run_scattering(options, model);
+  const AntennaProblem problem(model);
   print_warnings(problem.mesh);
   const std::filesystem::path model_path(options.model_path);
   const std::string stem = model_path.stem().string();
@@ -45,9 +45,10 @@ int run_command(const RunOptions& options) {
   check_output_directory(directory);
 
   std::printf("lobe %s: %s\n", LOBE_VERSION, options.model_path.c_str());
-  std::printf("configuration: %s, %s, %s, %s, ground %s, reference %.6g ohm, %s, %s\n",
+  std::printf("configuration: %s, %s, %s, %s, %s, ground %s, reference %.6g ohm, %s, %s\n",
               count_text(problem.mesh.segments.size(), "segment").c_str(),
-              count_text(problem.basis.size(), "unknown").c_str(), count_text(model.ports.size(), "port").c_str(),
+              count_text(problem.surfaces.mesh.triangles.size(), "triangle").c_str(),
+              count_text(problem.unknowns(), "unknown").c_str(), count_text(model.ports.size(), "port").c_str(),
               count_text(model.loads.size(), "load").c_str(), model.ground_perfect ? "perfect" : "none",
               model.reference_ohm, count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
               count_text(thread_count(), "thread").c_str());

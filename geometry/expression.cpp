@@ -298,8 +298,8 @@ void TokenCursor::expect_symbol(char c, const std::string& context) {
   throw InputError(t.where, std::string("expected '") + c + "' " + context + ", found " + found);
 }
 
-bool TokenCursor::peek_word(std::string_view word) const {
-  const Token& t = peek();
+bool TokenCursor::peek_word(std::string_view word, std::size_t ahead) const {
+  const Token& t = peek(ahead);
   return t.kind == TokenKind::identifier && t.text == word;
 }
 

@@ -20,7 +20,7 @@ class TokenCursor {
   bool peek_symbol(char c) const;
   bool accept_symbol(char c);
   void expect_symbol(char c, const std::string& context);
-  bool peek_word(std::string_view word) const;
+  bool peek_word(std::string_view word, std::size_t ahead = 0) const;
   bool accept_word(std::string_view word);
   void expect_word(std::string_view word, const std::string& context);
   /// Reads a name (identifier) and returns its token.

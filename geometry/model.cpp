@@ -25,11 +25,14 @@ const Wire* Model::find_wire(const std::string& name) const {
   return nullptr;
 }
 
-bool Model::has_object(const std::string& name) const {
-  if (find_wire(name)) return true;
+const SurfaceShape* Model::find_surface(const std::string& name) const {
   for (const auto& s : surfaces)
-    if (s.name == name) return true;
-  return false;
+    if (s.name == name) return &s;
+  return nullptr;
+}
+
+bool Model::has_object(const std::string& name) const {
+  return find_wire(name) || find_surface(name);
 }
 
 Real Model::highest_frequency() const {

@@ -47,10 +47,22 @@ struct WirePosition {
   Real fraction = 0.5;
 };
 
+/// A straight line across a plate along which a port's voltage is impressed. Positive
+/// current crosses it to the right of a walk from `from` to `to` with the plate's normal
+/// pointing up: along (to − from) × normal.
+struct PlateLine {
+  std::string plate;
+  SourceLocation plate_where;
+  Vec3 from = Vec3::Zero();
+  Vec3 to = Vec3::Zero();
+};
+
+/// A port on a wire (at `position`) or across a line on a plate (`line`).
 struct Port {
   std::string name;
   SourceLocation where;
   WirePosition position;
+  std::optional<PlateLine> line;
   Complex voltage{1.0, 0.0};  ///< V, amplitude and phase
 };
 
@@ -113,6 +125,7 @@ struct Model {
   std::vector<ResolvedValue> values;
 
   const Wire* find_wire(const std::string& name) const;
+  const SurfaceShape* find_surface(const std::string& name) const;
   /// True when a wire or surface already has this name.
   bool has_object(const std::string& name) const;
   Real highest_frequency() const;

@@ -476,7 +476,19 @@ class ModelParser {
       if (other.name == name.text) throw InputError(name.where, "a port named '" + name.text + "' already exists");
     p.name = name.text;
     p.where = keyword.where;
-    p.position = position(c);
+    if (c.peek_word("on") && c.peek_word("along", 2)) {
+      c.expect_word("on", "after the name");
+      const Token& plate = c.expect_name("a plate name");
+      c.expect_word("along", "after the plate name");
+      PlateLine line{plate.text, plate.where, point(c), Vec3::Zero()};
+      c.expect_word("to", "after the line's first point");
+      const Token& to = c.peek();
+      line.to = point(c);
+      if ((line.to - line.from).norm() == 0.0) throw InputError(to.where, "a port line needs two different points");
+      p.line = line;
+    } else {
+      p.position = position(c);
+    }
     Real amplitude = 1.0, phase = 0.0;
     std::set<std::string> seen;
     while (!c.at_end()) {
@@ -721,22 +733,18 @@ class ModelParser {
     if (m_model.wires.empty() && m_model.surfaces.empty())
       throw InputError(end_of_file, "the model has no wire, arc, helix, plate or body");
     if (m_model.frequencies_hz.empty()) throw InputError(end_of_file, "the model has no 'frequency' statement");
-    if (!m_model.surfaces.empty() && !m_model.wires.empty())
-      throw InputError(m_model.surfaces.front().where,
-                       "models that combine wires with plates or bodies cannot be solved yet; solve them apart");
-    if (!m_model.surfaces.empty() && !m_model.wave)
-      throw InputError(end_of_file, "plates and bodies are lit by a plane wave (ports on them are not supported yet); "
-                                    "add one such as 'wave theta 0 phi 0 polarization theta'");
     if (!m_model.surfaces.empty() && m_conductivity_for_all > 0.0)
       throw InputError(m_model.surfaces.front().where,
                        "plates and bodies are perfect conductors for now; 'conductor all' cannot apply to them");
-    if (!m_model.surfaces.empty() && m_model.ground_perfect)
-      throw InputError(m_model.surfaces.front().where,
-                       "plates and bodies over a ground plane cannot be solved yet; use 'ground none'");
+    if (m_model.wave && !m_model.ports.empty())
+      throw InputError(m_model.wave->where, "a model is either lit by a plane wave or driven by ports, not both");
     if (m_model.wave && !m_model.wires.empty())
       throw InputError(m_model.wave->where, "a plane wave lights plates and bodies only; drive wires with ports");
-    if (!m_model.wires.empty() && m_model.ports.empty())
-      throw InputError(end_of_file, "the model has no port; add one such as 'port feed on WIRE at middle'");
+    if (m_model.wave && m_model.ground_perfect)
+      throw InputError(m_model.wave->where, "plane waves over a ground plane are not supported; use 'ground none'");
+    if (!m_model.wave && m_model.ports.empty())
+      throw InputError(end_of_file, "the model has no port; add one such as 'port feed on WIRE at middle' or "
+                                    "'port feed on PLATE along (x, y, z) to (x, y, z)', or light plates with a 'wave'");
     const double rows = static_cast<double>(m_model.frequencies_hz.size()) * m_model.pattern.thetas().size() *
                         m_model.pattern.phis().size();
     if (rows > max_pattern_rows)
@@ -746,7 +754,16 @@ class ModelParser {
     auto check_position = [&](const WirePosition& p) {
       if (!m_model.find_wire(p.wire)) throw InputError(p.wire_where, "there is no wire named '" + p.wire + "'");
     };
-    for (const auto& p : m_model.ports) check_position(p.position);
+    for (const auto& p : m_model.ports) {
+      if (!p.line) {
+        check_position(p.position);
+        continue;
+      }
+      const SurfaceShape* plate = m_model.find_surface(p.line->plate);
+      if (!plate) throw InputError(p.line->plate_where, "there is no plate named '" + p.line->plate + "'");
+      if (plate->kind == SurfaceKind::sphere || plate->kind == SurfaceKind::box)
+        throw InputError(p.line->plate_where, "'" + p.line->plate + "' is a closed body; a port line goes across a plate");
+    }
     for (const auto& l : m_model.loads) check_position(l.position);
   }
 

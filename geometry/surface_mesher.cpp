@@ -105,7 +105,17 @@ Real smallest_angle_of(const SurfaceMesh& mesh, int t) {
   return smallest;
 }
 
-SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes) {
+/// Vertex indices of the nodes Gmsh placed on one model entity.
+std::vector<int> entity_vertices(int dim, int tag, const std::map<std::size_t, int>& index_of) {
+  std::vector<std::size_t> tags;
+  std::vector<double> coordinates, parametric;
+  gmsh::model::mesh::getNodes(tags, coordinates, parametric, dim, tag, true, false);
+  std::vector<int> vertices;
+  for (std::size_t t : tags) vertices.push_back(index_of.at(t));
+  return vertices;
+}
+
+SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes, const MeshConstraints& constraints) {
   SurfaceMeshReport report;
   std::vector<gmsh::vectorpair> entities;
   gmsh::vectorpair all;
@@ -121,8 +131,18 @@ SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes) {
     }
     all.insert(all.end(), entities.back().begin(), entities.back().end());
   }
-  // Fragment everything against everything so that touching shapes share mesh edges; the
-  // map tells which new entities came from which shape.
+  const auto add_point = [](const Vec3& p) { return gmsh::model::occ::addPoint(p.x(), p.y(), p.z()); };
+  for (const Vec3& p : constraints.points) {
+    entities.push_back({{0, add_point(p)}});
+    all.push_back(entities.back().front());
+  }
+  for (const MeshLine& line : constraints.lines) {
+    entities.push_back({{1, gmsh::model::occ::addLine(add_point(line.from), add_point(line.to))}});
+    all.push_back(entities.back().front());
+  }
+  // Fragment everything against everything so that touching shapes share mesh edges and
+  // constraints become part of the surfaces they lie on; the map tells which new entities
+  // came from which input.
   std::vector<gmsh::vectorpair> pieces_of = entities;
   if (all.size() > 1) {
     gmsh::vectorpair out;
@@ -143,6 +163,16 @@ SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes) {
     gmsh::model::getBoundary(pieces_of[s], points, false, false, true);
     gmsh::model::mesh::setSize(points, shapes[s].mesh_size);
     largest = std::max(largest, shapes[s].mesh_size);
+  }
+  // Finer around constraints, where a feed concentrates the current.
+  Real smallest = shapes.front().mesh_size;
+  for (const auto& s : shapes) smallest = std::min(smallest, s.mesh_size);
+  for (std::size_t c = shapes.size(); c < entities.size(); ++c) {
+    gmsh::vectorpair points;
+    gmsh::model::getBoundary(pieces_of[c], points, false, false, true);
+    for (const auto& piece : pieces_of[c])
+      if (piece.first == 0) points.push_back(piece);
+    gmsh::model::mesh::setSize(points, 0.5 * smallest);
   }
   gmsh::option::setNumber("Mesh.MeshSizeMax", largest);
   gmsh::model::mesh::generate(2);
@@ -182,17 +212,49 @@ SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes) {
   report.smallest_angle = pi;
   for (std::size_t t = 0; t < report.mesh.triangles.size(); ++t)
     report.smallest_angle = std::min(report.smallest_angle, smallest_angle_of(report.mesh, static_cast<int>(t)));
+
+  // Constraints: a point's vertex counts only when a triangle uses it (it lay on a surface).
+  std::vector<bool> used(report.mesh.vertices.size(), false);
+  for (const auto& t : report.mesh.triangles)
+    for (int v : t) used[v] = true;
+  const std::size_t first_point = shapes.size(), first_line = first_point + constraints.points.size();
+  for (std::size_t c = first_point; c < first_line; ++c) {
+    int vertex = -1;
+    for (const auto& [dim, tag] : pieces_of[c])
+      for (int v : entity_vertices(dim, tag, index_of))
+        if (used[v]) vertex = v;
+    report.point_vertex.push_back(vertex);
+  }
+  constexpr int two_node_line = 1;
+  for (std::size_t c = first_line; c < entities.size(); ++c) {
+    std::vector<std::array<int, 2>> edges;
+    for (const auto& [dim, tag] : pieces_of[c]) {
+      if (dim != 1) continue;
+      std::vector<std::size_t> element_tags, element_nodes;
+      gmsh::model::mesh::getElementsByType(two_node_line, element_tags, element_nodes, tag);
+      for (std::size_t e = 0; e < element_tags.size(); ++e) {
+        const int a = index_of.at(element_nodes[2 * e]), b = index_of.at(element_nodes[2 * e + 1]);
+        if (used[a] && used[b]) edges.push_back({a, b});
+      }
+    }
+    report.line_edges.push_back(std::move(edges));
+  }
   return report;
 }
 
 }  // namespace
 
-SurfaceMeshReport mesh_surfaces(const std::vector<SurfaceShape>& shapes) {
-  if (shapes.empty()) return {};
+SurfaceMeshReport mesh_surfaces(const std::vector<SurfaceShape>& shapes, const MeshConstraints& constraints) {
+  if (shapes.empty()) {
+    SurfaceMeshReport nothing;
+    nothing.point_vertex.assign(constraints.points.size(), -1);
+    nothing.line_edges.resize(constraints.lines.size());
+    return nothing;
+  }
   GmshSession session;
   // Gmsh reports its own failures with exceptions of its choosing; turn them into ours.
   try {
-    return mesh_in_session(shapes);
+    return mesh_in_session(shapes, constraints);
   } catch (const InputError&) {
     throw;
   } catch (const std::exception& e) {
@@ -200,6 +262,14 @@ SurfaceMeshReport mesh_surfaces(const std::vector<SurfaceShape>& shapes) {
   } catch (...) {
     throw std::runtime_error("surface meshing failed inside Gmsh");
   }
+}
+
+SurfaceMeshReport mesh_model_surfaces(const Model& model, const MeshConstraints& constraints) {
+  std::vector<SurfaceShape> shapes = model.surfaces;
+  const Real edge = speed_of_light / model.highest_frequency() / default_edges_per_wavelength;
+  for (auto& s : shapes)
+    if (s.mesh_size == 0.0) s.mesh_size = edge;
+  return mesh_surfaces(shapes, constraints);
 }
 
 }  // namespace lobe

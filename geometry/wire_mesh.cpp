@@ -149,7 +149,8 @@ class Mesher {
     check_ground();
     count_junctions();
     m_mesh.port_gaps.reserve(m_model.ports.size());
-    for (const auto& p : m_model.ports) m_mesh.port_gaps.push_back(gap(p.position, p.where, "port " + p.name));
+    for (const auto& p : m_model.ports)
+      if (!p.line) m_mesh.port_gaps.push_back(gap(p.position, p.where, "port " + p.name));
     for (const auto& l : m_model.loads) m_mesh.load_gaps.push_back(gap(l.position, l.where, "load " + l.name));
     check_segments(wavelength);
     check_crossings();
@@ -162,7 +163,7 @@ class Mesher {
     const WirePath path(wire);
     std::vector<Real> required;
     for (const auto& p : m_model.ports)
-      if (p.position.wire == wire.name) required.push_back(p.position.fraction);
+      if (!p.line && p.position.wire == wire.name) required.push_back(p.position.fraction);
     for (const auto& l : m_model.loads)
       if (l.position.wire == wire.name) required.push_back(l.position.fraction);
     const std::vector<Real> fractions = node_fractions(wire, path, required, target);
@@ -255,10 +256,8 @@ class Mesher {
     Gap g;
     g.at = k == last ? SegmentEnd{m_first_segment[w] + last - 1, 1} : SegmentEnd{m_first_segment[w] + k, 0};
     g.node = m_mesh.segments[g.at.segment].node[g.at.end];
-    const MeshNode& node = m_mesh.nodes[g.node];
-    if (node.ends.size() == 1 && !node.on_ground)
-      throw InputError(where, what + " sits on a free end of wire '" + position.wire +
-                                  "'; no current flows there. Put it inside the wire, at a junction or on the ground");
+    g.where = where;
+    g.what = what;
     return g;
   }
 
@@ -343,5 +342,15 @@ class Mesher {
 }  // namespace
 
 WireMesh mesh_wires(const Model& model) { return Mesher(model).run(); }
+
+void require_current_at_gaps(const WireMesh& mesh, const std::vector<bool>& attached) {
+  for (const auto* gaps : {&mesh.port_gaps, &mesh.load_gaps})
+    for (const Gap& g : *gaps) {
+      const MeshNode& node = mesh.nodes[g.node];
+      if (node.ends.size() == 1 && !node.on_ground && (attached.empty() || !attached[g.node]))
+        throw InputError(g.where, g.what + " sits on a free end of a wire; no current flows there. Put it inside the "
+                                           "wire, at a junction, on the ground or where the wire meets a plate");
+    }
+}
 
 }  // namespace lobe

@@ -39,6 +39,8 @@ struct MeshNode {
 struct Gap {
   SegmentEnd at;
   int node = 0;
+  SourceLocation where;  ///< of the port or load
+  std::string what;      ///< "port NAME" or "load NAME"
 };
 
 struct MeshWarning {
@@ -49,7 +51,7 @@ struct MeshWarning {
 struct WireMesh {
   std::vector<Segment> segments;
   std::vector<MeshNode> nodes;
-  std::vector<Gap> port_gaps;  ///< one per Model::ports, same order
+  std::vector<Gap> port_gaps;  ///< one per wire port of Model::ports, same order
   std::vector<Gap> load_gaps;  ///< one per Model::loads, same order
   std::vector<MeshWarning> warnings;
   int junction_count = 0;      ///< nodes where three or more ends meet, or a wire meets the ground
@@ -60,5 +62,9 @@ struct WireMesh {
 /// where they touch. Throws InputError for geometry that cannot be solved; warns for
 /// geometry that is solvable but questionable.
 WireMesh mesh_wires(const Model& model);
+
+/// Throws InputError for a port or load on a free wire end, where no current can flow;
+/// `attached[node]` marks nodes joined to a surface (empty: none are).
+void require_current_at_gaps(const WireMesh& mesh, const std::vector<bool>& attached);
 
 }  // namespace lobe

@@ -5,6 +5,7 @@
 #include "core/constants.hpp"
 #include "solver/gauss_legendre.hpp"
 #include "solver/phase_factor.hpp"
+#include "solver/triangle_rules.hpp"
 
 namespace lobe {
 namespace {
@@ -12,15 +13,22 @@ namespace {
 /// Points per segment; exact to rounding for the linear current times the phase
 /// e^{jk r̂·r'} over segments up to about a quarter wavelength.
 constexpr int points_per_segment = 6;
+/// Duffy points per direction on each junction-star triangle (smooth in those coordinates).
+constexpr int points_per_star_direction = 6;
 
 }  // namespace
 
-FarField::FarField(const WireMesh& mesh, const FrequencySolution& solution, bool ground_perfect)
+FarField::FarField(const AntennaProblem& problem, const FrequencySolution& solution)
     : m_k(2 * pi * solution.frequency_hz / speed_of_light), m_omega(2 * pi * solution.frequency_hz),
-      m_ground(ground_perfect) {
+      m_ground(problem.model.ground_perfect) {
+  const WireMesh& mesh = problem.mesh;
+  const SurfaceMesh& surface = problem.surfaces.mesh;
   for (const auto& s : mesh.segments) m_centre += s.midpoint();
-  if (!mesh.segments.empty()) m_centre /= static_cast<Real>(mesh.segments.size());
+  for (std::size_t t = 0; t < surface.triangles.size(); ++t) m_centre += surface.centroid(static_cast<int>(t));
+  const std::size_t elements = mesh.segments.size() + surface.triangles.size();
+  if (elements > 0) m_centre /= static_cast<Real>(elements);
   if (m_ground) m_centre.z() = 0.0;  // images make the source symmetric about z = 0
+
   const QuadratureRule& rule = gauss_legendre(points_per_segment);
   for (std::size_t s = 0; s < mesh.segments.size(); ++s) {
     const Segment& seg = mesh.segments[s];
@@ -29,17 +37,27 @@ FarField::FarField(const WireMesh& mesh, const FrequencySolution& solution, bool
     for (int q = 0; q < points_per_segment; ++q) {
       const Real xi = rule.nodes[q];
       const Complex current = c[0] * (1.0 - xi) + c[1] * xi;
-      const Vec3 x = seg.start + xi * (seg.end - seg.start) - m_centre;
-      const Complex weight = current * (rule.weights[q] * seg.length());
-      add_point(x, weight * u.cast<Complex>());
-      m_extent = std::max(m_extent, x.norm());
-      if (m_ground) {
-        // Image of a current element over a perfect conductor: mirrored position,
-        // horizontal components reversed, vertical kept.
-        const Vec3 image_direction(-u.x(), -u.y(), u.z());
-        add_point(Vec3(x.x(), x.y(), -x.z()), weight * image_direction.cast<Complex>());
-      }
+      add_source(seg.start + xi * (seg.end - seg.start) - m_centre, (current * (rule.weights[q] * seg.length())) * u.cast<Complex>());
     }
+  }
+  const TriangleRule& area_rule = triangle_rule_degree5();
+  for (std::size_t t = 0; t < surface.triangles.size(); ++t) {
+    const int ti = static_cast<int>(t);
+    for (std::size_t q = 0; q < area_rule.points.size(); ++q) {
+      const auto& b = area_rule.points[q];
+      const Vec3 r = b[0] * surface.corner(ti, 0) + b[1] * surface.corner(ti, 1) + b[2] * surface.corner(ti, 2);
+      Eigen::Vector3cd moment = Eigen::Vector3cd::Zero();
+      for (const RwgPiece& piece : problem.rwg.pieces_on(ti))
+        moment += (piece.coefficient * solution.coefficients[piece.basis] * area_rule.weights[q] * surface.area(ti)) *
+                  (r - surface.corner(ti, piece.free_corner)).cast<Complex>();
+      if (!problem.rwg.pieces_on(ti).empty()) add_source(r - m_centre, moment);
+    }
+  }
+  for (const JunctionStar& star : problem.stars) {
+    Complex current = 0.0;
+    for (int b : star.bases) current += solution.coefficients[b];
+    for (const StarSample& sample : star_samples(star, points_per_star_direction))
+      add_source(sample.r - m_centre, current * sample.current.cast<Complex>());
   }
 }
 
@@ -51,6 +69,14 @@ void FarField::add_point(const Vec3& x, const Eigen::Vector3cd& moment) {
     m_moment_re[c].push_back(moment[c].real());
     m_moment_im[c].push_back(moment[c].imag());
   }
+  m_extent = std::max(m_extent, x.norm());
+}
+
+void FarField::add_source(const Vec3& x, const Eigen::Vector3cd& moment) {
+  add_point(x, moment);
+  // Image of a current element over a perfect conductor (m_centre lies on it): mirrored
+  // position, horizontal components reversed, vertical kept.
+  if (m_ground) add_point({x.x(), x.y(), -x.z()}, Eigen::Vector3cd(-moment[0], -moment[1], moment[2]));
 }
 
 FarFieldSample FarField::at(Real theta, Real phi) const {

@@ -3,8 +3,7 @@
 #include <array>
 #include <vector>
 
-#include "geometry/wire_mesh.hpp"
-#include "solver/wire_problem.hpp"
+#include "solver/antenna_problem.hpp"
 
 namespace lobe {
 
@@ -15,12 +14,12 @@ struct FarFieldSample {
   Complex e_phi;
 };
 
-/// Radiation from the current on every segment (and its image over a perfect ground,
-/// where the field below z = 0 is zero). Precomputes quadrature points once; then each
-/// direction costs O(S).
+/// Radiation from the current on every segment, triangle and junction star (and their
+/// images over a perfect ground, where the field below z = 0 is zero). Precomputes
+/// quadrature points once; then each direction costs O(S + T).
 class FarField {
  public:
-  FarField(const WireMesh& mesh, const FrequencySolution& solution, bool ground_perfect);
+  FarField(const AntennaProblem& problem, const FrequencySolution& solution);
   /// θ from +z, φ from +x toward +y, radians.
   FarFieldSample at(Real theta, Real phi) const;
   /// Radiation intensity U = r²|E|²/(2η0), W/sr.
@@ -40,7 +39,10 @@ class FarField {
   std::vector<Real> m_x, m_y, m_z;
   std::array<std::vector<Real>, 3> m_moment_re, m_moment_im;
 
+  /// A current moment (A·m) at x, relative to m_centre.
   void add_point(const Vec3& x, const Eigen::Vector3cd& moment);
+  /// The same and, over a ground, its image.
+  void add_source(const Vec3& x, const Eigen::Vector3cd& moment);
 };
 
 }  // namespace lobe

@@ -11,7 +11,7 @@ Real to_dbi(Real ratio) {
   return std::max(gain_floor_dbi, 10.0 * std::log10(ratio));
 }
 
-FrequencyResult evaluate_frequency(const WireProblem& problem, const FrequencySolution& solution) {
+FrequencyResult evaluate_frequency(const AntennaProblem& problem, const FrequencySolution& solution) {
   FrequencyResult result;
   const Real z0 = problem.model.reference_ohm;
   result.frequency_hz = solution.frequency_hz;
@@ -21,7 +21,7 @@ FrequencyResult evaluate_frequency(const WireProblem& problem, const FrequencySo
   result.segment_currents = solution.segment_currents;
   result.report = solution.report;
 
-  const FarField field(problem.mesh, solution, problem.model.ground_perfect);
+  const FarField field(problem, solution);
   result.power = power_budget(problem, solution);
   result.power.radiated = field.radiated_power();
 

@@ -38,7 +38,7 @@ struct FrequencyResult {
 
 /// Ports, powers and the pattern on the model's grid (OpenMP-parallel over directions).
 /// Throws NumericalError if any of it is not finite.
-FrequencyResult evaluate_frequency(const WireProblem& problem, const FrequencySolution& solution);
+FrequencyResult evaluate_frequency(const AntennaProblem& problem, const FrequencySolution& solution);
 
 /// Throws NumericalError when any reported figure is not finite, so that nothing
 /// non-finite is ever written.

@@ -246,7 +246,7 @@ void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
   Handle solver = group(file, "solver");
   write_reals(solver, "reciprocal_condition", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.report.reciprocal_condition; }), "1");
   write_reals(solver, "relative_residual", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.report.relative_residual; }), "1");
-  int_attribute(solver, "unknowns", run.problem.basis.size());
+  int_attribute(solver, "unknowns", run.problem.unknowns());
   int_attribute(solver, "segments", static_cast<long>(run.problem.mesh.segments.size()));
   check(H5Fflush(file, H5F_SCOPE_GLOBAL));
 }

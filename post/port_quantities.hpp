@@ -2,7 +2,7 @@
 /// Port impedance, reflection, VSWR and the multi-port Z and S matrices.
 #include <vector>
 
-#include "solver/wire_problem.hpp"
+#include "solver/antenna_problem.hpp"
 
 namespace lobe {
 

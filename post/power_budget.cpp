@@ -5,7 +5,7 @@
 
 namespace lobe {
 
-PowerBudget power_budget(const WireProblem& problem, const FrequencySolution& solution) {
+PowerBudget power_budget(const AntennaProblem& problem, const FrequencySolution& solution) {
   PowerBudget budget;
   budget.accepted = 0.5 * solution.port_voltages.dot(solution.port_currents).real();
   for (std::size_t s = 0; s < problem.mesh.segments.size(); ++s) {

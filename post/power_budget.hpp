@@ -1,6 +1,6 @@
 #pragma once
 /// Where the power delivered to the ports goes.
-#include "solver/wire_problem.hpp"
+#include "solver/antenna_problem.hpp"
 
 namespace lobe {
 
@@ -16,6 +16,6 @@ struct PowerBudget {
 };
 
 /// Accepted power and losses; `radiated` is left to the caller (see FarField).
-PowerBudget power_budget(const WireProblem& problem, const FrequencySolution& solution);
+PowerBudget power_budget(const AntennaProblem& problem, const FrequencySolution& solution);
 
 }  // namespace lobe

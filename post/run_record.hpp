@@ -14,7 +14,7 @@ struct RunInfo {
 };
 
 struct RunRecord {
-  const WireProblem& problem;
+  const AntennaProblem& problem;
   std::vector<FrequencyResult> results;
   RunInfo info;
 };

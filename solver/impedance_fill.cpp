@@ -22,7 +22,7 @@ constexpr Real slope[2] = {-1.0, 1.0};
 
 void add_wire_impedance(const WireMesh& mesh, const WireBasis& basis, bool ground_perfect, Real frequency_hz,
                         ComplexMatrix& z) {
-  LOBE_CHECK(z.rows() == basis.size() && z.cols() == basis.size(), "impedance matrix of the wrong size");
+  LOBE_CHECK(z.rows() >= basis.size() && z.cols() == z.rows(), "impedance matrix of the wrong size");
   const Real omega = 2 * pi * frequency_hz;
   const Real k = omega / speed_of_light;
   const Complex vector_factor = j_unit * omega * mu0;

@@ -16,15 +16,30 @@ struct RwgPiece {
   Real coefficient = 0;  ///< 1/m
 };
 
-/// One function per interior edge shared by exactly two triangles.
+/// The edge of one RWG function: vertices a < b, the triangle current leaves (plus) and
+/// the one it enters (minus).
+struct RwgEdge {
+  int a = 0, b = 0;
+  int plus = 0, minus = 0;
+  Real length = 0.0;  ///< m
+};
+
+/// One function per interior edge shared by exactly two triangles, numbered from `first`
+/// (so that surface unknowns can follow wire unknowns in one matrix).
 class RwgBasis {
  public:
-  explicit RwgBasis(const SurfaceMesh& mesh);
-  int size() const { return m_count; }
+  explicit RwgBasis(const SurfaceMesh& mesh, int first = 0);
+  int size() const { return static_cast<int>(m_edges.size()); }
+  int first() const { return m_first; }
   const std::vector<RwgPiece>& pieces_on(int triangle) const { return m_by_triangle[triangle]; }
+  /// Edge of function first() + i.
+  const RwgEdge& edge(int i) const { return m_edges[i]; }
+  /// The function on the edge between vertices a and b, or −1 when that is no interior edge.
+  int function_on(int a, int b) const;
 
  private:
-  int m_count = 0;
+  int m_first = 0;
+  std::vector<RwgEdge> m_edges;
   std::vector<std::vector<RwgPiece>> m_by_triangle;
 };
 

@@ -10,8 +10,13 @@
 #include "solver/triangle_rules.hpp"
 
 namespace lobe {
-void add_surface_impedance(const SurfaceMesh& mesh, const RwgBasis& basis, Real frequency_hz, ComplexMatrix& z) {
-  LOBE_CHECK(z.rows() == basis.size() && z.cols() == basis.size(), "impedance matrix of the wrong size");
+void add_surface_impedance(const SurfaceMesh& mesh, const RwgBasis& basis, bool ground_perfect, Real frequency_hz,
+                           ComplexMatrix& z) {
+  LOBE_CHECK(z.rows() >= basis.first() + basis.size() && z.cols() == z.rows(), "impedance matrix of the wrong size");
+  // The image of f = c (r − v) on a triangle mirrored in z = 0 is c (r' − v') on the
+  // mirrored triangle, with the charge and the vector potential negated.
+  SurfaceMesh image = mesh;
+  for (Vec3& v : image.vertices) v.z() = -v.z();
   const Real omega = 2 * pi * frequency_hz;
   const Real k = omega / speed_of_light;
   const Complex vector_factor = j_unit * omega * mu0;
@@ -24,6 +29,12 @@ void add_surface_impedance(const SurfaceMesh& mesh, const RwgBasis& basis, Real 
         for (int q = p; q < count; ++q) {
           if (basis.pieces_on(q).empty()) continue;
           TrianglePairIntegrals integrals = triangle_pair_integrals(mesh, p, q, k);
+          if (ground_perfect) {
+            // G(r, M r') is symmetric in the pair, so the image term keeps Z symmetric.
+            const TrianglePairIntegrals mirrored = triangle_pair_integrals(mesh, p, image, q, k);
+            integrals.vector -= mirrored.vector;
+            integrals.scalar -= mirrored.scalar;
+          }
           if (p == q) integrals.vector = (0.5 * (integrals.vector + integrals.vector.transpose())).eval();
           for (const RwgPiece& pm : basis.pieces_on(p))
             for (const RwgPiece& pn : basis.pieces_on(q)) {
@@ -45,7 +56,7 @@ ComplexVector plane_wave_excitation(const SurfaceMesh& mesh, const RwgBasis& bas
   const Vec3 r_hat(st * cp, st * sp, ct);
   const Vec3 polarization = theta_polarized ? Vec3(ct * cp, ct * sp, -st) : Vec3(-sp, cp, 0.0);
   const TriangleRule& rule = triangle_rule_degree5();
-  ComplexVector v = ComplexVector::Zero(basis.size());
+  ComplexVector v = ComplexVector::Zero(basis.first() + basis.size());
   for (std::size_t t = 0; t < mesh.triangles.size(); ++t) {
     const int ti = static_cast<int>(t);
     for (std::size_t a = 0; a < rule.points.size(); ++a) {

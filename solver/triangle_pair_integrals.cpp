@@ -29,8 +29,37 @@ Triangle triangle_of(const SurfaceMesh& mesh, int t) {
 
 }  // namespace
 
+PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const Vec3& q1, const Vec3& q2, Real area,
+                                          Real k, bool near) {
+  const TriangleRule& rule = triangle_rule_degree5();
+  PointPotentials result;
+  if (near) {
+    const StaticPotentials s = triangle_static_potentials(r, q0, q1, q2);
+    const Vec3 normal = (q1 - q0).cross(q2 - q0).normalized();
+    const Vec3 rho = r - normal.dot(r - q0) * normal;
+    result.scalar += s.scalar;
+    result.moment += (s.vector + rho * s.scalar).cast<Complex>();  // ∫ r'/R = ∫ (r' − ρ)/R + ρ ∫ 1/R
+  }
+  for (std::size_t b = 0; b < rule.points.size(); ++b) {
+    const auto& w = rule.points[b];
+    const Vec3 x = w[0] * q0 + w[1] * q1 + w[2] * q2;
+    const Real distance = (r - x).norm();
+    const Complex g = rule.weights[b] * area * (near ? smooth_kernel(k, distance) : std::polar(1.0 / distance, -k * distance));
+    result.scalar += g;
+    result.moment += g * x.cast<Complex>();
+  }
+  result.scalar /= 4 * pi;
+  result.moment /= 4 * pi;
+  return result;
+}
+
 TrianglePairIntegrals triangle_pair_integrals(const SurfaceMesh& mesh, int observer, int source, Real k) {
-  const Triangle p = triangle_of(mesh, observer), q = triangle_of(mesh, source);
+  return triangle_pair_integrals(mesh, observer, mesh, source, k);
+}
+
+TrianglePairIntegrals triangle_pair_integrals(const SurfaceMesh& observers, int observer, const SurfaceMesh& sources,
+                                              int source, Real k) {
+  const Triangle p = triangle_of(observers, observer), q = triangle_of(sources, source);
   const TriangleRule& rule = triangle_rule_degree5();
   const std::size_t n = rule.points.size();
   const Real distance = ((p.corners[0] + p.corners[1] + p.corners[2]) - (q.corners[0] + q.corners[1] + q.corners[2])).norm() / 3.0;
@@ -39,32 +68,9 @@ TrianglePairIntegrals triangle_pair_integrals(const SurfaceMesh& mesh, int obser
   for (std::size_t a = 0; a < n; ++a) {
     const Vec3 r = p.point(rule.points[a]);
     const Real wa = rule.weights[a] * p.area;
-    // Inner integrals over Q at r: ∫ G dS' and ∫ G (r' − q_j) dS' for each corner j.
-    Complex inner_scalar = 0.0;
-    Eigen::Vector3cd inner_moment = Eigen::Vector3cd::Zero();  // ∫ G r' dS'
-    if (near) {
-      const StaticPotentials s = triangle_static_potentials(r, q.corners[0], q.corners[1], q.corners[2]);
-      const Vec3 normal = (q.corners[1] - q.corners[0]).cross(q.corners[2] - q.corners[0]).normalized();
-      const Vec3 rho = r - normal.dot(r - q.corners[0]) * normal;
-      inner_scalar += s.scalar;
-      inner_moment += (s.vector + rho * s.scalar).cast<Complex>();  // ∫ r'/R = ∫ (r' − ρ)/R + ρ ∫ 1/R
-      for (std::size_t b = 0; b < n; ++b) {
-        const Vec3 x = q.point(rule.points[b]);
-        const Complex g = rule.weights[b] * q.area * smooth_kernel(k, (r - x).norm());
-        inner_scalar += g;
-        inner_moment += g * x.cast<Complex>();
-      }
-    } else {
-      for (std::size_t b = 0; b < n; ++b) {
-        const Vec3 x = q.point(rule.points[b]);
-        const Real distance_ab = (r - x).norm();
-        const Complex g = rule.weights[b] * q.area * std::polar(1.0 / distance_ab, -k * distance_ab);
-        inner_scalar += g;
-        inner_moment += g * x.cast<Complex>();
-      }
-    }
-    inner_scalar /= 4 * pi;
-    inner_moment /= 4 * pi;
+    const PointPotentials inner = triangle_point_potentials(r, q.corners[0], q.corners[1], q.corners[2], q.area, k, near);
+    const Complex inner_scalar = inner.scalar;
+    const Eigen::Vector3cd& inner_moment = inner.moment;
     result.scalar += wa * inner_scalar;
     for (int i = 0; i < 3; ++i) {
       const Vec3 from_corner = r - p.corners[i];

@@ -13,9 +13,24 @@ struct TrianglePairIntegrals {
   Complex scalar = 0.0;
 };
 
+/// The potentials of uniform and linear sources on one triangle at a point r:
+/// scalar = ∫_Q G dS' (m) and moment = ∫_Q G r' dS' (m²), G = e^{−jkR}/(4πR). With `near`,
+/// the static 1/R part is integrated in closed form (Wilton et al. 1984) and the smooth rest
+/// with the 7-point rule, which is accurate at any r, on Q or not; otherwise 7 points.
+struct PointPotentials {
+  Complex scalar = 0.0;
+  Eigen::Vector3cd moment = Eigen::Vector3cd::Zero();
+};
+PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const Vec3& q1, const Vec3& q2, Real area,
+                                          Real k, bool near);
+
 /// Near pairs (centroids closer than two triangle sizes) integrate the static 1/R part over
 /// Q in closed form (Wilton et al. 1984) and the smooth (e^{−jkR} − 1)/R part, and the
 /// outer integral over P, with the 7-point degree-5 rule; far pairs use 7 × 7 points.
 TrianglePairIntegrals triangle_pair_integrals(const SurfaceMesh& mesh, int observer, int source, Real k);
+
+/// The same with the source triangle taken from another mesh (an image mesh).
+TrianglePairIntegrals triangle_pair_integrals(const SurfaceMesh& observers, int observer, const SurfaceMesh& sources,
+                                              int source, Real k);
 
 }  // namespace lobe

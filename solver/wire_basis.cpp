@@ -2,10 +2,19 @@
 
 namespace lobe {
 
-WireBasis::WireBasis(const WireMesh& mesh) : m_by_segment(mesh.segments.size()) {
+WireBasis::WireBasis(const WireMesh& mesh, const std::vector<bool>& attached)
+    : m_by_segment(mesh.segments.size()), m_into_surface(mesh.nodes.size()) {
   // Current into a node on a segment end is positive when that end is the segment's end.
   auto into_node = [](const SegmentEnd& e) { return e.end == 1 ? 1.0 : -1.0; };
-  for (const auto& node : mesh.nodes) {
+  for (std::size_t n = 0; n < mesh.nodes.size(); ++n) {
+    const MeshNode& node = mesh.nodes[n];
+    if (!attached.empty() && attached[n]) {
+      for (const auto& e : node.ends) {
+        m_by_segment[e.segment].push_back({m_count, e.end, into_node(e)});
+        m_into_surface[n].push_back(m_count++);
+      }
+      continue;
+    }
     if (node.on_ground) {
       for (const auto& e : node.ends) {
         m_by_segment[e.segment].push_back({m_count, e.end, -into_node(e)});

@@ -17,10 +17,14 @@ struct BasisPiece {
 /// The unknowns of a wire mesh. At a node where k ends meet there are k−1 functions, each
 /// carrying current from the first end into another (Kirchhoff's law holds by
 /// construction); a node on a perfect ground has one half function per end, completed by
-/// its image.
+/// its image; a node attached to a surface has one function per end, carrying current from
+/// that end into the surface (completed by a junction star, solver/junction_star.hpp).
 class WireBasis {
  public:
-  explicit WireBasis(const WireMesh& mesh);
+  /// `attached[node]` marks nodes that lie on a surface mesh vertex (empty: none do).
+  explicit WireBasis(const WireMesh& mesh, const std::vector<bool>& attached = {});
+  /// The junction functions of an attached node, in the order of its ends.
+  const std::vector<int>& functions_into_surface(int node) const { return m_into_surface[node]; }
   int size() const { return m_count; }
   /// The pieces lying on segment s.
   const std::vector<BasisPiece>& pieces_on(int segment) const { return m_by_segment[segment]; }
@@ -31,6 +35,7 @@ class WireBasis {
  private:
   int m_count = 0;
   std::vector<std::vector<BasisPiece>> m_by_segment;
+  std::vector<std::vector<int>> m_into_surface;
 };
 
 }  // namespace lobe

@@ -107,6 +107,37 @@ TEST(SurfaceMesher, TouchingPlatesShareTheirEdge) {
   EXPECT_NEAR(total_area(r.mesh), 0.12 + 0.08, 1e-12);
 }
 
+// A wire end on a plate becomes a mesh vertex; one off the plate does not.
+TEST(SurfaceMesher, PointsOnAPlateBecomeVertices) {
+  MeshConstraints constraints;
+  constraints.points = {{0.123, 0.071, 0.0}, {0.2, 0.1, 0.05}};
+  const SurfaceMeshReport r = mesh_surfaces({rectangle("p", {0, 0, 0}, 0.4, 0.3, {0, 0, 1}, 0.05)}, constraints);
+  ASSERT_EQ(r.point_vertex.size(), 2u);
+  ASSERT_GE(r.point_vertex[0], 0);
+  EXPECT_LT((r.mesh.vertices[r.point_vertex[0]] - constraints.points[0]).norm(), 1e-12);
+  EXPECT_EQ(r.point_vertex[1], -1);
+  EXPECT_NEAR(total_area(r.mesh), 0.12, 1e-12);
+}
+
+// A port line across a strip is laid along mesh edges that cover it end to end, each an
+// interior edge of the plate.
+TEST(SurfaceMesher, LinesAcrossAPlateFollowMeshEdges) {
+  MeshConstraints constraints;
+  constraints.lines = {{{0.2, 0.0, 0.0}, {0.2, 0.03, 0.0}}};
+  const SurfaceMeshReport r = mesh_surfaces({rectangle("strip", {0, 0, 0}, 0.4, 0.03, {0, 0, 1}, 0.01)}, constraints);
+  ASSERT_EQ(r.line_edges.size(), 1u);
+  ASSERT_FALSE(r.line_edges[0].empty());
+  Real covered = 0.0;
+  const auto use = edge_use(r.mesh);
+  for (const auto& [a, b] : r.line_edges[0]) {
+    EXPECT_NEAR(r.mesh.vertices[a].x(), 0.2, 1e-12);
+    EXPECT_NEAR(r.mesh.vertices[b].x(), 0.2, 1e-12);
+    covered += (r.mesh.vertices[a] - r.mesh.vertices[b]).norm();
+    EXPECT_EQ(use.at({std::min(a, b), std::max(a, b)}), 2);
+  }
+  EXPECT_NEAR(covered, 0.03, 1e-12);
+}
+
 TEST(SurfaceMesher, NonPlanarPolygonIsAnInputError) {
   SurfaceShape s;
   s.name = "bent";

@@ -109,8 +109,9 @@ TEST(WireMesh, NoWiresGiveAnEmptyMesh) {
 }
 
 TEST(WireMesh, PortOnAFreeEndIsAnError) {
-  EXPECT_THROW(mesh_of("wire a from (0,0,0) to (1,0,0) radius 1 mm\nport p on a at start\nfrequency 100 MHz\n"),
-               InputError);
+  const WireMesh mesh = mesh_of("wire a from (0,0,0) to (1,0,0) radius 1 mm\nport p on a at start\nfrequency 100 MHz\n");
+  EXPECT_THROW(require_current_at_gaps(mesh, {}), InputError);
+  EXPECT_NO_THROW(require_current_at_gaps(mesh, std::vector<bool>(mesh.nodes.size(), true)));
 }
 
 }  // namespace

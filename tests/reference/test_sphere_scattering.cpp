@@ -23,7 +23,7 @@ struct SphereCase {
   SphereCase(Real size_parameter, int levels)
       : ka(size_parameter), radius(ka / (2 * pi)), mesh(icosphere(radius, levels)), basis(mesh) {
     DenseSymmetricMatrix matrix(basis.size());
-    add_surface_impedance(mesh, basis, frequency, matrix.entries());
+    add_surface_impedance(mesh, basis, false, frequency, matrix.entries());
     matrix.factor();
     SolveReport report;
     currents = matrix.solve(plane_wave_excitation(mesh, basis, frequency, 0.0, 0.0, true), report);

@@ -3,7 +3,7 @@
 #include "geometry/model_parser.hpp"
 #include "solver/dense_symmetric_matrix.hpp"
 #include "solver/impedance_fill.hpp"
-#include "solver/wire_problem.hpp"
+#include "solver/antenna_problem.hpp"
 
 namespace lobe {
 namespace {
@@ -19,7 +19,7 @@ const char* branched =
 // Galerkin testing with a symmetric kernel gives Z_mn = Z_nm (reciprocity); 1e-6 relative.
 TEST(MatrixProperties, GalerkinFillIsSymmetric) {
   const Model model = parse_model(branched, "m");
-  const WireProblem problem(model);
+  const AntennaProblem problem(model);
   ComplexMatrix z = ComplexMatrix::Zero(problem.basis.size(), problem.basis.size());
   add_wire_impedance(problem.mesh, problem.basis, true, 400e6, z);
   EXPECT_LE((z - z.transpose()).norm(), 1e-6 * z.norm());
@@ -30,7 +30,7 @@ TEST(MatrixProperties, GalerkinFillIsSymmetric) {
 // construction of the junction basis.
 TEST(MatrixProperties, JunctionCurrentsSumToZero) {
   const Model model = parse_model(branched, "m");
-  const WireProblem problem(model);
+  const AntennaProblem problem(model);
   const FrequencySolution s = solve_frequency(problem, 400e6);
   for (const auto& node : problem.mesh.nodes) {
     if (node.on_ground || node.ends.size() < 3) continue;

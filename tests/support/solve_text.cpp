@@ -11,7 +11,7 @@ namespace lobe::testing {
 Solved solve_text(const std::string& text) {
   Solved s;
   s.model = std::make_unique<Model>(parse_model(text, "test"));
-  s.problem = std::make_unique<WireProblem>(*s.model);
+  s.problem = std::make_unique<AntennaProblem>(*s.model);
   s.solution = solve_frequency(*s.problem, s.model->frequencies_hz.front());
   s.result = evaluate_frequency(*s.problem, s.solution);
   return s;
@@ -34,7 +34,7 @@ void expect_power_balance(const Solved& solved) {
 }
 
 Real peak_directivity(const Solved& solved) {
-  const FarField field(solved.problem->mesh, solved.solution, solved.model->ground_perfect);
+  const FarField field(*solved.problem, solved.solution);
   const Real radiated = field.radiated_power();
   Real best = 0.0;
   for (int i = 0; i <= 1800; ++i) best = std::max(best, 4 * pi * field.intensity(pi * i / 1800.0, 0.0) / radiated);

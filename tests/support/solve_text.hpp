@@ -15,7 +15,7 @@ constexpr Real one_metre_wavelength_hz = 299792458.0;
 /// A model with its problem and its solution at the model's first frequency.
 struct Solved {
   std::unique_ptr<Model> model;
-  std::unique_ptr<WireProblem> problem;
+  std::unique_ptr<AntennaProblem> problem;
   FrequencySolution solution;
   FrequencyResult result;
   Complex port_impedance(int port = 0) const { return result.ports[port].impedance; }

@@ -1,0 +1,225 @@
+#include "solver/antenna_problem.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+#include "solver/coupling_fill.hpp"
+#include "solver/dense_symmetric_matrix.hpp"
+#include "solver/impedance_fill.hpp"
+#include "solver/lumped_load.hpp"
+#include "solver/surface_fill.hpp"
+
+namespace lobe {
+namespace {
+
+/// Wire ends and junctions must become surface vertices where they touch a plate, and
+/// plate ports need mesh edges along their lines.
+MeshConstraints constraints_of(const Model& model, const WireMesh& mesh) {
+  MeshConstraints c;
+  if (model.surfaces.empty()) return c;
+  for (const auto& node : mesh.nodes)
+    if (node.ends.size() != 2 && !node.on_ground) c.points.push_back(node.position);
+  for (const auto& p : model.ports)
+    if (p.line) c.lines.push_back({p.line->from, p.line->to});
+  return c;
+}
+
+/// Distance from p to the triangle (a, b, c): to the plane inside, else to the nearest edge.
+Real distance_to_triangle(const Vec3& p, const Vec3& a, const Vec3& b, const Vec3& c) {
+  const Vec3 n = (b - a).cross(c - a).normalized();
+  const Vec3 q = p - n.dot(p - a) * n;
+  const bool inside = (b - a).cross(q - a).dot(n) >= 0 && (c - b).cross(q - b).dot(n) >= 0 && (a - c).cross(q - c).dot(n) >= 0;
+  if (inside) return std::abs(n.dot(p - a));
+  auto to_edge = [&](const Vec3& x, const Vec3& y) {
+    const Real t = std::clamp((p - x).dot(y - x) / (y - x).squaredNorm(), 0.0, 1.0);
+    return (p - x - t * (y - x)).norm();
+  };
+  return std::min({to_edge(a, b), to_edge(b, c), to_edge(c, a)});
+}
+
+std::string millimetres(Real metres) {
+  char text[64];
+  std::snprintf(text, sizeof text, "%.3g mm", metres * 1e3);
+  return text;
+}
+
+/// The plate's normal as given, turned and mirrored with the plate.
+Vec3 plate_normal(const SurfaceShape& shape) {
+  Vec3 n = shape.normal;
+  if (shape.kind == SurfaceKind::polygon) n = (shape.polygon[1] - shape.polygon[0]).cross(shape.polygon[2] - shape.polygon[0]);
+  return (shape.transform.linear() * n).normalized();
+}
+
+int shape_index(const Model& model, const std::string& name) {
+  for (std::size_t s = 0; s < model.surfaces.size(); ++s)
+    if (model.surfaces[s].name == name) return static_cast<int>(s);
+  return -1;
+}
+
+void check_surfaces_above_ground(const Model& model, const SurfaceMeshReport& surfaces) {
+  if (!model.ground_perfect) return;
+  for (std::size_t t = 0; t < surfaces.mesh.triangles.size(); ++t)
+    for (int v : surfaces.mesh.triangles[t])
+      if (surfaces.mesh.vertices[v].z() <= 0.0) {
+        const SurfaceShape& shape = model.surfaces[surfaces.region[t]];
+        throw InputError(shape.where, "'" + shape.name + "' touches or dips below the ground plane z = 0; plates and "
+                                      "bodies over a ground must lie wholly above it");
+      }
+}
+
+/// Attached nodes; refuses a free wire end that stops short of a plate by less than a
+/// segment, which is almost always a modelling slip that the solver would take literally.
+std::vector<bool> attached_nodes(const Model& model, const WireMesh& mesh, const SurfaceMeshReport& surfaces) {
+  std::vector<bool> attached(mesh.nodes.size(), false);
+  std::size_t point = 0;
+  for (std::size_t n = 0; n < mesh.nodes.size() && !model.surfaces.empty(); ++n) {
+    const MeshNode& node = mesh.nodes[n];
+    if (node.ends.size() == 2 || node.on_ground) continue;
+    attached[n] = surfaces.point_vertex[point++] >= 0;
+    if (attached[n] || node.ends.size() != 1) continue;
+    const Segment& seg = mesh.segments[node.ends.front().segment];
+    for (std::size_t t = 0; t < surfaces.mesh.triangles.size(); ++t) {
+      const int ti = static_cast<int>(t);
+      const Real gap = distance_to_triangle(node.position, surfaces.mesh.corner(ti, 0), surfaces.mesh.corner(ti, 1),
+                                            surfaces.mesh.corner(ti, 2));
+      if (gap < seg.length()) {
+        const Wire& wire = model.wires[seg.wire];
+        throw InputError(wire.where, "wire '" + wire.name + "' ends " + millimetres(gap) + " from '" +
+                                         model.surfaces[surfaces.region[t]].name +
+                                         "' without touching it; end it on the surface or at least a segment (" +
+                                         millimetres(seg.length()) + ") away");
+      }
+    }
+  }
+  return attached;
+}
+
+/// The coupling of a plate port: edge length times ±1 on every RWG function across its line.
+Eigen::VectorXd line_vector(const Model& model, const Port& port, const std::vector<std::array<int, 2>>& edges,
+                            const SurfaceMeshReport& surfaces, const RwgBasis& rwg, int unknowns) {
+  Eigen::VectorXd p = Eigen::VectorXd::Zero(unknowns);
+  const int plate = shape_index(model, port.line->plate);
+  const Vec3 across = (port.line->to - port.line->from).cross(plate_normal(model.surfaces[plate]));
+  for (const auto& [a, b] : edges) {
+    const int function = rwg.function_on(a, b);
+    if (function < 0) continue;
+    const RwgEdge& edge = rwg.edge(function - rwg.first());
+    if (surfaces.region[edge.plus] != plate || surfaces.region[edge.minus] != plate) continue;
+    const Vec3 flow = surfaces.mesh.centroid(edge.minus) - surfaces.mesh.centroid(edge.plus);
+    p[function] = (flow.dot(across) > 0.0 ? 1.0 : -1.0) * edge.length;
+  }
+  if (p.isZero())
+    throw InputError(port.where, "port '" + port.name + "': its line does not run across plate '" + port.line->plate +
+                                     "' (it must lie in the plate, inside its outline)");
+  return p;
+}
+
+}  // namespace
+
+AntennaProblem::AntennaProblem(const Model& m)
+    : model(m),
+      mesh(mesh_wires(m)),
+      surfaces(mesh_model_surfaces(m, constraints_of(m, mesh))),
+      basis(mesh, attached_nodes(m, mesh, surfaces)),
+      rwg(surfaces.mesh, basis.size()) {
+  check_surfaces_above_ground(m, surfaces);
+  require_current_at_gaps(mesh, attached_nodes(m, mesh, surfaces));
+  std::size_t point = 0;
+  for (std::size_t n = 0; n < mesh.nodes.size() && !m.surfaces.empty(); ++n) {
+    if (mesh.nodes[n].ends.size() == 2 || mesh.nodes[n].on_ground) continue;
+    const int vertex = surfaces.point_vertex[point++];
+    if (vertex < 0) continue;
+    stars.push_back(junction_star(surfaces.mesh, vertex));
+    stars.back().bases = basis.functions_into_surface(static_cast<int>(n));
+  }
+  if (unknowns() == 0) throw InputError({m.file, 1, 1}, "the model has no place for current to flow (no unknowns)");
+  require_dense_memory(m, unknowns());
+  port_vectors.resize(unknowns(), static_cast<Eigen::Index>(m.ports.size()));
+  std::size_t line = 0, gap = 0;
+  for (std::size_t p = 0; p < m.ports.size(); ++p) {
+    if (m.ports[p].line) {
+      port_vectors.col(p) = line_vector(m, m.ports[p], surfaces.line_edges[line++], surfaces, rwg, unknowns());
+    } else {
+      port_vectors.col(p).setZero();
+      port_vectors.col(p).head(basis.size()) = basis.gap_vector(mesh.port_gaps[gap++]);
+    }
+  }
+  // Ports whose couplings are dependent (two at one place, or one on every wire of a
+  // junction) have no port impedance matrix: refuse them here rather than divide by zero.
+  const Eigen::FullPivLU<Eigen::MatrixXd> ports_lu(port_vectors);
+  if (ports_lu.rank() < port_vectors.cols()) {
+    for (Eigen::Index p = 1; p < port_vectors.cols(); ++p)
+      if (Eigen::FullPivLU<Eigen::MatrixXd>(port_vectors.leftCols(p + 1)).rank() < p + 1)
+        throw InputError(m.ports[p].where, "port '" + m.ports[p].name +
+                                               "' is not independent of the ports before it (two ports at one "
+                                               "place, or a port on every wire of one junction)");
+  }
+  load_vectors = Eigen::MatrixXd::Zero(unknowns(), static_cast<Eigen::Index>(mesh.load_gaps.size()));
+  for (std::size_t l = 0; l < mesh.load_gaps.size(); ++l)
+    load_vectors.col(l).head(basis.size()) = basis.gap_vector(mesh.load_gaps[l]);
+}
+
+FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_hz) {
+  const Eigen::Index n = problem.unknowns();
+  DenseSymmetricMatrix matrix(n);
+  ComplexMatrix& z = matrix.entries();
+  const bool ground = problem.model.ground_perfect;
+  add_wire_impedance(problem.mesh, problem.basis, ground, frequency_hz, z);
+  add_conductor_impedance(problem.mesh, problem.basis, frequency_hz, z);
+  if (problem.rwg.size() > 0 || !problem.stars.empty()) {
+    add_surface_impedance(problem.surfaces.mesh, problem.rwg, ground, frequency_hz, z);
+    add_coupling_impedance(problem.mesh, problem.basis, problem.surfaces.mesh, problem.rwg, problem.stars, ground,
+                           frequency_hz, z);
+  }
+  for (std::size_t l = 0; l < problem.model.loads.size(); ++l) {
+    // Z += z_load p pᵀ over the few non-zero couplings of the load's gap.
+    const auto p = problem.load_vectors.col(static_cast<Eigen::Index>(l));
+    const Complex z_load = load_impedance(problem.model.loads[l], frequency_hz);
+    for (Eigen::Index i = 0; i < n; ++i)
+      if (p[i] != 0.0)
+        for (Eigen::Index j = 0; j < n; ++j)
+          if (p[j] != 0.0) z(i, j) += z_load * p[i] * p[j];
+  }
+  matrix.factor();
+
+  FrequencySolution solution;
+  solution.frequency_hz = frequency_hz;
+  const ComplexMatrix drives = problem.port_vectors.cast<Complex>();
+  const ComplexMatrix unit_responses = matrix.solve(drives, solution.report);
+  solution.port_admittance = drives.transpose() * unit_responses;
+  const auto ports = problem.model.ports.size();
+  solution.port_voltages.resize(static_cast<Eigen::Index>(ports));
+  for (std::size_t p = 0; p < ports; ++p) solution.port_voltages[p] = problem.model.ports[p].voltage;
+  solution.coefficients = unit_responses * solution.port_voltages;
+  solution.port_currents = solution.port_admittance * solution.port_voltages;
+
+  solution.segment_currents.assign(problem.mesh.segments.size(), {Complex(0.0), Complex(0.0)});
+  for (std::size_t s = 0; s < problem.mesh.segments.size(); ++s)
+    for (const BasisPiece& piece : problem.basis.pieces_on(static_cast<int>(s)))
+      solution.segment_currents[s][piece.peak_end] += piece.sign * solution.coefficients[piece.basis];
+  return solution;
+}
+
+std::vector<Eigen::Vector3cd> triangle_current_density(const AntennaProblem& problem, const ComplexVector& coefficients) {
+  const SurfaceMesh& mesh = problem.surfaces.mesh;
+  std::vector<Eigen::Vector3cd> density(mesh.triangles.size(), Eigen::Vector3cd::Zero());
+  for (std::size_t t = 0; t < mesh.triangles.size(); ++t) {
+    const int ti = static_cast<int>(t);
+    const Vec3 r = mesh.centroid(ti);
+    for (const RwgPiece& piece : problem.rwg.pieces_on(ti))
+      density[t] += (piece.coefficient * coefficients[piece.basis]) * (r - mesh.corner(ti, piece.free_corner)).cast<Complex>();
+  }
+  for (const JunctionStar& star : problem.stars) {
+    Complex current = 0.0;
+    for (int b : star.bases) current += coefficients[b];
+    for (const StarTriangle& tri : star.triangles) {
+      // f = K (1 − s²) (r − v)/|r − v|², with s = 2/3 at the centroid.
+      const Vec3 w = mesh.centroid(tri.triangle) - star.vertex;
+      density[tri.triangle] += (current * star.scale * (5.0 / 9.0) / w.squaredNorm()) * w.cast<Complex>();
+    }
+  }
+  return density;
+}
+
+}  // namespace lobe

@@ -1,0 +1,54 @@
+#pragma once
+/// A meshed model ready to solve at any frequency, and the solution at one frequency.
+#include <array>
+#include <vector>
+
+#include "geometry/model.hpp"
+#include "geometry/surface_mesher.hpp"
+#include "geometry/wire_mesh.hpp"
+#include "solver/junction_star.hpp"
+#include "solver/rwg_basis.hpp"
+#include "solver/system_matrix.hpp"
+#include "solver/wire_basis.hpp"
+
+namespace lobe {
+
+/// Everything that does not change with frequency: meshes, bases, port and load couplings.
+/// Unknowns are the wire functions (junction functions among them) first, then the RWG
+/// functions of the surfaces.
+struct AntennaProblem {
+  explicit AntennaProblem(const Model& model);
+  const Model& model;
+  WireMesh mesh;
+  SurfaceMeshReport surfaces;
+  WireBasis basis;
+  RwgBasis rwg;
+  std::vector<JunctionStar> stars;  ///< one per wire node attached to a surface
+  Eigen::MatrixXd port_vectors;     ///< N × ports: column p couples basis currents to port p
+  Eigen::MatrixXd load_vectors;     ///< N × loads
+
+  int unknowns() const { return basis.size() + rwg.size(); }
+};
+
+/// The solved currents at one frequency.
+struct FrequencySolution {
+  Real frequency_hz = 0.0;
+  /// Y(i, j): current into port i with 1 V at port j and 0 V at all others, siemens.
+  ComplexMatrix port_admittance;
+  ComplexVector port_voltages;   ///< as the model drives them, V
+  ComplexVector port_currents;   ///< resulting port currents, A
+  ComplexVector coefficients;    ///< every basis function's current for the model's drive, A
+  /// Current at the start and end of each segment, along the segment direction, A.
+  std::vector<std::array<Complex, 2>> segment_currents;
+  SolveReport report;
+};
+
+/// Fills, factors and solves once for all ports. Throws NumericalError on a singular
+/// matrix or non-finite results. Cost: O((S + T)²) fill, O(N³/3) factorisation.
+FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_hz);
+
+/// The surface current density at the centroid of every triangle, A/m (junction stars
+/// included), for the solved coefficients.
+std::vector<Eigen::Vector3cd> triangle_current_density(const AntennaProblem& problem, const ComplexVector& coefficients);
+
+}  // namespace lobe

@@ -1,0 +1,235 @@
+#include "solver/coupling_fill.hpp"
+
+#include <cmath>
+
+#include "core/check.hpp"
+#include "core/constants.hpp"
+#include "solver/gauss_legendre.hpp"
+#include "solver/pair_fill.hpp"
+#include "solver/segment_integrals.hpp"
+#include "solver/triangle_pair_integrals.hpp"
+#include "solver/triangle_rules.hpp"
+
+namespace lobe {
+namespace {
+
+/// A pair is near when closer than this many of its larger element size: the observer
+/// then needs points graded toward its ends, the source its closed-form static part.
+constexpr Real near_in_sizes = 2.0;
+/// Gauss points along a segment observing a far source.
+constexpr int far_segment_points = 6;
+/// Duffy points per direction on a triangle or star observing a junction.
+constexpr int duffy_order = 8;
+
+inline Vec3 mirrored(const Vec3& p) { return {p.x(), p.y(), -p.z()}; }
+
+/// What one basis function weighs at one test point: ∇·f dS (or dl) and f dS (or dl).
+struct TestWeight {
+  int basis;
+  Real charge;
+  Vec3 current;
+};
+
+struct TestPoint {
+  Vec3 r;
+  std::vector<TestWeight> weights;
+};
+
+/// The potentials one source function makes at a point: Φ = ∫ G ∇·f and A = ∫ G f.
+struct SourceField {
+  int basis;
+  Complex scalar;
+  Eigen::Vector3cd vector;
+};
+
+struct Factors {
+  Complex vector;  ///< jωμ0
+  Complex scalar;  ///< −j/(ωε0)
+  Real k;
+};
+
+/// Z terms of every test weight at `point` against the given source fields, times `sign`.
+void add_terms(const TestPoint& point, const std::vector<SourceField>& fields, const Factors& f, Real sign,
+               std::vector<MatrixContribution>& out) {
+  for (const TestWeight& w : point.weights)
+    for (const SourceField& s : fields) {
+      const Complex value = f.vector * (w.current.cast<Complex>().transpose() * s.vector)(0) + f.scalar * w.charge * s.scalar;
+      out.push_back({w.basis, s.basis, true, sign * value});
+    }
+}
+
+/// Test points of the wire pieces on a segment under a rule on [0, 1].
+std::vector<TestPoint> segment_points(const Segment& seg, const std::vector<BasisPiece>& pieces, const QuadratureRule& rule) {
+  constexpr Real slope[2] = {-1.0, 1.0};
+  const Real length = seg.length();
+  const Vec3 u = seg.direction();
+  std::vector<TestPoint> points;
+  for (std::size_t q = 0; q < rule.nodes.size(); ++q) {
+    const Real xi = rule.nodes[q], w = rule.weights[q];
+    TestPoint p{seg.start + xi * (seg.end - seg.start), {}};
+    for (const BasisPiece& piece : pieces) {
+      const Real shape = piece.peak_end == 1 ? xi : 1.0 - xi;
+      p.weights.push_back({piece.basis, piece.sign * slope[piece.peak_end] * w, piece.sign * shape * w * length * u});
+    }
+    points.push_back(std::move(p));
+  }
+  return points;
+}
+
+/// Test points of the RWG pieces on triangle t: the 7-point rule, or, when `apex` is one of
+/// its corners, Duffy points about that corner (where a junction's potential is singular).
+std::vector<TestPoint> triangle_points(const SurfaceMesh& mesh, int t, const std::vector<RwgPiece>& pieces, int apex) {
+  std::vector<std::pair<Vec3, Real>> samples;  // point, weight (dS)
+  const Real area = mesh.area(t);
+  int corner = -1;
+  for (int k = 0; k < 3; ++k)
+    if (mesh.triangles[t][k] == apex) corner = k;
+  if (corner < 0) {
+    const TriangleRule& rule = triangle_rule_degree5();
+    for (std::size_t q = 0; q < rule.points.size(); ++q) {
+      const auto& b = rule.points[q];
+      samples.emplace_back(b[0] * mesh.corner(t, 0) + b[1] * mesh.corner(t, 1) + b[2] * mesh.corner(t, 2), rule.weights[q] * area);
+    }
+  } else {
+    const QuadratureRule& rule = gauss_legendre(duffy_order);
+    const Vec3 v = mesh.corner(t, corner), a = mesh.corner(t, (corner + 1) % 3), b = mesh.corner(t, (corner + 2) % 3);
+    for (int i = 0; i < duffy_order; ++i)
+      for (int j = 0; j < duffy_order; ++j) {
+        const Real s = rule.nodes[j];
+        samples.emplace_back(v + s * (a + rule.nodes[i] * (b - a) - v), 2 * area * s * rule.weights[i] * rule.weights[j]);
+      }
+  }
+  std::vector<TestPoint> points;
+  for (const auto& [r, w] : samples) {
+    TestPoint p{r, {}};
+    for (const RwgPiece& piece : pieces)  // f = c (r − v_free), ∇·f = 2c
+      p.weights.push_back({piece.basis, 2 * piece.coefficient * w, piece.coefficient * w * (r - mesh.corner(t, piece.free_corner))});
+    points.push_back(std::move(p));
+  }
+  return points;
+}
+
+std::vector<TestPoint> star_points(const JunctionStar& star) {
+  std::vector<TestPoint> points;
+  for (const StarSample& s : star_samples(star, duffy_order)) {
+    TestPoint p{s.r, {}};
+    for (int basis : star.bases) p.weights.push_back({basis, s.charge, s.current});
+    points.push_back(std::move(p));
+  }
+  return points;
+}
+
+/// The fields of the RWG pieces on one source triangle (corners q) at r.
+std::vector<SourceField> triangle_fields(const std::array<Vec3, 3>& q, Real area, const std::vector<RwgPiece>& pieces,
+                                         const Vec3& r, Real k, bool near) {
+  const PointPotentials p = triangle_point_potentials(r, q[0], q[1], q[2], area, k, near);
+  std::vector<SourceField> fields;
+  for (const RwgPiece& piece : pieces)
+    fields.push_back({piece.basis, 2 * piece.coefficient * p.scalar,
+                      piece.coefficient * (p.moment - q[piece.free_corner].cast<Complex>() * p.scalar)});
+  return fields;
+}
+
+std::vector<SourceField> star_fields(const JunctionStar& star, const Vec3& r, Real k) {
+  const StarPotentials p = star_potentials(star, r, k);
+  std::vector<SourceField> fields;
+  for (int basis : star.bases) fields.push_back({basis, p.scalar, p.vector});
+  return fields;
+}
+
+Real triangle_size(const std::array<Vec3, 3>& q) {
+  return std::max({(q[1] - q[0]).norm(), (q[2] - q[1]).norm(), (q[0] - q[2]).norm()});
+}
+
+/// Distance from point p to the segment.
+Real distance_to_segment(const Vec3& p, const Segment& seg) {
+  const Vec3 d = seg.end - seg.start;
+  const Real t = std::clamp((p - seg.start).dot(d) / d.squaredNorm(), 0.0, 1.0);
+  return (p - seg.start - t * d).norm();
+}
+
+}  // namespace
+
+void add_coupling_impedance(const WireMesh& wires, const WireBasis& wire_basis, const SurfaceMesh& surface,
+                            const RwgBasis& rwg, const std::vector<JunctionStar>& stars, bool ground_perfect,
+                            Real frequency_hz, ComplexMatrix& z) {
+  const Real omega = 2 * pi * frequency_hz;
+  const Factors f{j_unit * omega * mu0, -j_unit / (omega * eps0), omega / speed_of_light};
+  const int segment_count = static_cast<int>(wires.segments.size());
+  const int triangle_count = static_cast<int>(surface.triangles.size());
+  const int star_count = static_cast<int>(stars.size());
+  std::vector<JunctionStar> star_images;
+  for (const auto& s : stars) star_images.push_back(s.mirrored());
+  auto corners = [&](int t, bool image) {
+    std::array<Vec3, 3> q{surface.corner(t, 0), surface.corner(t, 1), surface.corner(t, 2)};
+    if (image)
+      for (auto& c : q) c = mirrored(c);
+    return q;
+  };
+  const int images = ground_perfect ? 2 : 1;
+
+  // Segments observe triangles: one row per segment.
+  fill_by_element_rows(
+      segment_count,
+      [&](int s, std::vector<MatrixContribution>& row) {
+        const auto& pieces = wire_basis.pieces_on(s);
+        if (pieces.empty()) return;
+        const Segment& seg = wires.segments[s];
+        const auto far_points = segment_points(seg, pieces, gauss_legendre(far_segment_points));
+        const auto near_points = segment_points(seg, pieces, graded_rule(seg.length(), seg.radius));
+        for (int t = 0; t < triangle_count; ++t) {
+          if (rwg.pieces_on(t).empty()) continue;
+          for (int image = 0; image < images; ++image) {
+            const auto q = corners(t, image == 1);
+            const Vec3 centroid = (q[0] + q[1] + q[2]) / 3.0;
+            const bool near = distance_to_segment(centroid, seg) < near_in_sizes * std::max(seg.length(), triangle_size(q));
+            for (const TestPoint& p : near ? near_points : far_points)
+              add_terms(p, triangle_fields(q, surface.area(t), rwg.pieces_on(t), p.r, f.k, near), f, image ? -1.0 : 1.0, row);
+          }
+        }
+      },
+      z);
+
+  if (stars.empty()) return;
+  // Junction stars as sources, observed by every segment, triangle and later star.
+  fill_by_element_rows(
+      segment_count + triangle_count + star_count,
+      [&](int e, std::vector<MatrixContribution>& row) {
+        for (int j = 0; j < star_count; ++j) {
+          std::vector<TestPoint> points;
+          if (e < segment_count) {
+            const auto& pieces = wire_basis.pieces_on(e);
+            if (pieces.empty()) return;
+            const Segment& seg = wires.segments[e];
+            const bool near = distance_to_segment(stars[j].vertex, seg) < near_in_sizes * std::max(seg.length(), stars[j].radius());
+            points = segment_points(seg, pieces, near ? graded_rule(seg.length(), seg.radius) : gauss_legendre(far_segment_points));
+          } else if (e < segment_count + triangle_count) {
+            const int t = e - segment_count;
+            if (rwg.pieces_on(t).empty()) return;
+            points = triangle_points(surface, t, rwg.pieces_on(t), stars[j].mesh_vertex);
+          } else {
+            const int observer = e - segment_count - triangle_count;
+            if (observer < j) continue;
+            points = star_points(stars[observer]);
+            // Within one star, add each unordered pair of its functions once.
+            if (observer == j) {
+              for (const TestPoint& p : points)
+                for (int image = 0; image < images; ++image) {
+                  const auto fields = star_fields(image ? star_images[j] : stars[j], p.r, f.k);
+                  std::vector<MatrixContribution> terms;
+                  add_terms(p, fields, f, image ? -1.0 : 1.0, terms);
+                  for (auto& c : terms)
+                    if (c.row <= c.column) row.push_back({c.row, c.column, c.row != c.column, c.value});
+                }
+              continue;
+            }
+          }
+          for (const TestPoint& p : points)
+            for (int image = 0; image < images; ++image)
+              add_terms(p, star_fields(image ? star_images[j] : stars[j], p.r, f.k), f, image ? -1.0 : 1.0, row);
+        }
+      },
+      z);
+}
+
+}  // namespace lobe
