@@ -117,10 +117,15 @@ Eigen::VectorXd line_vector(const Model& model, const Port& port, const std::vec
 
 }  // namespace
 
-AntennaProblem::AntennaProblem(const Model& m)
+AntennaProblem::AntennaProblem(const Model& m) : AntennaProblem(m, mesh_wires(m)) {}
+
+AntennaProblem::AntennaProblem(const Model& m, const WireMesh& wires)
+    : AntennaProblem(m, wires, mesh_model_surfaces(m, constraints_of(m, wires))) {}
+
+AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport meshed_surfaces)
     : model(m),
-      mesh(mesh_wires(m)),
-      surfaces(mesh_model_surfaces(m, constraints_of(m, mesh))),
+      mesh(std::move(wires)),
+      surfaces(std::move(meshed_surfaces)),
       basis(mesh, attached_nodes(m, mesh, surfaces)),
       rwg(surfaces.mesh, basis.size()) {
   check_surfaces_above_ground(m, surfaces);

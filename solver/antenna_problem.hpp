@@ -18,6 +18,9 @@ namespace lobe {
 /// functions of the surfaces.
 struct AntennaProblem {
   explicit AntennaProblem(const Model& model);
+  /// From meshes already made for this model (with the constraints the model implies:
+  /// wire ends and junctions as points, plate-port lines), e.g. exact mirror images.
+  AntennaProblem(const Model& model, WireMesh wires, SurfaceMeshReport surfaces);
   const Model& model;
   WireMesh mesh;
   SurfaceMeshReport surfaces;
@@ -28,6 +31,9 @@ struct AntennaProblem {
   Eigen::MatrixXd load_vectors;     ///< N × loads
 
   int unknowns() const { return basis.size() + rwg.size(); }
+
+ private:
+  AntennaProblem(const Model& model, const WireMesh& wires);
 };
 
 /// The solved currents at one frequency.
