@@ -2,8 +2,10 @@
 
 #include "geometry/model_parser.hpp"
 #include "solver/dense_symmetric_matrix.hpp"
-#include "solver/impedance_fill.hpp"
 #include "solver/antenna_problem.hpp"
+#include "solver/coupling_fill.hpp"
+#include "solver/impedance_fill.hpp"
+#include "solver/surface_fill.hpp"
 
 namespace lobe {
 namespace {
@@ -39,6 +41,36 @@ TEST(MatrixProperties, JunctionCurrentsSumToZero) {
     EXPECT_LE(std::abs(sum), 1e-12 * std::abs(s.port_currents[0]));
   }
   EXPECT_LT(s.report.relative_residual, 1e-10);
+}
+
+// A plate over ground with a whip on it, a wire from the ground up to the plate and a port
+// across a line on the plate: wire, surface, junction and image terms of every kind.
+const char* mixed =
+    "units mm\nground perfect\n"
+    "plate deck rectangle corner (-100, -100, 50) size (200, 200)\nmesh deck size 40\n"
+    "wire whip from (0, 0, 50) to (0, 0, 120) radius 1\n"
+    "wire riser from (50, 0, 0) to (50, 0, 50) radius 1\n"
+    "wire stub from (-60, -60, 90) to (60, -60, 90) radius 1\n"
+    "port a on whip at start\nport b on riser at start\n"
+    "port c on deck along (-100, 60, 50) to (-40, 60, 50)\nfrequency 600 MHz\n";
+
+// Galerkin testing of a symmetric kernel, wires and surfaces alike: Z_mn = Z_nm; and the
+// port admittances from a general (unsymmetric) LU solve are reciprocal. 1e-6 relative.
+TEST(MatrixProperties, MixedWireSurfaceFillIsSymmetricAndReciprocal) {
+  const Model model = parse_model(mixed, "m");
+  const AntennaProblem problem(model);
+  ASSERT_EQ(problem.stars.size(), 2u);
+  const Real f = 600e6;
+  ComplexMatrix z = ComplexMatrix::Zero(problem.unknowns(), problem.unknowns());
+  add_wire_impedance(problem.mesh, problem.basis, true, f, z);
+  add_surface_impedance(problem.surfaces.mesh, problem.rwg, true, f, z);
+  add_coupling_impedance(problem.mesh, problem.basis, problem.surfaces.mesh, problem.rwg, problem.stars, true, f, z);
+  ASSERT_TRUE(z.allFinite());
+  EXPECT_LE((z - z.transpose()).norm(), 1e-6 * z.norm());
+  const ComplexMatrix p = problem.port_vectors.cast<Complex>();
+  const ComplexMatrix y = p.transpose() * z.partialPivLu().solve(p);
+  for (int i = 0; i < 3; ++i)
+    for (int j = 0; j < i; ++j) EXPECT_LE(std::abs(y(i, j) - y(j, i)), 1e-6 * y.norm()) << i << ", " << j;
 }
 
 }  // namespace
