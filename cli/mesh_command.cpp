@@ -5,7 +5,7 @@
 #include "cli/model_loading.hpp"
 #include "post/output_files.hpp"
 #include "post/vtk_writer.hpp"
-#include "solver/scattering_problem.hpp"
+#include "solver/antenna_problem.hpp"
 
 namespace lobe::cli {
 
@@ -17,13 +17,12 @@ int mesh_command(const std::string& model_path, const std::string& output, const
   check_output_directory(directory);
   OutputFiles files(directory);
   const auto staging = files.staging_path(target.filename().string());
-  if (!model.surfaces.empty()) {
-    const ScatteringProblem problem(model);
-    write_surface_vtu(staging, problem.surfaces);
+  if (model.wave) {
+    write_model_vtu(staging, WireMesh{}, mesh_model_surfaces(model));
   } else {
-    const WireMesh mesh = mesh_wires(model);
-    print_warnings(mesh);
-    write_wire_vtu(staging, mesh);
+    const AntennaProblem problem(model);
+    print_warnings(problem.mesh);
+    write_model_vtu(staging, problem.mesh, problem.surfaces);
   }
   for (const auto& path : files.commit()) std::printf("%s\n", path.string().c_str());
   return 0;

@@ -18,7 +18,7 @@ constexpr double max_pattern_rows = 5e7;
 constexpr std::size_t max_model_bytes = 64u << 20;
 
 const std::set<std::string, std::less<>> statement_words = {
-    "units", "let", "wire", "arc", "helix", "copy", "shift", "turn", "mirror", "port",
+    "units", "let", "wire", "arc", "helix", "copy", "shift", "turn", "mirror", "port", "cut",
     "load", "conductor", "ground", "frequency", "reference", "band", "pattern", "plate", "sphere", "box", "mesh", "wave"};
 
 std::string quoted(const Token& t) {
@@ -100,10 +100,11 @@ class ModelParser {
     else if (k == "sphere") sphere(c, keyword);
     else if (k == "box") box(c, keyword);
     else if (k == "mesh") mesh(c);
+    else if (k == "cut") cut(c, keyword);
     else if (k == "wave") wave(c, keyword);
     else
       throw InputError(keyword.where, "unknown statement '" + k + "'; statements are: units let wire arc helix plate "
-                                      "sphere box copy shift turn mirror mesh port load conductor ground wave frequency "
+                                      "cut sphere box copy shift turn mirror mesh port load conductor ground wave frequency "
                                       "reference band pattern");
     end_of_statement(c);
   }
@@ -364,6 +365,13 @@ class ModelParser {
 
   void plate(TokenCursor& c, const Token& keyword) {
     SurfaceShape s = new_surface(c, keyword);
+    outline(c, s, true);
+    m_model.surfaces.push_back(std::move(s));
+  }
+
+  /// A rectangle, polygon or disc outline; a plate states its own normal, a cut takes its
+  /// plate's (the one already in `s`).
+  void outline(TokenCursor& c, SurfaceShape& s, bool own_normal) {
     const Token& kind = c.expect_name("'rectangle', 'polygon' or 'disc'");
     if (kind.text == "rectangle") {
       s.kind = SurfaceKind::rectangle;
@@ -371,27 +379,46 @@ class ModelParser {
       s.corner = point(c);
       c.expect_word("size", "after the corner");
       c.expect_symbol('(', "to start the size (width, length)");
-      s.width = positive_length(c, "a plate width");
+      s.width = positive_length(c, "a width");
       c.expect_symbol(',', "between width and length");
-      s.length = positive_length(c, "a plate length");
+      s.length = positive_length(c, "a length");
       c.expect_symbol(')', "to close the size");
-      if (c.accept_word("normal")) s.normal = direction(c);
+      if (own_normal && c.accept_word("normal")) s.normal = direction(c);
     } else if (kind.text == "polygon") {
       s.kind = SurfaceKind::polygon;
+      s.polygon.clear();
       while (c.peek_symbol('(')) s.polygon.push_back(point(c));
       if (s.polygon.size() < 3) throw InputError(c.peek().where, "a polygon needs at least three corners");
     } else if (kind.text == "disc") {
       s.kind = SurfaceKind::disc;
       c.expect_word("center", "after 'disc'");
       s.corner = point(c);
-      c.expect_word("normal", "after the centre");
-      s.normal = direction(c);
-      c.expect_word("diameter", "after the normal");
+      if (own_normal) {
+        c.expect_word("normal", "after the centre");
+        s.normal = direction(c);
+      }
+      c.expect_word("diameter", own_normal ? "after the normal" : "after the centre");
       s.diameter = positive_length(c, "a disc diameter");
     } else {
-      throw InputError(kind.where, "a plate is a 'rectangle', 'polygon' or 'disc', not '" + kind.text + "'");
+      throw InputError(kind.where, "an outline is a 'rectangle', 'polygon' or 'disc', not '" + kind.text + "'");
     }
-    m_model.surfaces.push_back(std::move(s));
+  }
+
+  void cut(TokenCursor& c, const Token& keyword) {
+    const Token& name = c.expect_name("the name of the plate to cut");
+    for (auto& plate : m_model.surfaces) {
+      if (plate.name != name.text) continue;
+      if (plate.kind == SurfaceKind::sphere || plate.kind == SurfaceKind::box)
+        throw InputError(name.where, "'" + name.text + "' is a closed body; only plates can be cut");
+      SurfaceShape hole;
+      hole.name = "cut in " + plate.name;
+      hole.where = keyword.where;
+      hole.normal = plate.normal;
+      outline(c, hole, false);
+      plate.cuts.push_back(std::move(hole));
+      return;
+    }
+    throw InputError(name.where, "there is no plate named '" + name.text + "'");
   }
 
   void sphere(TokenCursor& c, const Token& keyword) {

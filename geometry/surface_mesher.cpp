@@ -64,8 +64,57 @@ int plane_from_points(const SurfaceShape& shape, const std::vector<Vec3>& corner
   return gmsh::model::occ::addPlaneSurface({gmsh::model::occ::addCurveLoop(lines)});
 }
 
-/// Adds one shape to the OpenCASCADE model; returns its (dimension, tag) entities.
+/// The unit normal of a flat outline (rectangle, disc or polygon).
+Vec3 outline_normal(const SurfaceShape& s) {
+  if (s.kind != SurfaceKind::polygon) return s.normal.normalized();
+  return (s.polygon[1] - s.polygon[0]).cross(s.polygon[2] - s.polygon[0]).normalized();
+}
+
+gmsh::vectorpair add_outline(const SurfaceShape& s);
+
+Real area_of(int tag) {
+  double mass = 0.0;
+  gmsh::model::occ::getMass(2, tag, mass);
+  return mass;
+}
+
+/// Cuts the plate's holes out of `plate` one by one; refuses a cut off the plate's plane,
+/// one that misses what is left of the plate and one that leaves nothing.
+gmsh::vectorpair cut_holes(const SurfaceShape& s, int plate) {
+  const Real original = area_of(plate);
+  double x = 0, y = 0, z = 0;
+  gmsh::model::occ::getCenterOfMass(2, plate, x, y, z);
+  const Vec3 centre(x, y, z), normal = outline_normal(s);
+  gmsh::vectorpair remaining{{2, plate}};
+  Real area = original;
+  for (const SurfaceShape& hole : s.cuts) {
+    const int tool = add_outline(hole).front().second;
+    gmsh::model::occ::getCenterOfMass(2, tool, x, y, z);
+    if (std::abs(normal.dot(Vec3(x, y, z) - centre)) > 1e-9 * std::sqrt(original) ||
+        outline_normal(hole).cross(normal).norm() > 1e-9)
+      throw InputError(hole.where, "this cut does not lie in the plane of plate '" + s.name + "'");
+    gmsh::vectorpair out;
+    std::vector<gmsh::vectorpair> map;
+    gmsh::model::occ::cut(remaining, {{2, tool}}, out, map);
+    Real after = 0.0;
+    for (const auto& [dim, tag] : out) after += area_of(tag);
+    if (after < 1e-9 * original) throw InputError(hole.where, "this cut removes all that is left of plate '" + s.name + "'");
+    if (after > area * (1 - 1e-12)) throw InputError(hole.where, "this cut misses plate '" + s.name + "'");
+    remaining = out;
+    area = after;
+  }
+  return remaining;
+}
+
+/// Adds one shape to the OpenCASCADE model, holes cut; returns its (dimension, tag) entities.
 gmsh::vectorpair add_shape(const SurfaceShape& s) {
+  gmsh::vectorpair entities = add_outline(s);
+  if (s.cuts.empty()) return entities;
+  return cut_holes(s, entities.front().second);
+}
+
+/// The shape's outline or body as built, without holes.
+gmsh::vectorpair add_outline(const SurfaceShape& s) {
   switch (s.kind) {
     case SurfaceKind::rectangle: {
       if (!(s.width > 0.0 && s.length > 0.0))

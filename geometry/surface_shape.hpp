@@ -25,6 +25,9 @@ struct SurfaceShape {
   std::vector<Vec3> polygon;    ///< polygon corners, in order
   Real mesh_size = 0.0;         ///< target triangle edge, m; 0: a tenth of the shortest wavelength
   Affine transform = Affine::Identity();  ///< copy/shift/turn/mirror, applied after building
+  /// Holes and notches (rectangles, polygons, discs in the plate's own plane, in its
+  /// coordinates before any transform), cut away before meshing.
+  std::vector<SurfaceShape> cuts;
 };
 
 }  // namespace lobe

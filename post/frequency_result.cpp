@@ -19,6 +19,7 @@ FrequencyResult evaluate_frequency(const AntennaProblem& problem, const Frequenc
   result.z_matrix = impedance_matrix(solution);
   result.s_matrix = scattering_matrix(result.z_matrix, z0);
   result.segment_currents = solution.segment_currents;
+  result.surface_currents = triangle_current_density(problem, solution.coefficients);
   result.report = solution.report;
 
   const FarField field(problem, solution);
@@ -88,6 +89,7 @@ void require_finite(const FrequencyResult& result) {
                 std::isfinite(result.power.radiated) && result.pattern.gain_dbi.allFinite() &&
                 result.pattern.axial_ratio_db.allFinite() && result.pattern.realized_gain_dbi.allFinite();
   for (const auto& p : result.ports) finite = finite && std::isfinite(std::abs(p.impedance)) && std::isfinite(p.vswr);
+  for (const auto& j : result.surface_currents) finite = finite && j.allFinite();
   if (!finite)
     throw NumericalError("a non-finite value arose at " + std::to_string(result.frequency_hz) + " Hz");
 }

@@ -33,6 +33,7 @@ struct FrequencyResult {
   Real peak_axial_ratio_db = axial_ratio_ceiling_db;
   Hand peak_hand = Hand::linear;
   std::vector<std::array<Complex, 2>> segment_currents;
+  std::vector<Eigen::Vector3cd> surface_currents;  ///< A/m at each triangle's centroid
   SolveReport report;
 };
 

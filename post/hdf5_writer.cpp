@@ -219,6 +219,23 @@ void write_currents(hid_t file, const RunRecord& run) {
                     return part ? c.imag() : c.real();
                   }), "A (along the segment)");
     }
+  const SurfaceMeshReport& surfaces = run.problem.surfaces;
+  const std::size_t nt = surfaces.mesh.triangles.size();
+  if (nt == 0) return;
+  std::vector<Real> vertices;
+  std::vector<int> corners;
+  for (const Vec3& v : surfaces.mesh.vertices)
+    for (int c = 0; c < 3; ++c) vertices.push_back(v[c]);
+  for (const auto& t : surfaces.mesh.triangles) corners.insert(corners.end(), t.begin(), t.end());
+  write_reals(g, "vertex_m", {surfaces.mesh.vertices.size(), 3}, vertices, "m");
+  write_ints(g, "triangle_vertices", {nt, 3}, corners);
+  write_ints(g, "triangle_object", {nt}, surfaces.region);
+  for (int part = 0; part < 2; ++part)
+    write_reals(g, part ? "surface_density_im_a_per_m" : "surface_density_re_a_per_m", {run.results.size(), nt, 3},
+                per_frequency(run, 3 * nt, [&](const FrequencyResult& r, std::size_t k) {
+                  const Complex c = r.surface_currents[k / 3][static_cast<Eigen::Index>(k % 3)];
+                  return part ? c.imag() : c.real();
+                }), "A/m (at the triangle centroid)");
 }
 
 /// What made the file and the conventions its numbers follow, as root attributes.

@@ -10,7 +10,7 @@ namespace {
 
 /// The parts every unstructured grid shares; `cell_data` is written inside <CellData>.
 void write_grid(const std::filesystem::path& path, const std::vector<Vec3>& points,
-                const std::vector<std::vector<int>>& cells, int cell_type, const std::string& cell_data) {
+                const std::vector<std::vector<int>>& cells, const std::string& cell_data) {
   std::ofstream out(path);
   if (!out) throw std::runtime_error("cannot write " + path.string());
   out.precision(12);
@@ -31,7 +31,8 @@ void write_grid(const std::filesystem::path& path, const std::vector<Vec3>& poin
   std::size_t offset = 0;
   for (const auto& cell : cells) out << "          " << (offset += cell.size()) << '\n';
   out << "        </DataArray>\n        <DataArray type=\"UInt8\" Name=\"types\" format=\"ascii\">\n";
-  for (std::size_t c = 0; c < cells.size(); ++c) out << "          " << cell_type << '\n';
+  constexpr int vtk_line = 3, vtk_triangle = 5;
+  for (const auto& cell : cells) out << "          " << (cell.size() == 2 ? vtk_line : vtk_triangle) << '\n';
   out << "        </DataArray>\n      </Cells>\n      <CellData>\n"
       << cell_data << "      </CellData>\n    </Piece>\n  </UnstructuredGrid>\n</VTKFile>\n";
   out.close();
@@ -50,26 +51,35 @@ std::string cell_array(const char* type, const char* name, const Values& values)
 
 }  // namespace
 
-void write_surface_vtu(const std::filesystem::path& path, const SurfaceMeshReport& surfaces) {
-  std::vector<std::vector<int>> cells;
-  for (const auto& t : surfaces.mesh.triangles) cells.push_back({t[0], t[1], t[2]});
-  constexpr int vtk_triangle = 5;
-  write_grid(path, surfaces.mesh.vertices, cells, vtk_triangle, cell_array("Int32", "region", surfaces.region));
-}
-
-void write_wire_vtu(const std::filesystem::path& path, const WireMesh& mesh) {
+void write_model_vtu(const std::filesystem::path& path, const WireMesh& wires, const SurfaceMeshReport& surfaces,
+                     const std::vector<CellValues>& extra) {
   std::vector<Vec3> points;
   std::vector<std::vector<int>> cells;
-  std::vector<int> wires;
+  std::vector<int> kinds, objects;
   std::vector<Real> radii;
-  for (const auto& node : mesh.nodes) points.push_back(node.position);
-  for (const auto& s : mesh.segments) {
+  for (const auto& node : wires.nodes) points.push_back(node.position);
+  for (const auto& s : wires.segments) {
     cells.push_back({s.node[0], s.node[1]});
-    wires.push_back(s.wire);
+    kinds.push_back(0);
+    objects.push_back(s.wire);
     radii.push_back(s.radius);
   }
-  constexpr int vtk_line = 3;
-  write_grid(path, points, cells, vtk_line, cell_array("Int32", "wire", wires) + cell_array("Float64", "radius_m", radii));
+  const int offset = static_cast<int>(points.size());
+  points.insert(points.end(), surfaces.mesh.vertices.begin(), surfaces.mesh.vertices.end());
+  for (std::size_t t = 0; t < surfaces.mesh.triangles.size(); ++t) {
+    const auto& v = surfaces.mesh.triangles[t];
+    cells.push_back({offset + v[0], offset + v[1], offset + v[2]});
+    kinds.push_back(1);
+    objects.push_back(surfaces.region[t]);
+    radii.push_back(0.0);
+  }
+  std::string data = cell_array("Int32", "kind", kinds) + cell_array("Int32", "object", objects) +
+                     cell_array("Float64", "radius_m", radii);
+  for (const auto& e : extra) {
+    if (e.values.size() != cells.size()) throw std::logic_error("cell array '" + e.name + "' of the wrong size");
+    data += cell_array("Float64", e.name.c_str(), e.values);
+  }
+  write_grid(path, points, cells, data);
 }
 
 }  // namespace lobe

@@ -1,15 +1,24 @@
 #pragma once
-/// Meshes as VTK XML unstructured grids (.vtu), readable by ParaView.
+/// Meshes (and currents on them) as VTK XML unstructured grids (.vtu), readable by ParaView.
 #include <filesystem>
+#include <string>
+#include <vector>
 
 #include "geometry/surface_mesher.hpp"
 #include "geometry/wire_mesh.hpp"
 
 namespace lobe {
 
-/// Triangles (cell type 5) with a "region" cell array naming the shape each came from.
-void write_surface_vtu(const std::filesystem::path& path, const SurfaceMeshReport& surfaces);
-/// Segments (cell type 3, lines) with "wire" (index) and "radius_m" cell arrays.
-void write_wire_vtu(const std::filesystem::path& path, const WireMesh& mesh);
+/// One value per cell, segments first and then triangles, under `name`.
+struct CellValues {
+  std::string name;
+  std::vector<Real> values;
+};
+
+/// Segments (VTK lines) and triangles in one grid, with cell arrays "kind" (0 segment,
+/// 1 triangle), "object" (wire index for segments, plate or body index for triangles),
+/// "radius_m" (0 on triangles), and any `extra` arrays.
+void write_model_vtu(const std::filesystem::path& path, const WireMesh& wires, const SurfaceMeshReport& surfaces,
+                     const std::vector<CellValues>& extra = {});
 
 }  // namespace lobe

@@ -186,7 +186,7 @@ TEST(DemoModels, MeshCommandWritesVtkForWiresAndSurfaces) {
   ASSERT_EQ(r.exit_code, 0) << r.err;
   vtu = read_text(dir / "ball.vtu");
   EXPECT_TRUE(well_formed_xml(vtu));
-  EXPECT_NE(vtu.find("Name=\"region\""), std::string::npos);
+  EXPECT_NE(vtu.find("Name=\"object\""), std::string::npos);
   EXPECT_EQ(run_lobe("mesh '" + std::string(LOBE_SOURCE_DIR) + "/models/yagi_3el_144.lobe' -o '" +
                          (dir / "yagi.txt").string() + "'", dir).exit_code, 2);
 }
