@@ -95,7 +95,7 @@ TEST(ModelParser, PlatesBodiesAndWaves) {
 }
 
 TEST(ModelParser, ErrorsPointAtTheCause) {
-  EXPECT_EQ(error_of("blorp\n"), "m.lobe:1:1: unknown statement 'blorp'; statements are: units let wire arc helix plate "
+  EXPECT_EQ(error_of("blorp\n"), "m.lobe:1:1: unknown statement 'blorp'; statements are: units let wire arc helix plate cut "
                                  "sphere box copy shift turn mirror mesh port load conductor ground wave frequency "
                                  "reference band pattern");
   EXPECT_EQ(error_of("wire w from (0,0,0) to (0,0,1)\n"), "m.lobe:1:31: wire 'w' needs 'radius R'");
