@@ -20,7 +20,7 @@ Real axial_ratio_db(const CircularComponents& c) {
 
 Hand polarization_hand(const CircularComponents& c) {
   const Real r = std::abs(c.right), l = std::abs(c.left);
-  if (std::abs(r - l) <= 1e-9 * (r + l) || r + l == 0.0) return Hand::linear;
+  if (r + l == 0.0 || axial_ratio_db(c) > linear_axial_ratio_db) return Hand::linear;
   return r > l ? Hand::right : Hand::left;
 }
 

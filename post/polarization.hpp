@@ -24,7 +24,12 @@ CircularComponents circular_components(Complex e_theta, Complex e_phi);
 /// (|E_R| + |E_L|) / ||E_R| − |E_L||, in dB, at most axial_ratio_ceiling_db.
 Real axial_ratio_db(const CircularComponents& c);
 
-/// The sense of rotation: the larger circular component wins; equal ones are linear.
+/// Above this axial ratio a field counts as linearly polarised: the circular components
+/// then differ by under 1 % (common practice treats 40 dB as linear for any antenna).
+constexpr Real linear_axial_ratio_db = 40.0;
+
+/// The sense of rotation: the larger circular component wins; an axial ratio above
+/// linear_axial_ratio_db is linear.
 Hand polarization_hand(const CircularComponents& c);
 
 const char* hand_name(Hand hand);

@@ -191,6 +191,66 @@ TEST(DemoModels, MeshCommandWritesVtkForWiresAndSurfaces) {
                          (dir / "yagi.txt").string() + "'", dir).exit_code, 2);
 }
 
+TEST(DemoModels, CircularlyPolarisedPatchIsRightHandedAtBroadside) {
+  const DemoRun run = run_demo("cp_patch_5800");
+  const Row& zenith = direction(run.pattern, 5.8e9, 0, 0);
+  // A truncated-corner patch: under 3 dB axial ratio at its design frequency, the usual
+  // limit for "circular" (common practice), with the hand its cut diagonal gives.
+  EXPECT_LT(number(zenith, "axial_ratio_db"), 3.0);
+  EXPECT_EQ(zenith.at("hand"), "right");
+  EXPECT_GT(number(zenith, "rhcp_dbi") - number(zenith, "lhcp_dbi"), 15.0);
+}
+
+TEST(DemoModels, AirPatchBeamsUpward) {
+  const DemoRun run = run_demo("patch_probe_2450");
+  const Row& zenith = direction(run.pattern, 2.45e9, 0, 0);
+  const Row& below = direction(run.pattern, 2.45e9, 180, 0);
+  // An air patch on a one-wavelength plate: about 8 to 10 dBi broadside and a
+  // front-to-back ratio over 15 dB (common practice).
+  EXPECT_GT(number(zenith, "gain_dbi"), 8.0);
+  EXPECT_LT(number(zenith, "gain_dbi"), 10.5);
+  EXPECT_GT(number(zenith, "gain_dbi") - number(below, "gain_dbi"), 15.0);
+}
+
+TEST(DemoModels, StripDipoleIsMatchedInItsBand) {
+  const DemoRun run = run_demo("strip_dipole_868");
+  const auto band = in_band(run.ports, 863e6, 870e6);
+  ASSERT_FALSE(band.empty());
+  for (const auto& r : band) EXPECT_LT(number(r, "vswr"), 2.0);  // the usual 2:1 limit (common practice)
+  EXPECT_NEAR(number(direction(run.pattern, 865e6, 0, 0), "gain_dbi"), 2.15, 0.15);  // as a half-wave dipole
+}
+
+TEST(DemoModels, MonopoleOnAPlateTiltsItsBeamUp) {
+  const DemoRun run = run_demo("monopole_plate_1090");
+  // On a finite plate the peak leaves the horizon (θ = 90°) for higher elevations, and
+  // the resistance sits near the infinite-ground 36 Ω (image theory) within 15 %.
+  double best = -1e9, best_theta = 0;
+  for (const auto& r : run.pattern)
+    if (std::abs(number(r, "frequency_hz") - 1.09e9) < 1 && number(r, "gain_dbi") > best)
+      best = number(r, "gain_dbi"), best_theta = number(r, "theta_deg");
+  EXPECT_GT(best_theta, 20.0);
+  EXPECT_LT(best_theta, 80.0);
+  for (const auto& r : in_band(run.ports, 1.087e9, 1.093e9)) EXPECT_NEAR(number(r, "resistance_ohm"), 36.5, 0.15 * 36.5);
+}
+
+TEST(DemoModels, CrossedDipolesOverAReflectorAreRightHandedOverhead) {
+  const DemoRun run = run_demo("crossed_dipole_reflector_137");
+  const Row& zenith = direction(run.pattern, 137.5e6, 0, 0);
+  EXPECT_LT(number(zenith, "axial_ratio_db"), 1.0);
+  EXPECT_EQ(zenith.at("hand"), "right");
+  EXPECT_GT(number(zenith, "gain_dbi") - number(direction(run.pattern, 137.5e6, 180, 0), "gain_dbi"), 10.0);
+}
+
+TEST(DemoModels, MeshCommandWritesWiresAndPlatesTogether) {
+  const auto dir = fresh_directory("vtk-mixed");
+  const ProcessResult r = run_lobe("mesh '" + std::string(LOBE_SOURCE_DIR) + "/models/monopole_plate_1090.lobe' -o '" +
+                                       (dir / "m.vtu").string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const std::string vtu = read_text(dir / "m.vtu");
+  EXPECT_TRUE(well_formed_xml(vtu));
+  EXPECT_NE(vtu.find("NumberOfCells=\"397\""), std::string::npos);  // 5 segments and 392 triangles, as `run` reports
+}
+
 TEST(DemoModels, YagiBeamsForward) {
   const DemoRun run = run_demo("yagi_3el_144");
   const double f = 145e6;
