@@ -47,6 +47,41 @@ Vec3 in_plane_direction(const Vec3& normal) {
   return u.normalized();
 }
 
+/// Refuses outlines whose edges cross or touch anywhere but at shared corners (a bow tie),
+/// and repeated corners: the mesher would make something other than what was meant.
+void require_simple_outline(const SurfaceShape& shape, const std::vector<Vec3>& corners, const Vec3& normal) {
+  const std::size_t n = corners.size();
+  const Vec3 u = (corners[1] - corners[0]).normalized(), w = normal.cross(u);
+  std::vector<Eigen::Vector2d> p;
+  Real extent = 0.0;
+  for (const Vec3& c : corners) {
+    p.emplace_back((c - corners[0]).dot(u), (c - corners[0]).dot(w));
+    extent = std::max(extent, p.back().norm());
+  }
+  const Real tolerance = 1e-12 * extent;
+  auto cross = [](const Eigen::Vector2d& a, const Eigen::Vector2d& b) { return a.x() * b.y() - a.y() * b.x(); };
+  auto side = [&](const Eigen::Vector2d& a, const Eigen::Vector2d& b, const Eigen::Vector2d& c) {
+    const Real s = cross(b - a, c - a);
+    return std::abs(s) <= tolerance * extent ? 0 : (s > 0 ? 1 : -1);
+  };
+  auto on_segment = [&](const Eigen::Vector2d& a, const Eigen::Vector2d& b, const Eigen::Vector2d& c) {
+    return side(a, b, c) == 0 && (c - a).dot(c - b) <= tolerance * extent;
+  };
+  for (std::size_t i = 0; i < n; ++i) {
+    if ((p[(i + 1) % n] - p[i]).norm() <= tolerance)
+      throw InputError(shape.where, "plate '" + shape.name + "' repeats a corner (corner " + std::to_string(i + 1) + ")");
+    for (std::size_t j = i + 1; j < n; ++j) {
+      const bool adjacent = j == i + 1 || (i == 0 && j == n - 1);
+      const auto &a = p[i], &b = p[(i + 1) % n], &c = p[j], &d = p[(j + 1) % n];
+      const bool crossing = side(a, b, c) * side(a, b, d) < 0 && side(c, d, a) * side(c, d, b) < 0;
+      const bool touching = !adjacent && (on_segment(a, b, c) || on_segment(a, b, d) || on_segment(c, d, a) || on_segment(c, d, b));
+      if (crossing || touching)
+        throw InputError(shape.where, "the outline of '" + shape.name + "' crosses itself (edges " + std::to_string(i + 1) +
+                                          " and " + std::to_string(j + 1) + ")");
+    }
+  }
+}
+
 int plane_from_points(const SurfaceShape& shape, const std::vector<Vec3>& corners) {
   if (corners.size() < 3) throw InputError(shape.where, "plate '" + shape.name + "' needs at least three corners");
   const Vec3 normal = (corners[1] - corners[0]).cross(corners[2] - corners[0]);
@@ -57,6 +92,7 @@ int plane_from_points(const SurfaceShape& shape, const std::vector<Vec3>& corner
   for (const Vec3& c : corners)
     if (std::abs(normal.normalized().dot(c - corners[0])) > 1e-9 * extent)
       throw InputError(shape.where, "plate '" + shape.name + "' is not flat: its corners do not lie in one plane");
+  require_simple_outline(shape, corners, normal.normalized());
   std::vector<int> points, lines;
   for (const Vec3& c : corners) points.push_back(gmsh::model::occ::addPoint(c.x(), c.y(), c.z()));
   for (std::size_t i = 0; i < points.size(); ++i)
@@ -313,12 +349,42 @@ SurfaceMeshReport mesh_surfaces(const std::vector<SurfaceShape>& shapes, const M
   }
 }
 
-SurfaceMeshReport mesh_model_surfaces(const Model& model, const MeshConstraints& constraints) {
+namespace {
+
+std::vector<SurfaceShape> sized_shapes(const Model& model) {
   std::vector<SurfaceShape> shapes = model.surfaces;
   const Real edge = speed_of_light / model.highest_frequency() / default_edges_per_wavelength;
   for (auto& s : shapes)
     if (s.mesh_size == 0.0) s.mesh_size = edge;
-  return mesh_surfaces(shapes, constraints);
+  return shapes;
+}
+
+Real outline_area(const SurfaceShape& s) {
+  switch (s.kind) {
+    case SurfaceKind::rectangle: return s.width * s.length;
+    case SurfaceKind::disc: return 0.25 * pi * s.diameter * s.diameter;
+    case SurfaceKind::sphere: return pi * s.diameter * s.diameter;
+    case SurfaceKind::box: return 2 * (s.size.x() * s.size.y() + s.size.y() * s.size.z() + s.size.z() * s.size.x());
+    case SurfaceKind::polygon: {
+      Vec3 twice = Vec3::Zero();
+      for (std::size_t i = 0; i < s.polygon.size(); ++i) twice += s.polygon[i].cross(s.polygon[(i + 1) % s.polygon.size()]);
+      return 0.5 * twice.norm();
+    }
+  }
+  return 0.0;
+}
+
+}  // namespace
+
+SurfaceMeshReport mesh_model_surfaces(const Model& model, const MeshConstraints& constraints) {
+  return mesh_surfaces(sized_shapes(model), constraints);
+}
+
+double estimated_surface_functions(const Model& model) {
+  double functions = 0.0;
+  for (const auto& s : sized_shapes(model))
+    functions += 1.5 * outline_area(s) / (0.25 * std::sqrt(3.0) * s.mesh_size * s.mesh_size);
+  return functions;
 }
 
 }  // namespace lobe

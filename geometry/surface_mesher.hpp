@@ -50,4 +50,9 @@ constexpr Real default_edges_per_wavelength = 10.0;
 /// wavelength at the model's highest frequency.
 SurfaceMeshReport mesh_model_surfaces(const Model& model, const MeshConstraints& constraints = {});
 
+/// The RWG functions the model's surfaces will have, estimated from their areas and mesh
+/// sizes before meshing (about 1.5 edges per triangle of area √3/4 h²; cuts ignored), so
+/// that a model too large for the machine is refused before the mesher runs for hours.
+double estimated_surface_functions(const Model& model);
+
 }  // namespace lobe

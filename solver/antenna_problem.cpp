@@ -119,8 +119,18 @@ Eigen::VectorXd line_vector(const Model& model, const Port& port, const std::vec
 
 AntennaProblem::AntennaProblem(const Model& m) : AntennaProblem(m, mesh_wires(m)) {}
 
+namespace {
+
+/// Refuses, before meshing the surfaces, a model whose matrices could never fit in memory.
+const WireMesh& checked_before_meshing(const Model& model, const WireMesh& wires) {
+  require_dense_memory(model, static_cast<double>(wires.segments.size()) + estimated_surface_functions(model), true);
+  return wires;
+}
+
+}  // namespace
+
 AntennaProblem::AntennaProblem(const Model& m, const WireMesh& wires)
-    : AntennaProblem(m, wires, mesh_model_surfaces(m, constraints_of(m, wires))) {}
+    : AntennaProblem(m, wires, mesh_model_surfaces(m, constraints_of(m, checked_before_meshing(m, wires)))) {}
 
 AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport meshed_surfaces)
     : model(m),

@@ -16,15 +16,17 @@ namespace {
 constexpr double usable_memory_share = 0.8;
 }  // namespace
 
-void require_dense_memory(const Model& model, int unknowns) {
+void require_dense_memory(const Model& model, double unknowns, bool estimated) {
   const double available = static_cast<double>(sysconf(_SC_PHYS_PAGES)) * static_cast<double>(sysconf(_SC_PAGE_SIZE));
-  const double needed = static_cast<double>(dense_matrix_bytes(static_cast<std::uint64_t>(unknowns)));
+  // The same count as dense_matrix_bytes, in floating point: an estimate may overflow integers.
+  const double needed = static_cast<double>(dense_matrix_bytes(1)) * unknowns * unknowns;
   if (needed > usable_memory_share * available) {
-    char message[256];
+    char message[320];
     std::snprintf(message, sizeof message,
-                  "the model has %d unknowns; its matrices need %.1f GiB but this machine has %.1f GiB; "
+                  "the model has %s%.0f unknowns%s; its matrices need %.3g GiB but this machine has %.1f GiB; "
                   "use fewer segments or a coarser mesh",
-                  unknowns, needed / (1 << 30), available / (1 << 30));
+                  estimated ? "about " : "", unknowns, estimated ? " (estimated before meshing)" : "",
+                  needed / (1 << 30), available / (1 << 30));
     throw InputError({model.file, 1, 1}, message);
   }
 }

@@ -5,8 +5,18 @@
 
 namespace lobe {
 
+namespace {
+
+/// Refuses, before meshing, a model whose matrices could never fit in memory.
+const Model& checked_before_meshing(const Model& model) {
+  require_dense_memory(model, estimated_surface_functions(model), true);
+  return model;
+}
+
+}  // namespace
+
 ScatteringProblem::ScatteringProblem(const Model& m)
-    : model(m), surfaces(mesh_model_surfaces(m)), basis(surfaces.mesh) {
+    : model(m), surfaces(mesh_model_surfaces(checked_before_meshing(m))), basis(surfaces.mesh) {
   if (basis.size() == 0)
     throw InputError({m.file, 1, 1}, "the surfaces have no interior mesh edges, so no current can flow");
   require_dense_memory(m, basis.size());

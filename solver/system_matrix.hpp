@@ -35,7 +35,8 @@ class SystemMatrix {
 std::uint64_t dense_matrix_bytes(std::uint64_t n);
 
 /// Throws InputError (located at the model file) when the dense matrices of `unknowns`
-/// would not fit in the machine's memory.
-void require_dense_memory(const Model& model, int unknowns);
+/// would not fit in the machine's memory; `estimated` says the count is a forecast made
+/// before meshing.
+void require_dense_memory(const Model& model, double unknowns, bool estimated = false);
 
 }  // namespace lobe
