@@ -94,6 +94,28 @@ TEST(ModelParser, PlatesBodiesAndWaves) {
   EXPECT_DOUBLE_EQ(m.wave->amplitude, 2.0);
 }
 
+TEST(ModelParser, CutsAndPlatePorts) {
+  const Model m = parse_model(
+      "units mm\n"
+      "plate deck rectangle corner (0, 0, 0) size (100, 50)\n"
+      "cut deck disc center (20, 20, 0) diameter 6\n"
+      "cut deck polygon (0, 0, 0) (10, 0, 0) (0, 10, 0)\n"
+      "wire whip from (50, 25, 0) to (50, 25, 70) radius 1\n"
+      "port a on deck along (80, 0, 0) to (80, 50, 0) phase 90 deg\n"
+      "port b on whip at start\n"
+      "frequency 1 GHz\n",
+      "m");
+  ASSERT_EQ(m.surfaces[0].cuts.size(), 2u);
+  EXPECT_EQ(m.surfaces[0].cuts[0].kind, SurfaceKind::disc);
+  EXPECT_DOUBLE_EQ(m.surfaces[0].cuts[0].diameter, 0.006);
+  EXPECT_EQ(m.surfaces[0].cuts[1].polygon.size(), 3u);
+  ASSERT_TRUE(m.ports[0].line.has_value());
+  EXPECT_EQ(m.ports[0].line->plate, "deck");
+  EXPECT_NEAR(m.ports[0].line->to.y(), 0.05, 1e-15);
+  EXPECT_NEAR(std::arg(m.ports[0].voltage), pi / 2, 1e-12);
+  EXPECT_FALSE(m.ports[1].line.has_value());
+}
+
 TEST(ModelParser, ErrorsPointAtTheCause) {
   EXPECT_EQ(error_of("blorp\n"), "m.lobe:1:1: unknown statement 'blorp'; statements are: units let wire arc helix plate cut "
                                  "sphere box copy shift turn mirror mesh port load conductor ground wave frequency "

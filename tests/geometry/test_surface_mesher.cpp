@@ -138,6 +138,18 @@ TEST(SurfaceMesher, LinesAcrossAPlateFollowMeshEdges) {
   EXPECT_NEAR(covered, 0.03, 1e-12);
 }
 
+// A hole and a corner notch leave exactly the area OpenCASCADE's cut says.
+TEST(SurfaceMesher, CutsRemoveTheirArea) {
+  SurfaceShape plate = rectangle("deck", {0, 0, 0}, 0.1, 0.06, {0, 0, 1}, 0.01);
+  SurfaceShape notch;
+  notch.kind = SurfaceKind::polygon;
+  notch.polygon = {{0, 0, 0}, {0.02, 0, 0}, {0, 0.02, 0}};
+  SurfaceShape slot = rectangle("slot", {0.05, 0.02, 0}, 0.03, 0.004, {0, 0, 1}, 0.0);
+  plate.cuts = {notch, slot};
+  const SurfaceMeshReport r = mesh_surfaces({plate});
+  EXPECT_NEAR(total_area(r.mesh), 0.006 - 0.0002 - 0.00012, 1e-12);
+}
+
 TEST(SurfaceMesher, NonPlanarPolygonIsAnInputError) {
   SurfaceShape s;
   s.name = "bent";
