@@ -17,6 +17,8 @@ void add_surface_impedance(const SurfaceMesh& mesh, const RwgBasis& basis, bool 
   // mirrored triangle, with the charge and the vector potential negated.
   SurfaceMesh image = mesh;
   for (Vec3& v : image.vertices) v.z() = -v.z();
+  const std::vector<TriangleQuadrature> triangles = triangle_quadrature(mesh);
+  const std::vector<TriangleQuadrature> images = ground_perfect ? triangle_quadrature(image) : std::vector<TriangleQuadrature>{};
   const Real omega = 2 * pi * frequency_hz;
   const Real k = omega / speed_of_light;
   const Complex vector_factor = j_unit * omega * mu0;
@@ -28,10 +30,10 @@ void add_surface_impedance(const SurfaceMesh& mesh, const RwgBasis& basis, bool 
         if (basis.pieces_on(p).empty()) return;
         for (int q = p; q < count; ++q) {
           if (basis.pieces_on(q).empty()) continue;
-          TrianglePairIntegrals integrals = triangle_pair_integrals(mesh, p, q, k);
+          TrianglePairIntegrals integrals = triangle_pair_integrals(triangles[p], triangles[q], k);
           if (ground_perfect) {
             // G(r, M r') is symmetric in the pair, so the image term keeps Z symmetric.
-            const TrianglePairIntegrals mirrored = triangle_pair_integrals(mesh, p, image, q, k);
+            const TrianglePairIntegrals mirrored = triangle_pair_integrals(triangles[p], images[q], k);
             integrals.vector -= mirrored.vector;
             integrals.scalar -= mirrored.scalar;
           }

@@ -1,8 +1,10 @@
 #include "solver/triangle_pair_integrals.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "solver/phase_factor.hpp"
 #include "solver/smooth_kernel.hpp"
 #include "solver/triangle_potentials.hpp"
 #include "solver/triangle_rules.hpp"
@@ -13,18 +15,28 @@ namespace {
 /// A pair is near when its centroids are closer than this many of the larger triangle's
 /// longest edges: 1/R then varies too fast over Q for seven points.
 constexpr Real near_distance_in_sizes = 2.0;
+constexpr int n = TriangleQuadrature::points;
 
-struct Triangle {
-  Vec3 corners[3];
-  Real area;
-  Vec3 point(const std::array<Real, 3>& b) const { return b[0] * corners[0] + b[1] * corners[1] + b[2] * corners[2]; }
-  Real size() const {
-    return std::max({(corners[1] - corners[0]).norm(), (corners[2] - corners[1]).norm(), (corners[0] - corners[2]).norm()});
+/// ∫ G and ∫ G r' over Q at each of P's points, by 7 × 7 points.
+void far_inner(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k, std::array<Complex, n>& scalar,
+               std::array<Eigen::Vector3cd, n>& moment) {
+  std::array<Real, n * n> phase, sine, cosine, inverse;
+  for (int a = 0; a < n; ++a)
+    for (int b = 0; b < n; ++b) {
+      const Real distance = (p.x[a] - q.x[b]).norm();
+      phase[a * n + b] = k * distance;
+      inverse[a * n + b] = q.w[b] / (4 * pi * distance);
+    }
+  sine_cosine(phase.data(), sine.data(), cosine.data(), n * n);
+  for (int a = 0; a < n; ++a) {
+    scalar[a] = 0.0;
+    moment[a].setZero();
+    for (int b = 0; b < n; ++b) {
+      const Complex g = inverse[a * n + b] * Complex(cosine[a * n + b], -sine[a * n + b]);
+      scalar[a] += g;
+      moment[a] += g * q.x[b].cast<Complex>();
+    }
   }
-};
-
-Triangle triangle_of(const SurfaceMesh& mesh, int t) {
-  return {{mesh.corner(t, 0), mesh.corner(t, 1), mesh.corner(t, 2)}, mesh.area(t)};
 }
 
 }  // namespace
@@ -53,32 +65,47 @@ PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const V
   return result;
 }
 
-TrianglePairIntegrals triangle_pair_integrals(const SurfaceMesh& mesh, int observer, int source, Real k) {
-  return triangle_pair_integrals(mesh, observer, mesh, source, k);
+std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh) {
+  const TriangleRule& rule = triangle_rule_degree5();
+  std::vector<TriangleQuadrature> all(mesh.triangles.size());
+  for (std::size_t t = 0; t < all.size(); ++t) {
+    TriangleQuadrature& q = all[t];
+    const int ti = static_cast<int>(t);
+    q.corners = {mesh.corner(ti, 0), mesh.corner(ti, 1), mesh.corner(ti, 2)};
+    q.area = mesh.area(ti);
+    q.size = std::max({(q.corners[1] - q.corners[0]).norm(), (q.corners[2] - q.corners[1]).norm(),
+                       (q.corners[0] - q.corners[2]).norm()});
+    q.centroid = mesh.centroid(ti);
+    for (int a = 0; a < n; ++a) {
+      const auto& b = rule.points[a];
+      q.x[a] = b[0] * q.corners[0] + b[1] * q.corners[1] + b[2] * q.corners[2];
+      q.w[a] = rule.weights[a] * q.area;
+    }
+  }
+  return all;
 }
 
-TrianglePairIntegrals triangle_pair_integrals(const SurfaceMesh& observers, int observer, const SurfaceMesh& sources,
-                                              int source, Real k) {
-  const Triangle p = triangle_of(observers, observer), q = triangle_of(sources, source);
-  const TriangleRule& rule = triangle_rule_degree5();
-  const std::size_t n = rule.points.size();
-  const Real distance = ((p.corners[0] + p.corners[1] + p.corners[2]) - (q.corners[0] + q.corners[1] + q.corners[2])).norm() / 3.0;
-  const bool near = distance < near_distance_in_sizes * std::max(p.size(), q.size());
+TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
+  const bool near = (p.centroid - q.centroid).norm() < near_distance_in_sizes * std::max(p.size, q.size);
+  std::array<Complex, n> inner_scalar;
+  std::array<Eigen::Vector3cd, n> inner_moment;
+  if (near) {
+    for (int a = 0; a < n; ++a) {
+      const PointPotentials inner = triangle_point_potentials(p.x[a], q.corners[0], q.corners[1], q.corners[2], q.area, k, true);
+      inner_scalar[a] = inner.scalar;
+      inner_moment[a] = inner.moment;
+    }
+  } else {
+    far_inner(p, q, k, inner_scalar, inner_moment);
+  }
   TrianglePairIntegrals result;
-  for (std::size_t a = 0; a < n; ++a) {
-    const Vec3 r = p.point(rule.points[a]);
-    const Real wa = rule.weights[a] * p.area;
-    const PointPotentials inner = triangle_point_potentials(r, q.corners[0], q.corners[1], q.corners[2], q.area, k, near);
-    const Complex inner_scalar = inner.scalar;
-    const Eigen::Vector3cd& inner_moment = inner.moment;
-    result.scalar += wa * inner_scalar;
+  for (int a = 0; a < n; ++a) {
+    result.scalar += p.w[a] * inner_scalar[a];
     for (int i = 0; i < 3; ++i) {
-      const Vec3 from_corner = r - p.corners[i];
-      for (int j = 0; j < 3; ++j) {
+      const Eigen::Vector3cd from_corner = (p.x[a] - p.corners[i]).cast<Complex>();
+      for (int j = 0; j < 3; ++j)
         // (r − p_i)·∫ G (r' − q_j) = (r − p_i)·(∫ G r' − q_j ∫ G)
-        const Eigen::Vector3cd moment = inner_moment - q.corners[j].cast<Complex>() * inner_scalar;
-        result.vector(i, j) += wa * from_corner.cast<Complex>().dot(moment);
-      }
+        result.vector(i, j) += p.w[a] * from_corner.dot(inner_moment[a] - q.corners[j].cast<Complex>() * inner_scalar[a]);
     }
   }
   return result;

@@ -1,5 +1,8 @@
 #pragma once
 /// Integrals of the free-space Green's function over a pair of triangles, for RWG fills.
+#include <array>
+#include <vector>
+
 #include "core/types.hpp"
 #include "geometry/surface_mesh.hpp"
 
@@ -24,13 +27,25 @@ struct PointPotentials {
 PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const Vec3& q1, const Vec3& q2, Real area,
                                           Real k, bool near);
 
+/// What a fill needs of one triangle, computed once per triangle rather than per pair:
+/// corners, area, longest edge, centroid, and the 7-point degree-5 rule's points with their
+/// weights times the area.
+struct TriangleQuadrature {
+  static constexpr int points = 7;
+  std::array<Vec3, 3> corners;
+  Real area = 0.0;
+  Real size = 0.0;
+  Vec3 centroid = Vec3::Zero();
+  std::array<Vec3, points> x;
+  std::array<Real, points> w;
+};
+std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh);
+
 /// Near pairs (centroids closer than two triangle sizes) integrate the static 1/R part over
 /// Q in closed form (Wilton et al. 1984) and the smooth (e^{−jkR} − 1)/R part, and the
-/// outer integral over P, with the 7-point degree-5 rule; far pairs use 7 × 7 points.
-TrianglePairIntegrals triangle_pair_integrals(const SurfaceMesh& mesh, int observer, int source, Real k);
-
-/// The same with the source triangle taken from another mesh (an image mesh).
-TrianglePairIntegrals triangle_pair_integrals(const SurfaceMesh& observers, int observer, const SurfaceMesh& sources,
-                                              int source, Real k);
+/// outer integral over P, with the 7-point degree-5 rule; far pairs use 7 × 7 points with
+/// the 49 phases evaluated in one vectorised batch.
+TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& observer, const TriangleQuadrature& source,
+                                              Real k);
 
 }  // namespace lobe
