@@ -5,7 +5,7 @@
 #include <cstdio>
 
 #include "solver/coupling_fill.hpp"
-#include "solver/dense_symmetric_matrix.hpp"
+#include "solver/dense_matrix.hpp"
 #include "solver/impedance_fill.hpp"
 #include "solver/lumped_load.hpp"
 #include "solver/surface_fill.hpp"
@@ -177,7 +177,7 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
 
 FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_hz) {
   const Eigen::Index n = problem.unknowns();
-  DenseSymmetricMatrix matrix(n);
+  DenseMatrix matrix(n);
   ComplexMatrix& z = matrix.entries();
   const bool ground = problem.model.ground_perfect;
   add_wire_impedance(problem.mesh, problem.basis, ground, frequency_hz, z);

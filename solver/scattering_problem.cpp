@@ -1,6 +1,6 @@
 #include "solver/scattering_problem.hpp"
 
-#include "solver/dense_symmetric_matrix.hpp"
+#include "solver/dense_matrix.hpp"
 #include "solver/surface_fill.hpp"
 
 namespace lobe {
@@ -23,7 +23,7 @@ ScatteringProblem::ScatteringProblem(const Model& m)
 }
 
 ScatteringSolution solve_scattering(const ScatteringProblem& problem, Real frequency_hz) {
-  DenseSymmetricMatrix matrix(problem.basis.size());
+  DenseMatrix matrix(problem.basis.size());
   add_surface_impedance(problem.surfaces.mesh, problem.basis, false, frequency_hz, matrix.entries());
   matrix.factor();
   const PlaneWave& wave = *problem.model.wave;

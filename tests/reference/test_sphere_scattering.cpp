@@ -7,7 +7,7 @@
 
 #include "core/constants.hpp"
 #include "post/surface_far_field.hpp"
-#include "solver/dense_symmetric_matrix.hpp"
+#include "solver/dense_matrix.hpp"
 #include "solver/gauss_legendre.hpp"
 #include "solver/surface_fill.hpp"
 #include "support/icosphere.hpp"
@@ -22,7 +22,7 @@ constexpr Real frequency = 299792458.0;  // λ = 1 m
 struct SphereCase {
   SphereCase(Real size_parameter, int levels)
       : ka(size_parameter), radius(ka / (2 * pi)), mesh(icosphere(radius, levels)), basis(mesh) {
-    DenseSymmetricMatrix matrix(basis.size());
+    DenseMatrix matrix(basis.size());
     add_surface_impedance(mesh, basis, false, frequency, matrix.entries());
     matrix.factor();
     SolveReport report;

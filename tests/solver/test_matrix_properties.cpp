@@ -1,7 +1,7 @@
 #include <gtest/gtest.h>
 
 #include "geometry/model_parser.hpp"
-#include "solver/dense_symmetric_matrix.hpp"
+#include "solver/dense_matrix.hpp"
 #include "solver/antenna_problem.hpp"
 #include "solver/coupling_fill.hpp"
 #include "solver/impedance_fill.hpp"

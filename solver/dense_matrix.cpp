@@ -1,4 +1,4 @@
-#include "solver/dense_symmetric_matrix.hpp"
+#include "solver/dense_matrix.hpp"
 
 #include <lapacke.h>
 #include <unistd.h>
@@ -31,7 +31,7 @@ void require_dense_memory(const Model& model, double unknowns, bool estimated) {
   }
 }
 
-DenseSymmetricMatrix::DenseSymmetricMatrix(Eigen::Index n) : m_entries(n, n), m_original(n, n) {
+DenseMatrix::DenseMatrix(Eigen::Index n) : m_entries(n, n), m_original(n, n) {
   // Both buffers are written column by column, in parallel, so that every page is really
   // allocated before the fill and the copy in factor(): a first write later would fault
   // with a TLB shootdown across cores, measured here to double the fill time.
@@ -42,7 +42,7 @@ DenseSymmetricMatrix::DenseSymmetricMatrix(Eigen::Index n) : m_entries(n, n), m_
   }
 }
 
-void DenseSymmetricMatrix::factor() {
+void DenseMatrix::factor() {
   LOBE_CHECK(!m_factored, "matrix factored twice");
   const auto n = static_cast<lapack_int>(size());
   if (!m_entries.allFinite()) throw NumericalError("the system matrix has non-finite entries");
@@ -50,25 +50,25 @@ void DenseSymmetricMatrix::factor() {
   const Real norm1 = m_entries.cwiseAbs().colwise().sum().maxCoeff();
   m_pivots.assign(n, 0);
   auto* a = reinterpret_cast<lapack_complex_double*>(m_entries.data());
-  const lapack_int info = LAPACKE_zsytrf(LAPACK_COL_MAJOR, 'U', n, a, n, m_pivots.data());
-  if (info > 0) throw NumericalError("the system matrix is singular (zsytrf pivot " + std::to_string(info) + ")");
-  LOBE_CHECK(info == 0, "zsytrf argument error");
+  const lapack_int info = LAPACKE_zgetrf(LAPACK_COL_MAJOR, n, n, a, n, m_pivots.data());
+  if (info > 0) throw NumericalError("the system matrix is singular (zgetrf pivot " + std::to_string(info) + ")");
+  LOBE_CHECK(info == 0, "zgetrf argument error");
   double rcond = 0.0;
-  const lapack_int con = LAPACKE_zsycon(LAPACK_COL_MAJOR, 'U', n, a, n, m_pivots.data(), norm1, &rcond);
-  LOBE_CHECK(con == 0, "zsycon failed");
+  const lapack_int con = LAPACKE_zgecon(LAPACK_COL_MAJOR, '1', n, a, n, norm1, &rcond);
+  LOBE_CHECK(con == 0, "zgecon failed");
   m_reciprocal_condition = rcond;
   m_factored = true;
 }
 
-ComplexMatrix DenseSymmetricMatrix::solve(const ComplexMatrix& rhs, SolveReport& report) const {
+ComplexMatrix DenseMatrix::solve(const ComplexMatrix& rhs, SolveReport& report) const {
   LOBE_CHECK(m_factored, "solve before factor");
   LOBE_CHECK(rhs.rows() == size(), "right-hand side has the wrong size");
   ComplexMatrix x = rhs;
   const auto n = static_cast<lapack_int>(size());
-  const lapack_int info = LAPACKE_zsytrs(LAPACK_COL_MAJOR, 'U', n, static_cast<lapack_int>(x.cols()),
+  const lapack_int info = LAPACKE_zgetrs(LAPACK_COL_MAJOR, 'N', n, static_cast<lapack_int>(x.cols()),
                                          reinterpret_cast<const lapack_complex_double*>(m_entries.data()), n,
                                          m_pivots.data(), reinterpret_cast<lapack_complex_double*>(x.data()), n);
-  LOBE_CHECK(info == 0, "zsytrs failed");
+  LOBE_CHECK(info == 0, "zgetrs failed");
   if (!x.allFinite()) throw NumericalError("the solution has non-finite values");
   report.reciprocal_condition = m_reciprocal_condition;
   report.relative_residual = 0.0;
