@@ -32,21 +32,6 @@ std::filesystem::path output_directory(const RunOptions& options) {
                                           : std::filesystem::path(options.output_directory);
 }
 
-/// Per frequency, the current magnitude on every cell for ParaView: |I| in A on segments
-/// (mean of the two ends), |J| in A/m on triangles (at the centroid); peak values.
-std::vector<CellValues> current_arrays(const RunRecord& run) {
-  std::vector<CellValues> arrays;
-  for (const auto& r : run.results) {
-    CellValues a{"current_" + frequency_text(r.frequency_hz), {}};
-    for (char& ch : a.name)
-      if (ch == ' ') ch = '_';
-    for (const auto& c : r.segment_currents) a.values.push_back(0.5 * (std::abs(c[0]) + std::abs(c[1])));
-    for (const auto& j : r.surface_currents) a.values.push_back(j.norm());
-    arrays.push_back(std::move(a));
-  }
-  return arrays;
-}
-
 int run_command(const RunOptions& options) {
   if (options.threads > 0) set_thread_count(options.threads);
   const Model model = load_model(options.model_path, options.set_options);
@@ -91,7 +76,9 @@ int run_command(const RunOptions& options) {
   write_ports_csv(files.staging_path(stem + "_ports.csv"), run);
   write_pattern_csv(files.staging_path(stem + "_pattern.csv"), run);
   write_currents_csv(files.staging_path(stem + "_currents.csv"), run);
-  write_model_vtu(files.staging_path(stem + "_currents.vtu"), problem.mesh, problem.surfaces, current_arrays(run));
+  std::vector<CellValues> currents;
+  for (const auto& r : run.results) currents.push_back(current_cells(r.frequency_hz, r.segment_currents, r.surface_currents));
+  write_model_vtu(files.staging_path(stem + "_currents.vtu"), problem.mesh, problem.surfaces, currents);
   const auto written = files.commit();
 
   std::printf("%s\n", run_summary(run).c_str());

@@ -8,6 +8,7 @@
 #include "post/output_files.hpp"
 #include "post/run_summary.hpp"
 #include "post/scattering_result.hpp"
+#include "post/vtk_writer.hpp"
 #include "solver/threads.hpp"
 
 namespace lobe::cli {
@@ -34,6 +35,9 @@ int run_scattering(const RunOptions& options, const Model& model) {
   OutputFiles files(directory);
   write_scattering_hdf5(files.staging_path(stem + ".h5"), run);
   write_scattering_csv(files.staging_path(stem + "_rcs.csv"), run);
+  std::vector<CellValues> currents;
+  for (const auto& r : run.results) currents.push_back(current_cells(r.frequency_hz, {}, r.surface_currents));
+  write_model_vtu(files.staging_path(stem + "_currents.vtu"), WireMesh{}, problem.surfaces, currents);
   const auto written = files.commit();
   std::printf("%s\nresults:\n", scattering_summary(run).c_str());
   for (const auto& path : written) std::printf("  %s\n", path.string().c_str());

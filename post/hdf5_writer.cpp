@@ -194,6 +194,28 @@ void write_pattern(hid_t file, const RunRecord& run) {
   field("e_phi_im", "V (r = 1 m)", [](const PatternResult& p, auto i, auto j) { return p.e_phi(i, j).imag(); });
 }
 
+/// The triangle mesh and, per frequency, the current density at each centroid.
+void write_surface_currents(hid_t g, const SurfaceMeshReport& surfaces,
+                            const std::vector<const std::vector<Eigen::Vector3cd>*>& densities) {
+  const std::size_t nt = surfaces.mesh.triangles.size();
+  if (nt == 0) return;
+  std::vector<Real> vertices;
+  std::vector<int> corners;
+  for (const Vec3& v : surfaces.mesh.vertices) vertices.insert(vertices.end(), {v.x(), v.y(), v.z()});
+  for (const auto& t : surfaces.mesh.triangles) corners.insert(corners.end(), t.begin(), t.end());
+  write_reals(g, "vertex_m", {surfaces.mesh.vertices.size(), 3}, vertices, "m");
+  write_ints(g, "triangle_vertices", {nt, 3}, corners);
+  write_ints(g, "triangle_object", {nt}, surfaces.region);
+  for (int part = 0; part < 2; ++part) {
+    std::vector<Real> values;
+    for (const auto* density : densities)
+      for (const auto& j : *density)
+        for (int c = 0; c < 3; ++c) values.push_back(part ? j[c].imag() : j[c].real());
+    write_reals(g, part ? "surface_density_im_a_per_m" : "surface_density_re_a_per_m", {densities.size(), nt, 3},
+                values, "A/m (at the triangle centroid)");
+  }
+}
+
 void write_currents(hid_t file, const RunRecord& run) {
   Handle g = group(file, "currents");
   const auto& segments = run.problem.mesh.segments;
@@ -219,23 +241,9 @@ void write_currents(hid_t file, const RunRecord& run) {
                     return part ? c.imag() : c.real();
                   }), "A (along the segment)");
     }
-  const SurfaceMeshReport& surfaces = run.problem.surfaces;
-  const std::size_t nt = surfaces.mesh.triangles.size();
-  if (nt == 0) return;
-  std::vector<Real> vertices;
-  std::vector<int> corners;
-  for (const Vec3& v : surfaces.mesh.vertices)
-    for (int c = 0; c < 3; ++c) vertices.push_back(v[c]);
-  for (const auto& t : surfaces.mesh.triangles) corners.insert(corners.end(), t.begin(), t.end());
-  write_reals(g, "vertex_m", {surfaces.mesh.vertices.size(), 3}, vertices, "m");
-  write_ints(g, "triangle_vertices", {nt, 3}, corners);
-  write_ints(g, "triangle_object", {nt}, surfaces.region);
-  for (int part = 0; part < 2; ++part)
-    write_reals(g, part ? "surface_density_im_a_per_m" : "surface_density_re_a_per_m", {run.results.size(), nt, 3},
-                per_frequency(run, 3 * nt, [&](const FrequencyResult& r, std::size_t k) {
-                  const Complex c = r.surface_currents[k / 3][static_cast<Eigen::Index>(k % 3)];
-                  return part ? c.imag() : c.real();
-                }), "A/m (at the triangle centroid)");
+  std::vector<const std::vector<Eigen::Vector3cd>*> densities;
+  for (const auto& r : run.results) densities.push_back(&r.surface_currents);
+  write_surface_currents(g, run.problem.surfaces, densities);
 }
 
 /// What made the file and the conventions its numbers follow, as root attributes.
@@ -303,15 +311,10 @@ void write_scattering_hdf5(const std::filesystem::path& path, const ScatteringRu
     write_reals(g, "monostatic_m2", {nf}, monostatic, "m2");
   }
   {
-    Handle g = group(file, "mesh");
-    const SurfaceMesh& mesh = run.problem.surfaces.mesh;
-    std::vector<Real> vertices;
-    for (const Vec3& v : mesh.vertices) vertices.insert(vertices.end(), {v.x(), v.y(), v.z()});
-    std::vector<int> triangles;
-    for (const auto& t : mesh.triangles) triangles.insert(triangles.end(), t.begin(), t.end());
-    write_reals(g, "vertices_m", {mesh.vertices.size(), 3}, vertices, "m");
-    write_ints(g, "triangles", {mesh.triangles.size(), 3}, triangles);
-    write_ints(g, "region", {run.problem.surfaces.region.size()}, run.problem.surfaces.region);
+    Handle g = group(file, "currents");
+    std::vector<const std::vector<Eigen::Vector3cd>*> densities;
+    for (const auto& r : run.results) densities.push_back(&r.surface_currents);
+    write_surface_currents(g, run.problem.surfaces, densities);
   }
   Handle solver = group(file, "solver");
   write_reals(solver, "reciprocal_condition", {nf}, rcond, "1");

@@ -28,7 +28,10 @@ ScatteringResult evaluate_scattering(const ScatteringProblem& problem, const Sca
   for (Eigen::Index i = 0; i < nt; ++i)
     for (Eigen::Index j = 0; j < np; ++j) result.rcs_m2(i, j) = rcs(result.thetas[i], result.phis[j]);
   result.monostatic_m2 = rcs(wave.theta, wave.phi);
-  if (!result.rcs_m2.allFinite() || !std::isfinite(result.monostatic_m2))
+  result.surface_currents = centroid_current_density(problem.surfaces.mesh, problem.basis, solution.currents);
+  bool finite = result.rcs_m2.allFinite() && std::isfinite(result.monostatic_m2);
+  for (const auto& j : result.surface_currents) finite = finite && j.allFinite();
+  if (!finite)
     throw NumericalError("a non-finite cross-section arose at " + std::to_string(result.frequency_hz) + " Hz");
   return result;
 }

@@ -14,6 +14,7 @@ struct ScatteringResult {
   std::vector<Real> thetas, phis;  ///< rad, the model's pattern grid
   Eigen::ArrayXXd rcs_m2;          ///< bistatic RCS on the grid (θ index, φ index), m²
   Real monostatic_m2 = 0.0;        ///< back toward the direction the wave comes from, m²
+  std::vector<Eigen::Vector3cd> surface_currents;  ///< A/m at each triangle's centroid
   SolveReport report;
 };
 

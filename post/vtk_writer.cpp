@@ -1,5 +1,6 @@
 #include "post/vtk_writer.hpp"
 
+#include <cstdio>
 #include <fstream>
 #include <sstream>
 #include <stdexcept>
@@ -50,6 +51,16 @@ std::string cell_array(const char* type, const char* name, const Values& values)
 }
 
 }  // namespace
+
+CellValues current_cells(Real frequency_hz, const std::vector<std::array<Complex, 2>>& segment_currents,
+                         const std::vector<Eigen::Vector3cd>& surface_currents) {
+  char name[64];
+  std::snprintf(name, sizeof name, "current_%.6g_MHz", frequency_hz / 1e6);
+  CellValues cells{name, {}};
+  for (const auto& c : segment_currents) cells.values.push_back(0.5 * (std::abs(c[0]) + std::abs(c[1])));
+  for (const auto& j : surface_currents) cells.values.push_back(j.norm());
+  return cells;
+}
 
 void write_model_vtu(const std::filesystem::path& path, const WireMesh& wires, const SurfaceMeshReport& surfaces,
                      const std::vector<CellValues>& extra) {

@@ -218,13 +218,7 @@ FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_
 
 std::vector<Eigen::Vector3cd> triangle_current_density(const AntennaProblem& problem, const ComplexVector& coefficients) {
   const SurfaceMesh& mesh = problem.surfaces.mesh;
-  std::vector<Eigen::Vector3cd> density(mesh.triangles.size(), Eigen::Vector3cd::Zero());
-  for (std::size_t t = 0; t < mesh.triangles.size(); ++t) {
-    const int ti = static_cast<int>(t);
-    const Vec3 r = mesh.centroid(ti);
-    for (const RwgPiece& piece : problem.rwg.pieces_on(ti))
-      density[t] += (piece.coefficient * coefficients[piece.basis]) * (r - mesh.corner(ti, piece.free_corner)).cast<Complex>();
-  }
+  std::vector<Eigen::Vector3cd> density = centroid_current_density(mesh, problem.rwg, coefficients);
   for (const JunctionStar& star : problem.stars) {
     Complex current = 0.0;
     for (int b : star.bases) current += coefficients[b];

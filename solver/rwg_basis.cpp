@@ -35,4 +35,16 @@ int RwgBasis::function_on(int a, int b) const {
   return m_first + static_cast<int>(found - m_edges.begin());
 }
 
+std::vector<Eigen::Vector3cd> centroid_current_density(const SurfaceMesh& mesh, const RwgBasis& basis,
+                                                       const ComplexVector& coefficients) {
+  std::vector<Eigen::Vector3cd> density(mesh.triangles.size(), Eigen::Vector3cd::Zero());
+  for (std::size_t t = 0; t < mesh.triangles.size(); ++t) {
+    const int ti = static_cast<int>(t);
+    const Vec3 r = mesh.centroid(ti);
+    for (const RwgPiece& piece : basis.pieces_on(ti))
+      density[t] += (piece.coefficient * coefficients[piece.basis]) * (r - mesh.corner(ti, piece.free_corner)).cast<Complex>();
+  }
+  return density;
+}
+
 }  // namespace lobe
