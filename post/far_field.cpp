@@ -46,11 +46,9 @@ FarField::FarField(const AntennaProblem& problem, const FrequencySolution& solut
     for (std::size_t q = 0; q < area_rule.points.size(); ++q) {
       const auto& b = area_rule.points[q];
       const Vec3 r = b[0] * surface.corner(ti, 0) + b[1] * surface.corner(ti, 1) + b[2] * surface.corner(ti, 2);
-      Eigen::Vector3cd moment = Eigen::Vector3cd::Zero();
-      for (const RwgPiece& piece : problem.rwg.pieces_on(ti))
-        moment += (piece.coefficient * solution.coefficients[piece.basis] * area_rule.weights[q] * surface.area(ti)) *
-                  (r - surface.corner(ti, piece.free_corner)).cast<Complex>();
-      if (!problem.rwg.pieces_on(ti).empty()) add_source(r - m_centre, moment);
+      if (!problem.rwg.pieces_on(ti).empty())
+        add_source(r - m_centre, current_density(surface, problem.rwg, solution.coefficients, ti, r) *
+                                     (area_rule.weights[q] * surface.area(ti)));
     }
   }
   for (const JunctionStar& star : problem.stars) {

@@ -19,10 +19,7 @@ FarFieldSample surface_far_field(const SurfaceMesh& mesh, const RwgBasis& basis,
     for (std::size_t a = 0; a < rule.points.size(); ++a) {
       const auto& b = rule.points[a];
       const Vec3 r = b[0] * mesh.corner(ti, 0) + b[1] * mesh.corner(ti, 1) + b[2] * mesh.corner(ti, 2);
-      Eigen::Vector3cd current = Eigen::Vector3cd::Zero();
-      for (const RwgPiece& piece : basis.pieces_on(ti))
-        current += coefficients[piece.basis] * piece.coefficient * (r - mesh.corner(ti, piece.free_corner)).cast<Complex>();
-      n += current * std::polar(rule.weights[a] * mesh.area(ti), k * r_hat.dot(r));
+      n += current_density(mesh, basis, coefficients, ti, r) * std::polar(rule.weights[a] * mesh.area(ti), k * r_hat.dot(r));
     }
   }
   const Complex factor = -j_unit * omega * mu0 / (4 * pi);

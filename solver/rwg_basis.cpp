@@ -35,14 +35,20 @@ int RwgBasis::function_on(int a, int b) const {
   return m_first + static_cast<int>(found - m_edges.begin());
 }
 
+Eigen::Vector3cd current_density(const SurfaceMesh& mesh, const RwgBasis& basis, const ComplexVector& coefficients, int t,
+                                 const Vec3& r) {
+  Eigen::Vector3cd density = Eigen::Vector3cd::Zero();
+  for (const RwgPiece& piece : basis.pieces_on(t))
+    density += (piece.coefficient * coefficients[piece.basis]) * (r - mesh.corner(t, piece.free_corner)).cast<Complex>();
+  return density;
+}
+
 std::vector<Eigen::Vector3cd> centroid_current_density(const SurfaceMesh& mesh, const RwgBasis& basis,
                                                        const ComplexVector& coefficients) {
-  std::vector<Eigen::Vector3cd> density(mesh.triangles.size(), Eigen::Vector3cd::Zero());
+  std::vector<Eigen::Vector3cd> density(mesh.triangles.size());
   for (std::size_t t = 0; t < mesh.triangles.size(); ++t) {
     const int ti = static_cast<int>(t);
-    const Vec3 r = mesh.centroid(ti);
-    for (const RwgPiece& piece : basis.pieces_on(ti))
-      density[t] += (piece.coefficient * coefficients[piece.basis]) * (r - mesh.corner(ti, piece.free_corner)).cast<Complex>();
+    density[t] = current_density(mesh, basis, coefficients, ti, mesh.centroid(ti));
   }
   return density;
 }

@@ -43,6 +43,10 @@ class RwgBasis {
   std::vector<std::vector<RwgPiece>> m_by_triangle;
 };
 
+/// Σ_n I_n f_n at the point r of triangle t, A/m.
+Eigen::Vector3cd current_density(const SurfaceMesh& mesh, const RwgBasis& basis, const ComplexVector& coefficients, int t,
+                                 const Vec3& r);
+
 /// Σ_n I_n f_n at the centroid of every triangle, A/m, for coefficients indexed as the
 /// basis numbers its functions.
 std::vector<Eigen::Vector3cd> centroid_current_density(const SurfaceMesh& mesh, const RwgBasis& basis,
