@@ -13,13 +13,17 @@
 namespace lobe {
 namespace {
 
+/// Wire ends and junctions may attach to a surface; nodes inside a wire and on the ground
+/// do not.
+bool may_attach(const MeshNode& node) { return node.ends.size() != 2 && !node.on_ground; }
+
 /// Wire ends and junctions must become surface vertices where they touch a plate, and
 /// plate ports need mesh edges along their lines.
 MeshConstraints constraints_of(const Model& model, const WireMesh& mesh) {
   MeshConstraints c;
   if (model.surfaces.empty()) return c;
   for (const auto& node : mesh.nodes)
-    if (node.ends.size() != 2 && !node.on_ground) c.points.push_back(node.position);
+    if (may_attach(node)) c.points.push_back(node.position);
   for (const auto& p : model.ports)
     if (p.line) c.lines.push_back({p.line->from, p.line->to});
   return c;
@@ -68,16 +72,17 @@ void check_surfaces_above_ground(const Model& model, const SurfaceMeshReport& su
       }
 }
 
-/// Attached nodes; refuses a free wire end that stops short of a plate by less than a
-/// segment, which is almost always a modelling slip that the solver would take literally.
-std::vector<bool> attached_nodes(const Model& model, const WireMesh& mesh, const SurfaceMeshReport& surfaces) {
-  std::vector<bool> attached(mesh.nodes.size(), false);
+/// Per wire node, the surface vertex it is attached to, or −1 (constraint points come in
+/// node order, see constraints_of). Refuses a free wire end that stops short of a plate by
+/// less than a segment, almost always a modelling slip that the solver would take literally.
+std::vector<int> attachment_vertices(const Model& model, const WireMesh& mesh, const SurfaceMeshReport& surfaces) {
+  std::vector<int> vertex(mesh.nodes.size(), -1);
   std::size_t point = 0;
   for (std::size_t n = 0; n < mesh.nodes.size() && !model.surfaces.empty(); ++n) {
     const MeshNode& node = mesh.nodes[n];
-    if (node.ends.size() == 2 || node.on_ground) continue;
-    attached[n] = surfaces.point_vertex[point++] >= 0;
-    if (attached[n] || node.ends.size() != 1) continue;
+    if (!may_attach(node)) continue;
+    vertex[n] = surfaces.point_vertex[point++];
+    if (vertex[n] >= 0 || node.ends.size() != 1) continue;
     const Segment& seg = mesh.segments[node.ends.front().segment];
     for (std::size_t t = 0; t < surfaces.mesh.triangles.size(); ++t) {
       const int ti = static_cast<int>(t);
@@ -92,7 +97,13 @@ std::vector<bool> attached_nodes(const Model& model, const WireMesh& mesh, const
       }
     }
   }
-  return attached;
+  return vertex;
+}
+
+std::vector<bool> attached(const std::vector<int>& node_vertex) {
+  std::vector<bool> flags(node_vertex.size());
+  for (std::size_t n = 0; n < node_vertex.size(); ++n) flags[n] = node_vertex[n] >= 0;
+  return flags;
 }
 
 /// The coupling of a plate port: edge length times ±1 on every RWG function across its line.
@@ -136,16 +147,14 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
     : model(m),
       mesh(std::move(wires)),
       surfaces(std::move(meshed_surfaces)),
-      basis(mesh, attached_nodes(m, mesh, surfaces)),
+      node_vertex(attachment_vertices(m, mesh, surfaces)),
+      basis(mesh, attached(node_vertex)),
       rwg(surfaces.mesh, basis.size()) {
   check_surfaces_above_ground(m, surfaces);
-  require_current_at_gaps(mesh, attached_nodes(m, mesh, surfaces));
-  std::size_t point = 0;
-  for (std::size_t n = 0; n < mesh.nodes.size() && !m.surfaces.empty(); ++n) {
-    if (mesh.nodes[n].ends.size() == 2 || mesh.nodes[n].on_ground) continue;
-    const int vertex = surfaces.point_vertex[point++];
-    if (vertex < 0) continue;
-    stars.push_back(junction_star(surfaces.mesh, vertex));
+  require_current_at_gaps(mesh, attached(node_vertex));
+  for (std::size_t n = 0; n < mesh.nodes.size(); ++n) {
+    if (node_vertex[n] < 0) continue;
+    stars.push_back(junction_star(surfaces.mesh, node_vertex[n]));
     stars.back().bases = basis.functions_into_surface(static_cast<int>(n));
   }
   if (unknowns() == 0) throw InputError({m.file, 1, 1}, "the model has no place for current to flow (no unknowns)");

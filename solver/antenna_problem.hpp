@@ -24,6 +24,7 @@ struct AntennaProblem {
   const Model& model;
   WireMesh mesh;
   SurfaceMeshReport surfaces;
+  std::vector<int> node_vertex;     ///< per wire node: the surface vertex it is attached to, or −1
   WireBasis basis;
   RwgBasis rwg;
   std::vector<JunctionStar> stars;  ///< one per wire node attached to a surface
