@@ -63,5 +63,33 @@ TEST(StripDipoleReference, ResonatesLikeTheEquivalentWire) {
   EXPECT_NEAR(r_strip, r_wire, 0.05 * r_wire);
 }
 
+std::string strip_at(const std::string& name, Real length, Real height) {
+  char text[512];
+  std::snprintf(text, sizeof text,
+                "plate %s rectangle corner (%.17g, %.17g, %.17g) size (%.17g, %.17g)\n"
+                "mesh %s size %.17g\n"
+                "port %s_feed on %s along (0, %.17g, %.17g) to (0, %.17g, %.17g)\n",
+                name.c_str(), -length / 2, -strip_width / 2, height, length, strip_width, name.c_str(), strip_width / 2,
+                name.c_str(), name.c_str(), -strip_width / 2, height, strip_width / 2, height);
+  return text;
+}
+
+// Image theory for plates: a horizontal strip a quarter wavelength over a perfect ground
+// sees its image as a second strip at −h carrying the opposite current, so its impedance
+// is Z11 − Z12 of the pair in free space. 1e-3 relative: the two solutions mesh the same
+// rectangle and differ only by rounding and the mesher's placement of the second strip.
+TEST(StripDipoleReference, OverGroundEqualsThePairWithItsImage) {
+  constexpr Real length = 0.47, height = 0.25;
+  char frequency[64];
+  std::snprintf(frequency, sizeof frequency, "frequency %.17g Hz\n", one_metre_wavelength_hz);
+  const Solved over_ground = solve_text("ground perfect\n" + strip_at("s", length, height) + frequency);
+  expect_power_balance(over_ground);
+  const Solved pair = solve_text(strip_at("s", length, height) + strip_at("image", length, -height) + frequency);
+  const Complex z_ground = over_ground.port_impedance(), z_pair = pair.result.z_matrix(0, 0) - pair.result.z_matrix(0, 1);
+  std::printf("over ground %.4f %+.4fj ohm; Z11 - Z12 of the pair %.4f %+.4fj ohm\n", z_ground.real(), z_ground.imag(),
+              z_pair.real(), z_pair.imag());
+  EXPECT_LT(std::abs(z_ground - z_pair), 1e-3 * std::abs(z_pair));
+}
+
 }  // namespace
 }  // namespace lobe::testing
