@@ -13,6 +13,7 @@ struct RunOptions {
   std::string model_path;
   std::string output_directory;  ///< empty: <model stem>-results beside the current directory
   std::vector<std::string> set_options;
+  std::vector<std::string> band_options;  ///< extra bands, LOW:HIGH
   int threads = 0;               ///< 0: all available
   std::string command_line;
 };

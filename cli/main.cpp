@@ -26,6 +26,8 @@ int main(int argc, char** argv) {
   run_app->add_option("MODEL", run.model_path, "Model file (.lobe)")->required();
   run_app->add_option("-o,--output", run.output_directory, "Directory for result files (default: MODEL-STEM-results)");
   run_app->add_option("--set", run.set_options, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
+  run_app->add_option("--band", run.band_options, "Also report a band: LOW:HIGH, e.g. 5.65GHz:5.95GHz (repeatable)")
+      ->allow_extra_args(false);
   run_app->add_option("--threads", run.threads, "Threads for matrix fill and factorisation (default: all cores)")
       ->check(CLI::Range(1, 1024));
 

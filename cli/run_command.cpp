@@ -6,6 +6,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/model_loading.hpp"
+#include "geometry/model_parser.hpp"
 #include "post/csv_writer.hpp"
 #include "post/hdf5_writer.hpp"
 #include "post/output_files.hpp"
@@ -34,7 +35,9 @@ std::filesystem::path output_directory(const RunOptions& options) {
 
 int run_command(const RunOptions& options) {
   if (options.threads > 0) set_thread_count(options.threads);
-  const Model model = load_model(options.model_path, options.set_options);
+  Model model = load_model(options.model_path, options.set_options);
+  for (std::size_t i = 0; i < options.band_options.size(); ++i)
+    model.bands.push_back(parse_band_option(options.band_options[i], static_cast<int>(i) + 1));
   if (model.wave) return run_scattering(options, model);
   const AntennaProblem problem(model);
   print_warnings(problem.mesh);

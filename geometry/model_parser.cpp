@@ -821,4 +821,25 @@ Override parse_override(const std::string& option, int index) {
   return o;
 }
 
+Band parse_band_option(const std::string& option, int index) {
+  const SourceLocation where{"--band", index, 1};
+  const auto colon = option.find(':');
+  if (colon == std::string::npos) throw InputError(where, "--band takes LOW:HIGH, such as 2.4GHz:2.4835GHz");
+  auto edge = [&](const std::string& text, std::size_t column) {
+    std::vector<Token> tokens = tokenize_line(text, "--band", index);
+    for (Token& t : tokens) t.where.column += static_cast<int>(column);
+    TokenCursor c(tokens);
+    const SourceLocation at = c.peek().where;
+    const Quantity q = parse_expression(c, SymbolTable{});
+    if (!c.at_end()) throw InputError(c.peek().where, "unexpected text after the band edge");
+    if (!(q.dim == dimension::frequency) || !(q.value > 0.0))
+      throw InputError(at, "a band edge is a frequency above zero with its unit, such as 2.4GHz");
+    return q.value;
+  };
+  Band band{"option-" + std::to_string(index), edge(option.substr(0, colon), 0), edge(option.substr(colon + 1), colon + 1)};
+  if (band.high_hz <= band.low_hz)
+    throw InputError({"--band", index, static_cast<int>(colon) + 2}, "the band's high edge must be above its low edge");
+  return band;
+}
+
 }  // namespace lobe

@@ -21,4 +21,8 @@ Model parse_model(const std::string& text, const std::string& file,
 /// Splits "NAME=VALUE" of a --set option; the location names the option's position.
 Override parse_override(const std::string& option, int index);
 
+/// A band given on the command line as LOW:HIGH with frequency units ("2.4GHz:2.4835GHz"),
+/// named "option-INDEX". Errors are located at --band:INDEX:COLUMN.
+Band parse_band_option(const std::string& option, int index);
+
 }  // namespace lobe

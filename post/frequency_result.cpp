@@ -78,6 +78,8 @@ FrequencyResult evaluate_frequency(const AntennaProblem& problem, const Frequenc
     result.peak_theta = pattern.thetas[pi_index];
     result.peak_phi = pattern.phis[pj_index];
     result.peak_axial_ratio_db = pattern.axial_ratio_db(pi_index, pj_index);
+    result.peak_rhcp_dbi = pattern.rhcp_dbi(pi_index, pj_index);
+    result.peak_lhcp_dbi = pattern.lhcp_dbi(pi_index, pj_index);
     result.peak_hand = static_cast<Hand>(pattern.hand(pi_index, pj_index));
   }
   require_finite(result);

@@ -31,6 +31,7 @@ struct FrequencyResult {
   Real peak_gain_dbi = gain_floor_dbi;
   Real peak_theta = 0.0, peak_phi = 0.0;  ///< rad, on the grid
   Real peak_axial_ratio_db = axial_ratio_ceiling_db;
+  Real peak_rhcp_dbi = gain_floor_dbi, peak_lhcp_dbi = gain_floor_dbi;  ///< in the peak's direction
   Hand peak_hand = Hand::linear;
   std::vector<std::array<Complex, 2>> segment_currents;
   std::vector<Eigen::Vector3cd> surface_currents;  ///< A/m at each triangle's centroid

@@ -5,6 +5,7 @@
 #include <cstdio>
 
 #include "core/constants.hpp"
+#include "post/band_report.hpp"
 
 namespace lobe {
 namespace {
@@ -13,6 +14,71 @@ std::string printf_string(const char* format, auto... args) {
   char buffer[512];
   std::snprintf(buffer, sizeof buffer, format, args...);
   return buffer;
+}
+
+/// Linear interpolation of per-frequency values at f (results ascend in frequency).
+Real interpolated(const RunRecord& run, Real f, Real (*value)(const FrequencyResult&)) {
+  const auto& r = run.results;
+  if (f <= r.front().frequency_hz) return value(r.front());
+  for (std::size_t i = 1; i < r.size(); ++i)
+    if (f <= r[i].frequency_hz) {
+      const Real t = (f - r[i - 1].frequency_hz) / (r[i].frequency_hz - r[i - 1].frequency_hz);
+      return (1 - t) * value(r[i - 1]) + t * value(r[i]);
+    }
+  return value(r.back());
+}
+
+/// The band's match per port (band_report) and the pattern peak's figures at the band
+/// centre and at their worst over the band (computed frequencies inside and the
+/// interpolated edges).
+std::string band_text(const RunRecord& run, const Band& band) {
+  const Model& model = run.problem.model;
+  std::string out = "\nband " + band.name + " (" + frequency_text(band.low_hz) + " to " + frequency_text(band.high_hz) + "): ";
+  std::vector<const FrequencyResult*> inside;
+  for (const auto& r : run.results)
+    if (r.frequency_hz >= band.low_hz && r.frequency_hz <= band.high_hz) inside.push_back(&r);
+  if (run.results.front().frequency_hz > band.high_hz || run.results.back().frequency_hz < band.low_hz)
+    return out + "no computed frequency reaches it; add frequencies that cover it\n";
+  out += count_text(inside.size(), "computed frequency", "computed frequencies") + " inside";
+  if (run.results.front().frequency_hz > band.low_hz || run.results.back().frequency_hz < band.high_hz)
+    out += "; only part of it is covered";
+  out += "; between them the match is interpolated\n";
+  for (std::size_t p = 0; p < model.ports.size(); ++p) {
+    ReflectionCurve curve;
+    for (const auto& r : run.results) {
+      curve.frequency_hz.push_back(r.frequency_hz);
+      curve.reflection.push_back(r.ports[p].reflection);
+    }
+    const PortBandReport b = band_report(curve, band.low_hz, band.high_hz, vswr_caution_threshold);
+    out += printf_string("  port %-10s VSWR best %.3g at %s, mean %.3g, worst %.3g at %s; mean mismatch loss %.2f dB\n",
+                         model.ports[p].name.c_str(), b.lowest_vswr.value, frequency_text(b.lowest_vswr.frequency_hz).c_str(),
+                         b.mean_vswr, b.highest_vswr.value, frequency_text(b.highest_vswr.frequency_hz).c_str(),
+                         b.mean_mismatch_loss_db);
+    out += printf_string("  %-15s VSWR <= %.3g over %.0f%% of the band; ", "", b.vswr_threshold, 100 * b.fraction_within);
+    if (const auto& s = b.return_loss_10db)
+      out += printf_string("return loss >= 10 dB from %s%s to %s%s\n", s->open_low ? "below " : "",
+                           frequency_text(s->low_hz).c_str(), frequency_text(s->high_hz).c_str(),
+                           s->open_high ? " and beyond" : "");
+    else
+      out += "return loss stays under 10 dB\n";
+  }
+  const Real centre = 0.5 * (band.low_hz + band.high_hz);
+  auto gain = [](const FrequencyResult& r) { return r.peak_gain_dbi; };
+  auto rhcp = [](const FrequencyResult& r) { return r.peak_rhcp_dbi; };
+  auto lhcp = [](const FrequencyResult& r) { return r.peak_lhcp_dbi; };
+  auto axial = [](const FrequencyResult& r) { return r.peak_axial_ratio_db; };
+  Real lowest_gain = std::min(interpolated(run, band.low_hz, gain), interpolated(run, band.high_hz, gain));
+  Real worst_axial = std::max(interpolated(run, band.low_hz, axial), interpolated(run, band.high_hz, axial));
+  for (const auto* r : inside) {
+    lowest_gain = std::min(lowest_gain, r->peak_gain_dbi);
+    worst_axial = std::max(worst_axial, r->peak_axial_ratio_db);
+  }
+  out += printf_string("  %-15s gain %.2f dBi at the centre (RHCP %.2f, LHCP %.2f dBi), lowest %.2f dBi\n", "pattern peak",
+                       interpolated(run, centre, gain), interpolated(run, centre, rhcp), interpolated(run, centre, lhcp),
+                       lowest_gain);
+  out += printf_string("  %-15s axial ratio %.2f dB at the centre, worst %.2f dB\n", "", interpolated(run, centre, axial),
+                       worst_axial);
+  return out;
 }
 
 }  // namespace
@@ -48,29 +114,7 @@ std::string run_summary(const RunRecord& run) {
                          100.0 * r.power.efficiency());
   }
 
-  for (const auto& band : model.bands) {
-    out += "\nband " + band.name + " (" + frequency_text(band.low_hz) + " to " + frequency_text(band.high_hz) + "):";
-    std::vector<const FrequencyResult*> inside;
-    for (const auto& r : run.results)
-      if (r.frequency_hz >= band.low_hz && r.frequency_hz <= band.high_hz) inside.push_back(&r);
-    if (inside.empty()) {
-      out += " no computed frequency lies inside; add frequencies that cover it\n";
-      continue;
-    }
-    out += ' ';
-    out += count_text(inside.size(), "computed frequency", "computed frequencies");
-    out += '\n';
-    for (std::size_t p = 0; p < model.ports.size(); ++p) {
-      Real low = vswr_ceiling, high = 0.0, sum = 0.0;
-      for (const auto* r : inside) {
-        low = std::min(low, r->ports[p].vswr);
-        high = std::max(high, r->ports[p].vswr);
-        sum += r->ports[p].vswr;
-      }
-      out += printf_string("  port %-10s VSWR lowest %.3g, mean %.3g, worst %.3g\n", model.ports[p].name.c_str(), low,
-                           sum / inside.size(), high);
-    }
-  }
+  for (const auto& band : model.bands) out += band_text(run, band);
 
   Real smallest_rcond = 1.0, largest_residual = 0.0;
   for (const auto& r : run.results) {

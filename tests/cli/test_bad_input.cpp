@@ -97,6 +97,17 @@ TEST(BadInput, BadSetOption) {
   EXPECT_NE(r.err.find("--set:1:"), std::string::npos) << r.err;
 }
 
+TEST(BadInput, BadBandOption) {
+  const auto scratch = fresh_directory("bad-band");
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
+  for (const char* band : {"880MHz", "880:890MHz", "890MHz:880MHz", "1GHz:2m"}) {
+    const ProcessResult r = run_lobe("run '" + model + "' -o '" + (scratch / "out").string() + "' --band " + band, scratch);
+    EXPECT_EQ(r.exit_code, 2) << band;
+    EXPECT_NE(r.err.find("--band:1:"), std::string::npos) << r.err;
+    EXPECT_FALSE(std::filesystem::exists(scratch / "out")) << band;
+  }
+}
+
 TEST(BadInput, OutputDirectoryThatIsAFile) {
   const auto scratch = fresh_directory("bad-output");
   const auto file = scratch / "not-a-directory";

@@ -1,0 +1,125 @@
+#include "post/band_report.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <stdexcept>
+
+#include "post/port_quantities.hpp"
+#include "solver/gauss_legendre.hpp"
+
+namespace lobe {
+namespace {
+
+/// |Γ| at 10 dB return loss.
+const Real return_loss_10db_magnitude = std::pow(10.0, -0.5);
+/// Gauss points per sample interval: |Γ| is linear there, VSWR and mismatch loss smooth.
+constexpr int points_per_interval = 8;
+
+struct LinearMagnitude {
+  const ReflectionCurve& curve;
+  Real at(std::size_t i) const { return std::abs(curve.reflection[i]); }
+  /// |Γ| at f on interval [i, i + 1].
+  Real interpolate(std::size_t i, Real f) const {
+    const Real f0 = curve.frequency_hz[i], f1 = curve.frequency_hz[i + 1];
+    const Real t = f1 > f0 ? (f - f0) / (f1 - f0) : 0.0;
+    return (1 - t) * at(i) + t * at(i + 1);
+  }
+  /// Frequency on interval [i, i + 1] where |Γ| equals g (assumes it is crossed there).
+  Real crossing(std::size_t i, Real g) const {
+    const Real f0 = curve.frequency_hz[i], f1 = curve.frequency_hz[i + 1];
+    return f0 + (g - at(i)) / (at(i + 1) - at(i)) * (f1 - f0);
+  }
+};
+
+}  // namespace
+
+PortBandReport band_report(const ReflectionCurve& curve, Real low_hz, Real high_hz, Real vswr_threshold) {
+  const auto& f = curve.frequency_hz;
+  if (f.empty() || f.size() != curve.reflection.size() || !std::is_sorted(f.begin(), f.end()))
+    throw std::invalid_argument("a band report needs reflections at ascending frequencies");
+  PortBandReport report;
+  report.vswr_threshold = vswr_threshold;
+  report.covered_low_hz = std::max(low_hz, f.front());
+  report.covered_high_hz = std::min(high_hz, f.back());
+  if (report.covered_low_hz > report.covered_high_hz)
+    throw std::invalid_argument("the band lies outside the frequencies of the curve");
+  const LinearMagnitude magnitude{curve};
+  const Real threshold = (vswr_threshold - 1) / (vswr_threshold + 1);
+
+  // Extremes: at samples inside the band and at the (interpolated) band edges.
+  bool first = true;
+  auto consider = [&](Real frequency, Real g) {
+    const Real vswr = vswr_from_reflection(g);
+    if (first || vswr > report.highest_vswr.value) report.highest_vswr = {vswr, frequency};
+    if (first || vswr < report.lowest_vswr.value) report.lowest_vswr = {vswr, frequency};
+    first = false;
+  };
+  auto magnitude_at = [&](Real frequency) {
+    if (f.size() == 1) return magnitude.at(0);
+    const std::size_t i = std::min<std::size_t>(std::upper_bound(f.begin(), f.end(), frequency) - f.begin(), f.size() - 1);
+    return magnitude.interpolate(i - 1, frequency);
+  };
+  consider(report.covered_low_hz, magnitude_at(report.covered_low_hz));
+  for (std::size_t i = 0; i < f.size(); ++i)
+    if (f[i] > report.covered_low_hz && f[i] < report.covered_high_hz) consider(f[i], magnitude.at(i));
+  consider(report.covered_high_hz, magnitude_at(report.covered_high_hz));
+
+  // Averages and the fraction within the threshold, interval by interval.
+  const Real width = report.covered_high_hz - report.covered_low_hz;
+  if (width == 0.0) {
+    const Real g = magnitude_at(report.covered_low_hz);
+    report.mean_vswr = vswr_from_reflection(g);
+    report.mean_mismatch_loss_db = mismatch_loss_db(g);
+    report.fraction_within = g <= threshold ? 1.0 : 0.0;
+  } else {
+    const QuadratureRule& rule = gauss_legendre(points_per_interval);
+    Real vswr_sum = 0.0, loss_sum = 0.0, within = 0.0;
+    for (std::size_t i = 0; i + 1 < f.size(); ++i) {
+      const Real a = std::max(f[i], report.covered_low_hz), b = std::min(f[i + 1], report.covered_high_hz);
+      if (!(b > a)) continue;
+      for (int q = 0; q < points_per_interval; ++q) {
+        const Real x = a + (b - a) * rule.nodes[q], g = magnitude.interpolate(i, x);
+        vswr_sum += (b - a) * rule.weights[q] * vswr_from_reflection(g);
+        loss_sum += (b - a) * rule.weights[q] * mismatch_loss_db(g);
+      }
+      // |Γ| is linear on [a, b]: the part below the threshold is one piece.
+      const Real ga = magnitude.interpolate(i, a), gb = magnitude.interpolate(i, b);
+      if (ga <= threshold && gb <= threshold) within += b - a;
+      else if (ga <= threshold || gb <= threshold) {
+        const Real cross = a + (threshold - ga) / (gb - ga) * (b - a);
+        within += ga <= threshold ? cross - a : b - cross;
+      }
+    }
+    report.mean_vswr = vswr_sum / width;
+    report.mean_mismatch_loss_db = loss_sum / width;
+    report.fraction_within = within / width;
+  }
+
+  // The −10 dB stretch around the best match, over the whole curve.
+  const Real best_hz = report.lowest_vswr.frequency_hz;
+  const Real best = (report.lowest_vswr.value - 1) / (report.lowest_vswr.value + 1);
+  if (best <= return_loss_10db_magnitude && f.size() > 1) {
+    const Real limit = return_loss_10db_magnitude;
+    const std::size_t n = f.size();
+    // Samples at or below and at or above the best point (the same one when it is a sample).
+    std::size_t k = std::upper_bound(f.begin(), f.end(), best_hz) - f.begin() - 1;
+    std::size_t m = std::lower_bound(f.begin(), f.end(), best_hz) - f.begin();
+    PortBandReport::Stretch stretch;
+    if (magnitude.at(k) > limit) stretch.low_hz = magnitude.crossing(k, limit);
+    else {
+      while (k > 0 && magnitude.at(k - 1) <= limit) --k;
+      stretch.open_low = k == 0;
+      stretch.low_hz = k == 0 ? f.front() : magnitude.crossing(k - 1, limit);
+    }
+    if (magnitude.at(m) > limit) stretch.high_hz = magnitude.crossing(m - 1, limit);
+    else {
+      while (m + 1 < n && magnitude.at(m + 1) <= limit) ++m;
+      stretch.open_high = m + 1 == n;
+      stretch.high_hz = m + 1 == n ? f.back() : magnitude.crossing(m, limit);
+    }
+    report.return_loss_10db = stretch;
+  }
+  return report;
+}
+
+}  // namespace lobe

@@ -1,0 +1,48 @@
+#pragma once
+/// Honest figures over a whole band: extremes and frequency averages of a port's match,
+/// not its single best point.
+#include <optional>
+#include <vector>
+
+#include "core/types.hpp"
+
+namespace lobe {
+
+/// A port's reflection coefficient at ascending frequencies (computed or measured).
+struct ReflectionCurve {
+  std::vector<Real> frequency_hz;
+  std::vector<Complex> reflection;
+};
+
+struct AtFrequency {
+  Real value = 0.0;
+  Real frequency_hz = 0.0;
+};
+
+/// The match of one port over [low, high]. Between samples |Γ| is taken as linear in
+/// frequency (no extrapolation: only the part of the band the samples cover counts), and
+/// averages are integrals over frequency divided by the covered width, so uneven sampling
+/// does not weight any part of the band more than another.
+struct PortBandReport {
+  Real covered_low_hz = 0.0, covered_high_hz = 0.0;  ///< the part of the band the samples cover
+  AtFrequency lowest_vswr, highest_vswr;
+  Real mean_vswr = 0.0;
+  Real mean_mismatch_loss_db = 0.0;
+  Real vswr_threshold = 2.0;
+  Real fraction_within = 0.0;  ///< of the covered band with VSWR ≤ vswr_threshold
+  /// The contiguous stretch around the best match in the band where the return loss is at
+  /// least 10 dB (|Γ| ≤ 10^(−1/2)), searched over the whole curve; none when the best match
+  /// is worse than that. An end that reaches the curve's first or last sample is open: the
+  /// stretch may go on beyond it.
+  struct Stretch {
+    Real low_hz = 0.0, high_hz = 0.0;
+    bool open_low = false, open_high = false;
+  };
+  std::optional<Stretch> return_loss_10db;
+};
+
+/// Throws std::invalid_argument when the curve does not overlap [low, high] or is not
+/// ascending.
+PortBandReport band_report(const ReflectionCurve& curve, Real low_hz, Real high_hz, Real vswr_threshold = 2.0);
+
+}  // namespace lobe
