@@ -35,6 +35,17 @@ int mesh_command(const std::string& model_path, const std::string& output, const
 /// Prints the mesher's warnings as FILE:LINE:COL: warning: ... on standard error.
 void print_warnings(const WireMesh& mesh);
 
+struct ExportOptions {
+  std::string result_path;
+  std::string output;         ///< empty: the result's stem with .sNp beside it
+  std::string format = "ri";  ///< ri, ma or db
+  std::string unit = "GHz";   ///< Hz, kHz, MHz or GHz
+  int version = 1;            ///< Touchstone 1 or 2
+};
+
+/// Writes a result file's port S-parameters as Touchstone.
+int export_command(const ExportOptions& options);
+
 /// Parses and meshes; prints counts and warnings; solves nothing.
 int check_command(const std::string& model_path, const std::vector<std::string>& set_options);
 

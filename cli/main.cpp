@@ -44,6 +44,19 @@ int main(int argc, char** argv) {
   mesh_app->add_option("-o,--output", mesh_output, "Mesh file to write (.vtu)")->required();
   mesh_app->add_option("--set", mesh_sets, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
 
+  lobe::cli::ExportOptions export_options;
+  bool touchstone = false;
+  auto* export_app = app.add_subcommand("export", "Write a result file's port S-parameters in another format");
+  export_app->add_option("RESULT", export_options.result_path, "Result file written by run (.h5)")->required();
+  export_app->add_flag("--touchstone", touchstone, "Write Touchstone (.sNp), the only format so far")->required();
+  export_app->add_option("-o,--output", export_options.output, "File to write (default: RESULT-STEM.sNp beside it)");
+  export_app->add_option("--format", export_options.format, "Number format: ri, ma or db (default ri)")
+      ->check(CLI::IsMember({"ri", "ma", "db"}));
+  export_app->add_option("--unit", export_options.unit, "Frequency unit: Hz, kHz, MHz or GHz (default GHz)")
+      ->check(CLI::IsMember({"Hz", "kHz", "MHz", "GHz"}));
+  export_app->add_option("--touchstone-version", export_options.version, "Touchstone version 1 or 2 (default 1)")
+      ->check(CLI::IsMember({1, 2}));
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -54,6 +67,7 @@ int main(int argc, char** argv) {
   try {
     if (*run_app) return lobe::cli::run_command(run);
     if (*mesh_app) return lobe::cli::mesh_command(mesh_path, mesh_output, mesh_sets);
+    if (*export_app) return lobe::cli::export_command(export_options);
     return lobe::cli::check_command(check_path, check_sets);
   } catch (const lobe::InputError& e) {
     std::fprintf(stderr, "%s\n", e.formatted().c_str());

@@ -7,26 +7,13 @@
 #include <vector>
 
 #include "core/constants.hpp"
+#include "post/hdf5_handle.hpp"
 #include "post/scattering_result.hpp"
 
 namespace lobe {
 namespace {
 
-/// Closes an HDF5 handle when it goes out of scope.
-class Handle {
- public:
-  Handle(hid_t id, herr_t (*close)(hid_t)) : m_id(id), m_close(close) {
-    if (id < 0) throw std::runtime_error("HDF5 call failed");
-  }
-  ~Handle() { m_close(m_id); }
-  Handle(const Handle&) = delete;
-  Handle& operator=(const Handle&) = delete;
-  operator hid_t() const { return m_id; }
-
- private:
-  hid_t m_id;
-  herr_t (*m_close)(hid_t);
-};
+using Handle = Hdf5Handle;
 
 void check(herr_t status) {
   if (status < 0) throw std::runtime_error("HDF5 write failed");

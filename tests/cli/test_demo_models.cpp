@@ -7,6 +7,7 @@
 
 #include "cli/run_process.hpp"
 #include "core/constants.hpp"
+#include "post/touchstone.hpp"
 #include "support/mie_series.hpp"
 
 namespace lobe::testing {
@@ -250,6 +251,24 @@ TEST(DemoModels, MeshCommandWritesWiresAndPlatesTogether) {
   const std::string vtu = read_text(dir / "m.vtu");
   EXPECT_TRUE(well_formed_xml(vtu));
   EXPECT_NE(vtu.find("NumberOfCells=\"397\""), std::string::npos);  // 5 segments and 392 triangles, as `run` reports
+}
+
+// `export --touchstone` writes the S-parameters the run computed: read back with the
+// Touchstone reader, |S11| equals the ports table's reflection magnitude.
+TEST(DemoModels, ExportWritesTouchstoneOfTheRun) {
+  const auto dir = fresh_directory("export");
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
+  ASSERT_EQ(run_lobe("run '" + model + "' -o '" + (dir / "out").string() + "'", dir).exit_code, 0);
+  const ProcessResult r = run_lobe("export '" + (dir / "out" / "half_wave_dipole_ism.h5").string() + "' --touchstone", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const NetworkData network = read_touchstone(dir / "out" / "half_wave_dipole_ism.s1p");
+  const auto ports = read_csv(dir / "out" / "half_wave_dipole_ism_ports.csv");
+  ASSERT_EQ(network.frequency_hz.size(), ports.size());
+  for (std::size_t k = 0; k < ports.size(); ++k) {
+    EXPECT_NEAR(network.frequency_hz[k], number(ports[k], "frequency_hz"), 1e-6);
+    EXPECT_NEAR(std::abs(network.s[k](0, 0)), number(ports[k], "reflection_magnitude"), 1e-8);
+  }
+  EXPECT_EQ(run_lobe("export '" + model + "' --touchstone", dir).exit_code, 2);  // a model is no result
 }
 
 TEST(DemoModels, YagiBeamsForward) {

@@ -1,0 +1,58 @@
+#include "post/result_reader.hpp"
+
+#include <vector>
+
+#include "core/input_error.hpp"
+#include "post/hdf5_handle.hpp"
+
+namespace lobe {
+namespace {
+
+/// A dataset of doubles and its dimensions; nullopt-like empty dims when absent.
+std::vector<Real> read_reals(hid_t file, const char* name, std::vector<hsize_t>& dims) {
+  if (H5Lexists(file, name, H5P_DEFAULT) <= 0) return {};
+  Hdf5Handle set(H5Dopen2(file, name, H5P_DEFAULT), H5Dclose);
+  Hdf5Handle space(H5Dget_space(set), H5Sclose);
+  dims.assign(static_cast<std::size_t>(H5Sget_simple_extent_ndims(space)), 0);
+  H5Sget_simple_extent_dims(space, dims.data(), nullptr);
+  hsize_t count = 1;
+  for (hsize_t d : dims) count *= d;
+  std::vector<Real> values(count);
+  if (count > 0 && H5Dread(set, H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()) < 0)
+    throw std::runtime_error(std::string("cannot read ") + name);
+  return values;
+}
+
+}  // namespace
+
+NetworkData read_result_network(const std::filesystem::path& path) {
+  const SourceLocation where{path.string(), 1, 1};
+  H5Eset_auto2(H5E_DEFAULT, nullptr, nullptr);  // failures are reported here, not printed by HDF5
+  if (H5Fis_hdf5(path.c_str()) <= 0)
+    throw InputError(where, "cannot open this as an HDF5 result file");
+  Hdf5Handle file(H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT), H5Fclose);
+  std::vector<hsize_t> f_dims, re_dims, im_dims, r_dims;
+  const std::vector<Real> frequencies = read_reals(file, "/frequency_hz", f_dims);
+  const std::vector<Real> re = read_reals(file, "/ports/s_matrix_re", re_dims);
+  const std::vector<Real> im = read_reals(file, "/ports/s_matrix_im", im_dims);
+  const std::vector<Real> reference = read_reals(file, "/model/reference_ohm", r_dims);
+  if (frequencies.empty() || re.empty() || re_dims.size() != 3 || re_dims != im_dims || re_dims[0] != frequencies.size() ||
+      re_dims[1] != re_dims[2] || reference.size() != 1)
+    throw InputError(where, "this is not a lobe antenna result (it lacks /ports/s_matrix_re and its companions)");
+  NetworkData data;
+  data.reference_ohm = reference.front();
+  data.frequency_hz = frequencies;
+  const auto n = static_cast<Eigen::Index>(re_dims[1]);
+  for (std::size_t k = 0; k < frequencies.size(); ++k) {
+    ComplexMatrix s(n, n);
+    for (Eigen::Index i = 0; i < n; ++i)
+      for (Eigen::Index j = 0; j < n; ++j) {
+        const std::size_t at = (k * n + i) * n + j;
+        s(i, j) = {re[at], im[at]};
+      }
+    data.s.push_back(s);
+  }
+  return data;
+}
+
+}  // namespace lobe

@@ -1,0 +1,13 @@
+#pragma once
+/// Reads back what `lobe run` wrote, for commands that work on results (export, compare).
+#include <filesystem>
+
+#include "post/touchstone.hpp"
+
+namespace lobe {
+
+/// The port S-matrices and reference impedance of an antenna result file. Throws
+/// InputError (at FILE:1:1) when the file is not a lobe antenna result.
+NetworkData read_result_network(const std::filesystem::path& path);
+
+}  // namespace lobe
