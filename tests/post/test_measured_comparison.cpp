@@ -1,0 +1,101 @@
+// Measured tables in the forms analysers and couplers give, and the comparison of a
+// measured curve with a simulated one, on series RLC resonances known in closed form.
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <fstream>
+
+#include "core/constants.hpp"
+#include "core/input_error.hpp"
+#include "post/curve_comparison.hpp"
+#include "post/measured_csv.hpp"
+#include "post/port_quantities.hpp"
+
+namespace lobe {
+namespace {
+
+std::filesystem::path written(const std::string& name, const std::string& text) {
+  const auto dir = std::filesystem::temp_directory_path() / "lobe-measured-test";
+  std::filesystem::create_directories(dir);
+  std::ofstream(dir / name) << text;
+  return dir / name;
+}
+
+/// Series RLC with R = 50 Ω and Q = 10 resonating at f0.
+Complex rlc_reflection(Real f, Real f0) {
+  const Real l = 10 * 50 / (2 * pi * f0), c = 1 / ((2 * pi * f0) * (2 * pi * f0) * l), w = 2 * pi * f;
+  return reflection_coefficient({50.0, w * l - 1 / (w * c)}, 50.0);
+}
+
+ReflectionCurve rlc_curve(Real f0, Real low, Real high, int intervals) {
+  ReflectionCurve curve;
+  for (int i = 0; i <= intervals; ++i) {
+    const Real f = low + (high - low) * i / intervals;
+    curve.frequency_hz.push_back(f);
+    curve.reflection.push_back(rlc_reflection(f, f0));
+  }
+  return curve;
+}
+
+TEST(MeasuredCsv, ScalarReturnLossFromACoupler) {
+  // Return loss as a detector reads it: positive dB, MHz, a comment and a spare column.
+  const MeasuredCurve m = read_measured_csv(written("coupler.csv",
+                                                    "# invented demo data\n"
+                                                    "Frequency (MHz), Return loss (dB), note\n"
+                                                    "430, 6.02, a\n433, 20, b\n436, 9.54, c\n"),
+                                            50.0);
+  EXPECT_FALSE(m.phase_known);
+  ASSERT_EQ(m.curve.frequency_hz.size(), 3u);
+  EXPECT_DOUBLE_EQ(m.curve.frequency_hz[1], 433e6);
+  EXPECT_NEAR(std::abs(m.curve.reflection[1]), 0.1, 1e-12);
+  EXPECT_NEAR(vswr_from_reflection(std::abs(m.curve.reflection[2])), 2.0, 1e-3);  // 9.54 dB ⇔ VSWR 2 (common practice)
+}
+
+TEST(MeasuredCsv, EveryAcceptedQuantity) {
+  const Real g = 0.2;  // VSWR 1.5, return loss 13.98 dB, S11 −13.98 dB (common practice)
+  for (const char* text : {"frequency_hz,s11_db\n1e9,-13.979400086720376\n2e9,-13.979400086720376\n",
+                           "frequency_hz,vswr\n1e9,1.5\n2e9,1.5\n",
+                           "frequency_ghz,s11_magnitude\n1,0.2\n2,0.2\n",
+                           "frequency_hz,s11_re,s11_im\n1e9,0,0.2\n2e9,0.2,0\n",
+                           "frequency_hz,s11_magnitude,s11_deg\n1e9,0.2,90\n2e9,0.2,0\n",
+                           "frequency_hz,resistance_ohm,reactance_ohm\n1e9,75,0\n2e9,75,0\n"}) {
+    const MeasuredCurve m = read_measured_csv(written("any.csv", text), 50.0);
+    EXPECT_NEAR(std::abs(m.curve.reflection[0]), g, 1e-12) << text;
+    EXPECT_DOUBLE_EQ(m.curve.frequency_hz[1], 2e9) << text;
+  }
+}
+
+TEST(MeasuredCsv, FaultsAreLocated) {
+  auto message = [](const std::string& text) {
+    try {
+      read_measured_csv(written("bad.csv", text), 50.0);
+    } catch (const InputError& e) {
+      return e.formatted();
+    }
+    return std::string("no error");
+  };
+  EXPECT_NE(message("f,vswr\n1,2\n").find(":1:1: no frequency column"), std::string::npos);
+  EXPECT_NE(message("frequency_hz,phase\n1,2\n").find("no measured quantity"), std::string::npos);
+  EXPECT_NE(message("frequency_hz,vswr\n1e9,0.5\n2e9,2\n").find(":2:5: a VSWR cannot be below 1"), std::string::npos);
+  EXPECT_NE(message("frequency_hz,vswr\n2e9,2\n1e9,2\n").find(":3:1: frequencies must increase"), std::string::npos);
+  EXPECT_NE(message("frequency_hz,vswr\n1e9,x\n2e9,2\n").find(":2:5: expected a number"), std::string::npos);
+}
+
+// A build that resonates 3 % high: the dips, the scale factor and the residual after
+// scaling come out as constructed.
+TEST(CurveComparison, RecoversAFrequencyShift) {
+  const ReflectionCurve simulated = rlc_curve(1.0e9, 0.85e9, 1.15e9, 300);
+  const ReflectionCurve measured = rlc_curve(1.03e9, 0.9e9, 1.15e9, 127);  // other grid, narrower span
+  const auto sim = resonances(simulated), meas = resonances(measured);
+  ASSERT_EQ(sim.size(), 1u);
+  ASSERT_EQ(meas.size(), 1u);
+  EXPECT_NEAR(sim[0].frequency_hz, 1.0e9, 1e-3 * 1e9);
+  EXPECT_NEAR(meas[0].frequency_hz, 1.03e9, 2e-3 * 1e9);
+  const Real scale = best_frequency_scale(simulated, measured, 0.9e9, 1.15e9);
+  EXPECT_NEAR(scale, 1.03, 1e-3);
+  EXPECT_GT(rms_return_loss_difference_db(simulated, measured, 0.9e9, 1.15e9), 3.0);
+  EXPECT_LT(rms_return_loss_difference_db(simulated, measured, 0.9e9, 1.15e9, scale), 0.5);
+}
+
+}  // namespace
+}  // namespace lobe
