@@ -46,6 +46,17 @@ struct ExportOptions {
 /// Writes a result file's port S-parameters as Touchstone.
 int export_command(const ExportOptions& options);
 
+struct CompareOptions {
+  std::string result_path;
+  std::string measured_path;
+  std::string port;                       ///< empty: the first port
+  std::vector<std::string> band_options;  ///< LOW:HIGH; none: the overlap of the two curves
+};
+
+/// Compares a result's reflection with a measured one (Touchstone or CSV) and prints dips,
+/// differences, the best frequency-scale factor and band reports side by side.
+int compare_command(const CompareOptions& options);
+
 /// Parses and meshes; prints counts and warnings; solves nothing.
 int check_command(const std::string& model_path, const std::vector<std::string>& set_options);
 

@@ -57,6 +57,14 @@ int main(int argc, char** argv) {
   export_app->add_option("--touchstone-version", export_options.version, "Touchstone version 1 or 2 (default 1)")
       ->check(CLI::IsMember({1, 2}));
 
+  lobe::cli::CompareOptions compare;
+  auto* compare_app = app.add_subcommand("compare", "Compare a result's reflection with a measured curve");
+  compare_app->add_option("RESULT", compare.result_path, "Result file written by run (.h5)")->required();
+  compare_app->add_option("MEASURED", compare.measured_path, "Measured data: Touchstone (.s1p, .ts) or CSV")->required();
+  compare_app->add_option("--port", compare.port, "The result's port to compare (default: the first)");
+  compare_app->add_option("--band", compare.band_options, "A band to report: LOW:HIGH (repeatable; default: the overlap)")
+      ->allow_extra_args(false);
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -68,6 +76,7 @@ int main(int argc, char** argv) {
     if (*run_app) return lobe::cli::run_command(run);
     if (*mesh_app) return lobe::cli::mesh_command(mesh_path, mesh_output, mesh_sets);
     if (*export_app) return lobe::cli::export_command(export_options);
+    if (*compare_app) return lobe::cli::compare_command(compare);
     return lobe::cli::check_command(check_path, check_sets);
   } catch (const lobe::InputError& e) {
     std::fprintf(stderr, "%s\n", e.formatted().c_str());

@@ -26,10 +26,19 @@ Real magnitude_at(const ReflectionCurve& c, Real f) {
 std::vector<Resonance> resonances(const ReflectionCurve& curve, Real minimum_return_loss_db) {
   std::vector<Resonance> found;
   const auto& f = curve.frequency_hz;
+  std::vector<Real> loss;
+  for (const Complex& g : curve.reflection) loss.push_back(return_loss_db(std::abs(g)));
+  // A dip's prominence: how far it rises above the higher of the lowest points between it
+  // and the nearest deeper dip on either side (or the curve's end).
+  auto prominence = [&](std::size_t i) {
+    Real left = loss[i], right = loss[i];
+    for (std::size_t j = i; j-- > 0 && loss[j] <= loss[i];) left = std::min(left, loss[j]);
+    for (std::size_t j = i + 1; j < loss.size() && loss[j] <= loss[i]; ++j) right = std::min(right, loss[j]);
+    return loss[i] - std::max(left, right);
+  };
   for (std::size_t i = 1; i + 1 < f.size(); ++i) {
-    const Real a = return_loss_db(std::abs(curve.reflection[i - 1])), b = return_loss_db(std::abs(curve.reflection[i])),
-               c = return_loss_db(std::abs(curve.reflection[i + 1]));
-    if (!(b > a && b >= c) || b < minimum_return_loss_db) continue;
+    const Real a = loss[i - 1], b = loss[i], c = loss[i + 1];
+    if (!(b > a && b >= c) || b < minimum_return_loss_db || prominence(i) < minimum_dip_prominence_db) continue;
     // Vertex of the parabola through the three points (unequal spacing allowed).
     const Real x0 = f[i - 1] - f[i], x2 = f[i + 1] - f[i];
     const Real denominator = x0 * x2 * (x0 - x2);

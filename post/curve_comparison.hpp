@@ -13,7 +13,11 @@ struct Resonance {
   Real return_loss_db = 0.0;
 };
 
-/// Dips with at least `minimum_return_loss_db` at the bottom.
+/// A dip must stand this far (dB of return loss) above the ground separating it from any
+/// deeper dip, so that ripple on a measured curve does not count as resonances.
+constexpr Real minimum_dip_prominence_db = 3.0;
+
+/// Dips with at least `minimum_return_loss_db` at the bottom and the prominence above.
 std::vector<Resonance> resonances(const ReflectionCurve& curve, Real minimum_return_loss_db = 3.0);
 
 /// RMS difference of the return losses (dB, each capped at return_loss_compare_cap_db so

@@ -23,14 +23,36 @@ std::vector<Real> read_reals(hid_t file, const char* name, std::vector<hsize_t>&
   return values;
 }
 
+/// Opens a result file for reading, or throws InputError at FILE:1:1.
+hid_t open_result(const std::filesystem::path& path) {
+  H5Eset_auto2(H5E_DEFAULT, nullptr, nullptr);  // failures are reported here, not printed by HDF5
+  if (H5Fis_hdf5(path.c_str()) <= 0) throw InputError({path.string(), 1, 1}, "cannot open this as an HDF5 result file");
+  return H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
+}
+
 }  // namespace
+
+std::vector<std::string> read_result_port_names(const std::filesystem::path& path) {
+  Hdf5Handle file(open_result(path), H5Fclose);
+  if (H5Lexists(file, "/ports", H5P_DEFAULT) <= 0 || H5Lexists(file, "/ports/names", H5P_DEFAULT) <= 0)
+    throw InputError({path.string(), 1, 1}, "this is not a lobe antenna result (it has no /ports/names)");
+  Hdf5Handle set(H5Dopen2(file, "/ports/names", H5P_DEFAULT), H5Dclose);
+  Hdf5Handle space(H5Dget_space(set), H5Sclose);
+  hsize_t count = 0;
+  H5Sget_simple_extent_dims(space, &count, nullptr);
+  Hdf5Handle type(H5Tcopy(H5T_C_S1), H5Tclose);
+  H5Tset_size(type, H5T_VARIABLE);
+  std::vector<char*> pointers(count, nullptr);
+  if (count > 0 && H5Dread(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, pointers.data()) < 0)
+    throw std::runtime_error("cannot read /ports/names");
+  std::vector<std::string> names(pointers.begin(), pointers.end());
+  if (count > 0) H5Dvlen_reclaim(type, space, H5P_DEFAULT, pointers.data());
+  return names;
+}
 
 NetworkData read_result_network(const std::filesystem::path& path) {
   const SourceLocation where{path.string(), 1, 1};
-  H5Eset_auto2(H5E_DEFAULT, nullptr, nullptr);  // failures are reported here, not printed by HDF5
-  if (H5Fis_hdf5(path.c_str()) <= 0)
-    throw InputError(where, "cannot open this as an HDF5 result file");
-  Hdf5Handle file(H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT), H5Fclose);
+  Hdf5Handle file(open_result(path), H5Fclose);
   std::vector<hsize_t> f_dims, re_dims, im_dims, r_dims;
   const std::vector<Real> frequencies = read_reals(file, "/frequency_hz", f_dims);
   const std::vector<Real> re = read_reals(file, "/ports/s_matrix_re", re_dims);

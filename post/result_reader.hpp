@@ -1,6 +1,8 @@
 #pragma once
 /// Reads back what `lobe run` wrote, for commands that work on results (export, compare).
 #include <filesystem>
+#include <string>
+#include <vector>
 
 #include "post/touchstone.hpp"
 
@@ -9,5 +11,8 @@ namespace lobe {
 /// The port S-matrices and reference impedance of an antenna result file. Throws
 /// InputError (at FILE:1:1) when the file is not a lobe antenna result.
 NetworkData read_result_network(const std::filesystem::path& path);
+
+/// The port names of an antenna result file, in port order.
+std::vector<std::string> read_result_port_names(const std::filesystem::path& path);
 
 }  // namespace lobe

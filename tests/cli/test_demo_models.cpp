@@ -271,6 +271,28 @@ TEST(DemoModels, ExportWritesTouchstoneOfTheRun) {
   EXPECT_EQ(run_lobe("export '" + model + "' --touchstone", dir).exit_code, 2);  // a model is no result
 }
 
+// The worked example: the ground plane against its invented "measured" return loss, made
+// from the model with every frequency times 0.985. compare must find that factor, and a
+// result compared with its own Touchstone export must match exactly.
+TEST(DemoModels, CompareFindsTheFrequencyScaleOfTheInventedMeasurement) {
+  const auto dir = fresh_directory("compare");
+  const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
+  ASSERT_EQ(run_lobe("run '" + models + "ground_plane_433.lobe' -o '" + (dir / "out").string() + "'", dir).exit_code, 0);
+  const std::string result = (dir / "out" / "ground_plane_433.h5").string();
+  ProcessResult r = run_lobe("compare '" + result + "' '" + models + "ground_plane_433_measured.csv' --band 433.05MHz:434.79MHz", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const auto at = r.out.find("best frequency-scale factor: ");
+  ASSERT_NE(at, std::string::npos) << r.out;
+  EXPECT_NEAR(std::stod(r.out.substr(at + 29)), 0.985, 0.002) << r.out;
+  EXPECT_NE(r.out.find("magnitude only"), std::string::npos);
+  ASSERT_EQ(run_lobe("export '" + result + "' --touchstone", dir).exit_code, 0);
+  r = run_lobe("compare '" + result + "' '" + (dir / "out" / "ground_plane_433.s1p").string() + "' --port feed", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_NE(r.out.find("best frequency-scale factor: 1.0000"), std::string::npos) << r.out;
+  EXPECT_NE(r.out.find("RMS return-loss difference 0.00 dB"), std::string::npos) << r.out;
+  EXPECT_EQ(run_lobe("compare '" + result + "' '" + models + "ground_plane_433_measured.csv' --port nope", dir).exit_code, 2);
+}
+
 TEST(DemoModels, YagiBeamsForward) {
   const DemoRun run = run_demo("yagi_3el_144");
   const double f = 145e6;

@@ -1,0 +1,115 @@
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <filesystem>
+
+#include "cli/commands.hpp"
+#include "geometry/model_parser.hpp"
+#include "post/curve_comparison.hpp"
+#include "post/measured_csv.hpp"
+#include "post/port_quantities.hpp"
+#include "post/result_reader.hpp"
+#include "post/run_summary.hpp"
+#include "post/touchstone.hpp"
+
+namespace lobe::cli {
+namespace {
+
+/// The measured curve from Touchstone (by extension .sNp or .ts) or CSV; port 1 of a network.
+MeasuredCurve read_measured(const std::string& path, Real reference_ohm) {
+  const std::string extension = std::filesystem::path(path).extension().string();
+  const bool touchstone = extension == ".ts" || (extension.size() >= 4 && (extension[1] == 's' || extension[1] == 'S') &&
+                                                 (extension.back() == 'p' || extension.back() == 'P'));
+  if (!touchstone) return read_measured_csv(path, reference_ohm);
+  const NetworkData network = read_touchstone(path);
+  MeasuredCurve measured{{network.frequency_hz, {}}, true, "complex S11 (Touchstone)"};
+  for (const auto& s : network.s) {
+    // Referred to the result's reference impedance, so that both curves mean the same.
+    const Complex z = network.reference_ohm * (1.0 + s(0, 0)) / (1.0 - s(0, 0));
+    measured.curve.reflection.push_back(reflection_coefficient(z, reference_ohm));
+  }
+  return measured;
+}
+
+std::string band_line(const char* label, const PortBandReport& r) {
+  char text[256];
+  std::snprintf(text, sizeof text, "  %-10s VSWR best %.3g at %s, mean %.3g, worst %.3g at %s; VSWR <= 2 over %.0f%%\n",
+                label, r.lowest_vswr.value, frequency_text(r.lowest_vswr.frequency_hz).c_str(), r.mean_vswr,
+                r.highest_vswr.value, frequency_text(r.highest_vswr.frequency_hz).c_str(), 100 * r.fraction_within);
+  return text;
+}
+
+}  // namespace
+
+int compare_command(const CompareOptions& options) {
+  const NetworkData network = read_result_network(options.result_path);
+  const std::vector<std::string> names = read_result_port_names(options.result_path);
+  int port = 0;
+  if (!options.port.empty()) {
+    const auto found = std::find(names.begin(), names.end(), options.port);
+    if (found == names.end()) throw InputError({"--port", 1, 1}, "the result has no port named '" + options.port + "'");
+    port = static_cast<int>(found - names.begin());
+  }
+  ReflectionCurve simulated{network.frequency_hz, {}};
+  for (const auto& s : network.s) simulated.reflection.push_back(s(port, port));
+  const MeasuredCurve measured = read_measured(options.measured_path, network.reference_ohm);
+  const Real low = std::max(simulated.frequency_hz.front(), measured.curve.frequency_hz.front());
+  const Real high = std::min(simulated.frequency_hz.back(), measured.curve.frequency_hz.back());
+  if (!(low < high))
+    throw InputError({options.measured_path, 1, 1}, "the measured frequencies do not overlap the simulated ones (" +
+                                                        frequency_text(simulated.frequency_hz.front()) + " to " +
+                                                        frequency_text(simulated.frequency_hz.back()) + ")");
+  std::vector<Band> bands;
+  for (std::size_t i = 0; i < options.band_options.size(); ++i)
+    bands.push_back(parse_band_option(options.band_options[i], static_cast<int>(i) + 1));
+  if (bands.empty()) bands.push_back({"overlap", low, high});
+
+  std::printf("simulated: %s, port %s (%zu frequencies)\n", options.result_path.c_str(), names[port].c_str(),
+              simulated.frequency_hz.size());
+  std::printf("measured:  %s, %s%s (%zu frequencies)\n", options.measured_path.c_str(), measured.quantity.c_str(),
+              measured.phase_known ? "" : ", magnitude only", measured.curve.frequency_hz.size());
+  std::printf("overlap:   %s to %s, reference %.6g ohm\n\n", frequency_text(low).c_str(), frequency_text(high).c_str(),
+              network.reference_ohm);
+
+  const auto simulated_dips = resonances(simulated), measured_dips = resonances(measured.curve);
+  std::printf("dips of |S11| (return loss at least 3 dB):\n");
+  for (const auto& d : simulated_dips)
+    std::printf("  simulated  %-14s return loss %.1f dB\n", frequency_text(d.frequency_hz).c_str(), d.return_loss_db);
+  for (const auto& d : measured_dips) {
+    std::printf("  measured   %-14s return loss %.1f dB", frequency_text(d.frequency_hz).c_str(), d.return_loss_db);
+    if (!simulated_dips.empty()) {
+      const auto nearest = std::min_element(simulated_dips.begin(), simulated_dips.end(), [&](const auto& a, const auto& b) {
+        return std::abs(a.frequency_hz - d.frequency_hz) < std::abs(b.frequency_hz - d.frequency_hz);
+      });
+      std::printf(", %+.3g MHz (%+.2f %%) from the simulated dip", (d.frequency_hz - nearest->frequency_hz) / 1e6,
+                  100 * (d.frequency_hz / nearest->frequency_hz - 1));
+    }
+    std::printf("\n");
+  }
+  if (simulated_dips.empty() && measured_dips.empty()) std::printf("  none in either curve\n");
+
+  const Real scale = best_frequency_scale(simulated, measured.curve, low, high);
+  std::printf("\nbest frequency-scale factor: %.4f (the measured curve looks like the simulated one with every "
+              "frequency times %.4f)\n",
+              scale, scale);
+  std::printf("  that is what lengths %.2f %% %s than the model's would do: a simple antenna's resonances scale "
+              "inversely with its size\n",
+              std::abs(100 * (1 / scale - 1)), scale < 1 ? "longer" : "shorter");
+  for (const Band& band : bands) {
+    const Real b_low = std::max(band.low_hz, low), b_high = std::min(band.high_hz, high);
+    std::printf("\nband %s (%s to %s):\n", band.name.c_str(), frequency_text(band.low_hz).c_str(),
+                frequency_text(band.high_hz).c_str());
+    if (!(b_low < b_high)) {
+      std::printf("  outside the overlap of the two curves\n");
+      continue;
+    }
+    std::printf("  RMS return-loss difference %.2f dB; %.2f dB after scaling the frequencies by %.4f\n",
+                rms_return_loss_difference_db(simulated, measured.curve, b_low, b_high),
+                rms_return_loss_difference_db(simulated, measured.curve, b_low, b_high, scale), scale);
+    std::printf("%s", band_line("simulated", band_report(simulated, b_low, b_high)).c_str());
+    std::printf("%s", band_line("measured", band_report(measured.curve, b_low, b_high)).c_str());
+  }
+  return 0;
+}
+
+}  // namespace lobe::cli
