@@ -1,6 +1,7 @@
 #pragma once
 /// The subcommands of the lobe program; each returns the process exit code.
 #include <filesystem>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -14,6 +15,7 @@ struct RunOptions {
   std::string output_directory;  ///< empty: <model stem>-results beside the current directory
   std::vector<std::string> set_options;
   std::vector<std::string> band_options;  ///< extra bands, LOW:HIGH
+  std::optional<double> tx_power_w;       ///< forward power for reflected-power figures
   int threads = 0;               ///< 0: all available
   std::string command_line;
 };

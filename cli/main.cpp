@@ -28,6 +28,8 @@ int main(int argc, char** argv) {
   run_app->add_option("--set", run.set_options, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
   run_app->add_option("--band", run.band_options, "Also report a band: LOW:HIGH, e.g. 5.65GHz:5.95GHz (repeatable)")
       ->allow_extra_args(false);
+  run_app->add_option("--tx-power", run.tx_power_w, "Transmitter forward power in W: print the reflected power")
+      ->check(CLI::PositiveNumber);
   run_app->add_option("--threads", run.threads, "Threads for matrix fill and factorisation (default: all cores)")
       ->check(CLI::Range(1, 1024));
 

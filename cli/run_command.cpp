@@ -60,7 +60,7 @@ int run_command(const RunOptions& options) {
     if (v.overridden) std::printf("set %s = %.10g %s\n", v.name.c_str(), v.value, v.unit.c_str());
   std::printf("\n");
 
-  RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), options.command_line}};
+  RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), options.command_line, options.tx_power_w}};
   const bool terminal = isatty(fileno(stderr));
   const auto start = std::chrono::steady_clock::now();
   for (std::size_t i = 0; i < model.frequencies_hz.size(); ++i) {

@@ -51,4 +51,6 @@ std::vector<PortResult> port_results(const FrequencySolution& solution, Real ref
   return results;
 }
 
+Real reflected_power_w(Real forward_w, Real magnitude) { return forward_w * magnitude * magnitude; }
+
 }  // namespace lobe

@@ -19,6 +19,8 @@ Real vswr_from_reflection(Real magnitude);
 Real return_loss_db(Real magnitude);
 /// −10 log10(1 − |Γ|²), dB: the share of available power not accepted.
 Real mismatch_loss_db(Real magnitude);
+/// Power sent back toward a transmitter delivering `forward_w` into |Γ|: P |Γ|², W.
+Real reflected_power_w(Real forward_w, Real magnitude);
 
 struct PortResult {
   Complex voltage;       ///< V, as driven

@@ -1,5 +1,6 @@
 #pragma once
 /// A finished run: the problem, the results at every frequency, and how it was run.
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -11,6 +12,7 @@ struct RunInfo {
   std::string version;
   int threads = 1;
   std::string command_line;
+  std::optional<Real> tx_power_w;  ///< forward power at each driven port, for reflected-power figures
 };
 
 struct RunRecord {

@@ -6,6 +6,7 @@
 
 #include "core/constants.hpp"
 #include "post/band_report.hpp"
+#include "post/port_quantities.hpp"
 
 namespace lobe {
 namespace {
@@ -81,6 +82,30 @@ std::string band_text(const RunRecord& run, const Band& band) {
   return out;
 }
 
+/// P |Γ|² at every frequency and driven port, flagged where it exceeds the share that
+/// VSWR 2 reflects (1/9, the usual limit; common practice).
+std::string reflected_power_text(const RunRecord& run, Real forward_w) {
+  const Real limit_gamma = (vswr_caution_threshold - 1) / (vswr_caution_threshold + 1);
+  const Real limit = reflected_power_w(forward_w, limit_gamma);
+  std::string out = printf_string("\nreflected power with %.4g W forward at each driven port (P |Gamma|^2); '!' marks more "
+                                  "than %.3g W, what VSWR %.3g reflects:\n",
+                                  forward_w, limit, vswr_caution_threshold);
+  out += printf_string("%-14s %-10s %14s\n", "frequency", "port", "reflected (W)");
+  int flagged = 0;
+  for (const auto& r : run.results)
+    for (std::size_t p = 0; p < r.ports.size(); ++p) {
+      if (!r.ports[p].driven) continue;
+      const Real w = reflected_power_w(forward_w, std::abs(r.ports[p].reflection));
+      flagged += w > limit;
+      out += printf_string("%-14s %-10s %14.4g%s\n", frequency_text(r.frequency_hz).c_str(),
+                           run.problem.model.ports[p].name.c_str(), w, w > limit ? " !" : "");
+    }
+  if (flagged)
+    out += printf_string("%d of these exceed %.3g W: check that the transmitter tolerates it before transmitting there.\n",
+                         flagged, limit);
+  return out;
+}
+
 }  // namespace
 
 std::string frequency_text(Real hz) {
@@ -133,6 +158,7 @@ std::string run_summary(const RunRecord& run) {
         worst = p.vswr;
         worst_hz = r.frequency_hz;
       }
+  if (run.info.tx_power_w) out += reflected_power_text(run, *run.info.tx_power_w);
   out += "\nCautions:\n";
   if (worst > vswr_caution_threshold) {
     const Real gamma = (worst - 1.0) / (worst + 1.0);

@@ -293,6 +293,22 @@ TEST(DemoModels, CompareFindsTheFrequencyScaleOfTheInventedMeasurement) {
   EXPECT_EQ(run_lobe("compare '" + result + "' '" + models + "ground_plane_433_measured.csv' --port nope", dir).exit_code, 2);
 }
 
+// With --tx-power the summary lists P |Γ|² per frequency; each value must agree with the
+// ports table's reflection magnitude.
+TEST(DemoModels, ReflectedPowerFollowsTheReflection) {
+  const auto dir = fresh_directory("tx-power");
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
+  const ProcessResult r = run_lobe("run '" + model + "' -o '" + (dir / "out").string() + "' --tx-power 4", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  ASSERT_NE(r.out.find("reflected power with 4 W forward"), std::string::npos) << r.out;
+  const auto ports = read_csv(dir / "out" / "half_wave_dipole_ism_ports.csv");
+  const double g = number(ports.front(), "reflection_magnitude");
+  char expected[64];
+  std::snprintf(expected, sizeof expected, "%14.4g", 4 * g * g);
+  EXPECT_NE(r.out.find(expected), std::string::npos) << expected << "\n" << r.out;
+  EXPECT_EQ(run_lobe("run '" + model + "' -o '" + (dir / "x").string() + "' --tx-power -1", dir).exit_code, 2);
+}
+
 TEST(DemoModels, YagiBeamsForward) {
   const DemoRun run = run_demo("yagi_3el_144");
   const double f = 145e6;

@@ -15,6 +15,7 @@ TEST(PortQuantities, TradeCheckValues) {
   EXPECT_NEAR(mismatch_loss_db(0.2), 0.177, 0.0005);
   EXPECT_NEAR(vswr_from_reflection(1.0 / 3.0), 2.0, 1e-12);
   EXPECT_NEAR(return_loss_db(1.0 / 3.0), 9.54, 0.005);
+  EXPECT_NEAR(reflected_power_w(4.0, 0.2), 0.16, 1e-15);  // 4 W into VSWR 1.5 reflects 0.16 W
 }
 
 TEST(PortQuantities, ReflectionOfResistiveLoads) {
