@@ -7,6 +7,7 @@
 
 #include "geometry/model.hpp"
 #include "geometry/wire_mesh.hpp"
+#include "post/measured_csv.hpp"
 
 namespace lobe::cli {
 
@@ -58,6 +59,20 @@ struct CompareOptions {
 /// Compares a result's reflection with a measured one (Touchstone or CSV) and prints dips,
 /// differences, the best frequency-scale factor and band reports side by side.
 int compare_command(const CompareOptions& options);
+
+struct PlotOptions {
+  std::string result_path;
+  std::string output_directory;  ///< empty: beside the result
+  std::string measured_path;     ///< optional measured curve to overlay
+};
+
+/// Writes SVG figures of a result: VSWR and return loss against frequency with the bands
+/// shaded, and the Smith chart; a measured curve is overlaid when given.
+int plot_command(const PlotOptions& options);
+
+/// The measured curve from Touchstone (by extension .sNp or .ts; its first port, referred
+/// to `reference_ohm`) or from a CSV table.
+MeasuredCurve read_measured(const std::string& path, Real reference_ohm);
 
 /// Parses and meshes; prints counts and warnings; solves nothing.
 int check_command(const std::string& model_path, const std::vector<std::string>& set_options);

@@ -13,9 +13,7 @@
 #include "post/touchstone.hpp"
 
 namespace lobe::cli {
-namespace {
 
-/// The measured curve from Touchstone (by extension .sNp or .ts) or CSV; port 1 of a network.
 MeasuredCurve read_measured(const std::string& path, Real reference_ohm) {
   const std::string extension = std::filesystem::path(path).extension().string();
   const bool touchstone = extension == ".ts" || (extension.size() >= 4 && (extension[1] == 's' || extension[1] == 'S') &&
@@ -30,6 +28,8 @@ MeasuredCurve read_measured(const std::string& path, Real reference_ohm) {
   }
   return measured;
 }
+
+namespace {
 
 std::string band_line(const char* label, const PortBandReport& r) {
   char text[256];

@@ -67,6 +67,12 @@ int main(int argc, char** argv) {
   compare_app->add_option("--band", compare.band_options, "A band to report: LOW:HIGH (repeatable; default: the overlap)")
       ->allow_extra_args(false);
 
+  lobe::cli::PlotOptions plot;
+  auto* plot_app = app.add_subcommand("plot", "Write SVG figures of a result (VSWR, return loss, Smith chart)");
+  plot_app->add_option("RESULT", plot.result_path, "Result file written by run (.h5)")->required();
+  plot_app->add_option("-o,--output", plot.output_directory, "Directory for the figures (default: beside the result)");
+  plot_app->add_option("--measured", plot.measured_path, "A measured curve to overlay: Touchstone or CSV");
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -79,6 +85,7 @@ int main(int argc, char** argv) {
     if (*mesh_app) return lobe::cli::mesh_command(mesh_path, mesh_output, mesh_sets);
     if (*export_app) return lobe::cli::export_command(export_options);
     if (*compare_app) return lobe::cli::compare_command(compare);
+    if (*plot_app) return lobe::cli::plot_command(plot);
     return lobe::cli::check_command(check_path, check_sets);
   } catch (const lobe::InputError& e) {
     std::fprintf(stderr, "%s\n", e.formatted().c_str());

@@ -105,6 +105,14 @@ void write_model(hid_t file, const RunRecord& run) {
   string_attribute(g, "file", model.file);
   string_attribute(g, "ground", model.ground_perfect ? "perfect" : "none");
   write_reals(g, "reference_ohm", {1}, {model.reference_ohm}, "ohm");
+  std::vector<std::string> band_names;
+  std::vector<Real> band_edges;
+  for (const auto& b : model.bands) {
+    band_names.push_back(b.name);
+    band_edges.insert(band_edges.end(), {b.low_hz, b.high_hz});
+  }
+  write_strings(g, "band_names", band_names);
+  write_reals(g, "band_edges_hz", {model.bands.size(), 2}, band_edges, "Hz (low, high)");
 }
 
 void write_ports(hid_t file, const RunRecord& run) {

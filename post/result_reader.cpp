@@ -30,13 +30,9 @@ hid_t open_result(const std::filesystem::path& path) {
   return H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
 }
 
-}  // namespace
-
-std::vector<std::string> read_result_port_names(const std::filesystem::path& path) {
-  Hdf5Handle file(open_result(path), H5Fclose);
-  if (H5Lexists(file, "/ports", H5P_DEFAULT) <= 0 || H5Lexists(file, "/ports/names", H5P_DEFAULT) <= 0)
-    throw InputError({path.string(), 1, 1}, "this is not a lobe antenna result (it has no /ports/names)");
-  Hdf5Handle set(H5Dopen2(file, "/ports/names", H5P_DEFAULT), H5Dclose);
+/// A one-dimensional dataset of variable-length strings.
+std::vector<std::string> read_strings(hid_t file, const char* name) {
+  Hdf5Handle set(H5Dopen2(file, name, H5P_DEFAULT), H5Dclose);
   Hdf5Handle space(H5Dget_space(set), H5Sclose);
   hsize_t count = 0;
   H5Sget_simple_extent_dims(space, &count, nullptr);
@@ -44,10 +40,35 @@ std::vector<std::string> read_result_port_names(const std::filesystem::path& pat
   H5Tset_size(type, H5T_VARIABLE);
   std::vector<char*> pointers(count, nullptr);
   if (count > 0 && H5Dread(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, pointers.data()) < 0)
-    throw std::runtime_error("cannot read /ports/names");
+    throw std::runtime_error(std::string("cannot read ") + name);
   std::vector<std::string> names(pointers.begin(), pointers.end());
   if (count > 0) H5Dvlen_reclaim(type, space, H5P_DEFAULT, pointers.data());
   return names;
+}
+
+bool exists(hid_t file, const char* group, const char* name) {
+  return H5Lexists(file, group, H5P_DEFAULT) > 0 && H5Lexists(file, name, H5P_DEFAULT) > 0;
+}
+
+}  // namespace
+
+std::vector<std::string> read_result_port_names(const std::filesystem::path& path) {
+  Hdf5Handle file(open_result(path), H5Fclose);
+  if (!exists(file, "/ports", "/ports/names"))
+    throw InputError({path.string(), 1, 1}, "this is not a lobe antenna result (it has no /ports/names)");
+  return read_strings(file, "/ports/names");
+}
+
+std::vector<Band> read_result_bands(const std::filesystem::path& path) {
+  Hdf5Handle file(open_result(path), H5Fclose);
+  if (!exists(file, "/model", "/model/band_names")) return {};
+  const std::vector<std::string> names = read_strings(file, "/model/band_names");
+  std::vector<hsize_t> dims;
+  const std::vector<Real> edges = read_reals(file, "/model/band_edges_hz", dims);
+  std::vector<Band> bands;
+  for (std::size_t b = 0; b < names.size() && 2 * b + 1 < edges.size(); ++b)
+    bands.push_back({names[b], edges[2 * b], edges[2 * b + 1]});
+  return bands;
 }
 
 NetworkData read_result_network(const std::filesystem::path& path) {

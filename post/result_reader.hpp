@@ -4,6 +4,7 @@
 #include <string>
 #include <vector>
 
+#include "geometry/model.hpp"
 #include "post/touchstone.hpp"
 
 namespace lobe {
@@ -14,5 +15,8 @@ NetworkData read_result_network(const std::filesystem::path& path);
 
 /// The port names of an antenna result file, in port order.
 std::vector<std::string> read_result_port_names(const std::filesystem::path& path);
+
+/// The bands of the model behind a result (the model's `band` statements and any --band).
+std::vector<Band> read_result_bands(const std::filesystem::path& path);
 
 }  // namespace lobe

@@ -309,6 +309,27 @@ TEST(DemoModels, ReflectedPowerFollowsTheReflection) {
   EXPECT_EQ(run_lobe("run '" + model + "' -o '" + (dir / "x").string() + "' --tx-power -1", dir).exit_code, 2);
 }
 
+// plot writes the three figures as well-formed SVG with the model's band shaded and the
+// measured curve overlaid.
+TEST(DemoModels, PlotWritesWellFormedFigures) {
+  const auto dir = fresh_directory("plot");
+  const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
+  ASSERT_EQ(run_lobe("run '" + models + "ground_plane_433.lobe' -o '" + (dir / "out").string() + "'", dir).exit_code, 0);
+  const ProcessResult r = run_lobe("plot '" + (dir / "out" / "ground_plane_433.h5").string() + "' --measured '" + models +
+                                       "ground_plane_433_measured.csv' -o '" + (dir / "figures").string() + "'",
+                                   dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  for (const char* name : {"vswr", "return_loss", "smith"}) {
+    const std::string svg = read_text(dir / "figures" / ("ground_plane_433_" + std::string(name) + ".svg"));
+    EXPECT_TRUE(well_formed_xml(svg)) << name;
+    EXPECT_NE(svg.find("<svg xmlns=\"http://www.w3.org/2000/svg\""), std::string::npos) << name;
+    EXPECT_NE(svg.find("simulated, port feed"), std::string::npos) << name;
+  }
+  const std::string vswr = read_text(dir / "figures" / "ground_plane_433_vswr.svg");
+  EXPECT_NE(vswr.find(">ism433<"), std::string::npos);
+  EXPECT_NE(vswr.find("measured (return loss)"), std::string::npos);
+}
+
 TEST(DemoModels, YagiBeamsForward) {
   const DemoRun run = run_demo("yagi_3el_144");
   const double f = 145e6;

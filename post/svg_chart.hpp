@@ -1,0 +1,51 @@
+#pragma once
+/// Small, dependency-free SVG figures: line charts against frequency and the Smith chart.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "core/types.hpp"
+
+namespace lobe {
+
+struct ChartSeries {
+  std::string label;
+  std::vector<Real> x, y;
+  std::string colour = "#1f4e9c";
+  bool dashed = false;
+};
+
+/// A shaded stretch of the x axis (a band), labelled at its top.
+struct ChartShade {
+  Real low = 0.0, high = 0.0;
+  std::string label;
+};
+
+struct LineChart {
+  std::string title, x_label, y_label;
+  std::vector<ChartSeries> series;
+  std::vector<ChartShade> shades;
+  std::optional<Real> y_min, y_max;        ///< fixed limits; otherwise from the data
+  std::vector<std::pair<Real, std::string>> guides;  ///< horizontal reference lines (e.g. VSWR 2)
+};
+
+/// The chart as a standalone SVG document (720 × 440, axes with round-number ticks, a
+/// legend, shaded bands, dashed guides). Points outside fixed y limits are clipped.
+std::string line_chart_svg(const LineChart& chart);
+
+struct SmithSeries {
+  std::string label;
+  std::vector<Complex> reflection;
+  std::string colour = "#1f4e9c";
+  bool dashed = false;
+};
+
+/// A Smith chart (circles of constant normalised resistance 0, 0.2, 0.5, 1, 2, 5 and arcs of
+/// constant reactance ±0.2, ±0.5, ±1, ±2, ±5) with each curve of reflections, its first
+/// point marked by a circle and its last by a square.
+std::string smith_chart_svg(const std::string& title, Real reference_ohm, const std::vector<SmithSeries>& series);
+
+/// Colours for successive series, distinguishable in print and for common colour blindness.
+const std::string& series_colour(std::size_t index);
+
+}  // namespace lobe
