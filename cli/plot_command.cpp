@@ -1,3 +1,5 @@
+#include <algorithm>
+#include <cmath>
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
@@ -7,6 +9,7 @@
 #include "post/output_files.hpp"
 #include "post/port_quantities.hpp"
 #include "post/result_reader.hpp"
+#include "post/run_summary.hpp"
 #include "post/svg_chart.hpp"
 
 namespace lobe::cli {
@@ -17,6 +20,40 @@ void write_text(const std::filesystem::path& path, const std::string& text) {
   out << text;
   out.close();
   if (!out) throw std::runtime_error("writing " + path.string() + " failed");
+}
+
+/// Index of the value in `values` nearest to `x`.
+std::size_t nearest(const std::vector<Real>& values, Real x) {
+  std::size_t best = 0;
+  for (std::size_t i = 1; i < values.size(); ++i)
+    if (std::abs(values[i] - x) < std::abs(values[best] - x)) best = i;
+  return best;
+}
+
+/// The cut through φ = phi and φ = phi + 180° at frequency index f, as polar series of the
+/// total, RHCP and LHCP gains (θ on the right half, the opposite side on the left).
+std::string pattern_cut_svg(const PatternData& d, std::size_t f, Real phi, const std::string& frequency) {
+  const std::size_t p = nearest(d.phi_deg, phi), q = nearest(d.phi_deg, phi + 180);
+  const bool opposite = std::abs(d.phi_deg[q] - (phi + 180)) < 1e-6;
+  std::vector<PolarSeries> series{{"total gain", {}, {}, series_colour(0), false},
+                                  {"RHCP gain", {}, {}, series_colour(1), false},
+                                  {"LHCP gain", {}, {}, series_colour(2), true}};
+  Real peak = -1e9;
+  auto add = [&](std::size_t t, std::size_t column, Real angle) {
+    const std::size_t k = d.at(f, t, column);
+    series[0].angle_deg.push_back(angle), series[0].value_db.push_back(d.gain_dbi[k]);
+    series[1].angle_deg.push_back(angle), series[1].value_db.push_back(d.rhcp_dbi[k]);
+    series[2].angle_deg.push_back(angle), series[2].value_db.push_back(d.lhcp_dbi[k]);
+    peak = std::max(peak, d.gain_dbi[k]);
+  };
+  for (std::size_t t = 0; t < d.theta_deg.size(); ++t) add(t, p, d.theta_deg[t]);
+  if (opposite)
+    for (std::size_t t = d.theta_deg.size(); t-- > 0;) add(t, q, 360 - d.theta_deg[t]);
+  const Real ceiling = 5 * std::ceil(peak / 5);
+  char title[128];
+  std::snprintf(title, sizeof title, "Gain in the plane phi = %g deg%s at %s", d.phi_deg[p],
+                opposite ? " (and its opposite side)" : "", frequency.c_str());
+  return polar_chart_svg(title, ceiling - 40, ceiling, series);
 }
 
 }  // namespace
@@ -66,8 +103,30 @@ int plot_command(const PlotOptions& options) {
     vswr.shades.push_back({b.low_hz / unit, b.high_hz / unit, b.name});
     loss.shades.push_back(vswr.shades.back());
   }
+  // Patterns at the computed frequency nearest the first band's centre (else the middle
+  // one); axial ratio in the direction of peak gain at every frequency.
+  const PatternData pattern = read_result_pattern(options.result_path);
+  const std::size_t f = bands.empty() ? pattern.frequency_hz.size() / 2
+                                      : nearest(pattern.frequency_hz, 0.5 * (bands.front().low_hz + bands.front().high_hz));
+  const std::string at = frequency_text(pattern.frequency_hz[f]);
+  LineChart axial{"Axial ratio in the direction of peak gain", axis, "axial ratio (dB)", {}, vswr.shades, 0.0,
+                  std::nullopt, {{3.0, "3 dB"}}};
+  ChartSeries ratio{"axial ratio", {}, {}, series_colour(0), false};
+  for (std::size_t k = 0; k < pattern.frequency_hz.size(); ++k) {
+    std::size_t best = pattern.at(k, 0, 0);
+    for (std::size_t i = pattern.at(k, 0, 0); i < pattern.at(k + 1, 0, 0); ++i)
+      if (pattern.gain_dbi[i] > pattern.gain_dbi[best]) best = i;
+    ratio.x.push_back(pattern.frequency_hz[k] / unit);
+    ratio.y.push_back(std::min(pattern.axial_ratio_db[best], 40.0));
+  }
+  axial.series.push_back(ratio);
+  axial.y_max = std::max(6.0, *std::max_element(ratio.y.begin(), ratio.y.end()) * 1.05);
+
   const std::string stem = std::filesystem::path(options.result_path).stem().string();
   OutputFiles files(directory);
+  write_text(files.staging_path(stem + "_pattern_phi0.svg"), pattern_cut_svg(pattern, f, 0.0, at));
+  write_text(files.staging_path(stem + "_pattern_phi90.svg"), pattern_cut_svg(pattern, f, 90.0, at));
+  write_text(files.staging_path(stem + "_axial_ratio.svg"), line_chart_svg(axial));
   write_text(files.staging_path(stem + "_vswr.svg"), line_chart_svg(vswr));
   write_text(files.staging_path(stem + "_return_loss.svg"), line_chart_svg(loss));
   write_text(files.staging_path(stem + "_smith.svg"),

@@ -59,6 +59,24 @@ std::vector<std::string> read_result_port_names(const std::filesystem::path& pat
   return read_strings(file, "/ports/names");
 }
 
+PatternData read_result_pattern(const std::filesystem::path& path) {
+  Hdf5Handle file(open_result(path), H5Fclose);
+  if (!exists(file, "/pattern", "/pattern/gain_dbi"))
+    throw InputError({path.string(), 1, 1}, "this is not a lobe antenna result (it has no /pattern)");
+  PatternData d;
+  std::vector<hsize_t> dims;
+  d.frequency_hz = read_reals(file, "/frequency_hz", dims);
+  d.theta_deg = read_reals(file, "/pattern/theta_deg", dims);
+  d.phi_deg = read_reals(file, "/pattern/phi_deg", dims);
+  d.gain_dbi = read_reals(file, "/pattern/gain_dbi", dims);
+  d.rhcp_dbi = read_reals(file, "/pattern/rhcp_dbi", dims);
+  d.lhcp_dbi = read_reals(file, "/pattern/lhcp_dbi", dims);
+  d.axial_ratio_db = read_reals(file, "/pattern/axial_ratio_db", dims);
+  if (d.gain_dbi.size() != d.frequency_hz.size() * d.theta_deg.size() * d.phi_deg.size())
+    throw InputError({path.string(), 1, 1}, "the pattern arrays of this result do not fit its grid");
+  return d;
+}
+
 std::vector<Band> read_result_bands(const std::filesystem::path& path) {
   Hdf5Handle file(open_result(path), H5Fclose);
   if (!exists(file, "/model", "/model/band_names")) return {};

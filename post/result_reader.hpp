@@ -16,6 +16,16 @@ NetworkData read_result_network(const std::filesystem::path& path);
 /// The port names of an antenna result file, in port order.
 std::vector<std::string> read_result_port_names(const std::filesystem::path& path);
 
+/// The far field on a result's pattern grid, flat arrays indexed (frequency, θ, φ).
+struct PatternData {
+  std::vector<Real> frequency_hz, theta_deg, phi_deg;
+  std::vector<Real> gain_dbi, rhcp_dbi, lhcp_dbi, axial_ratio_db;
+  std::size_t at(std::size_t f, std::size_t t, std::size_t p) const {
+    return (f * theta_deg.size() + t) * phi_deg.size() + p;
+  }
+};
+PatternData read_result_pattern(const std::filesystem::path& path);
+
 /// The bands of the model behind a result (the model's `band` statements and any --band).
 std::vector<Band> read_result_bands(const std::filesystem::path& path);
 

@@ -177,4 +177,40 @@ std::string smith_chart_svg(const std::string& title, Real reference_ohm, const 
   return svg + "</svg>\n";
 }
 
+std::string polar_chart_svg(const std::string& title, Real floor_db, Real ceiling_db, const std::vector<PolarSeries>& series) {
+  const Real cx = 300, cy = 240, radius = 175, pi = 3.14159265358979323846;
+  auto scaled = [&](Real db) { return radius * std::clamp((db - floor_db) / (ceiling_db - floor_db), 0.0, 1.0); };
+  std::string svg = header(title);
+  for (Real ring : ticks(floor_db, ceiling_db)) {
+    svg += text_of("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#dddddd\"/>\n", cx, cy, scaled(ring));
+    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"10\" fill=\"#777777\">%g dBi</text>\n", cx + 3,
+                   cy - scaled(ring) + 11, ring);
+  }
+  for (int a = 0; a < 360; a += 30) {
+    const Real r = a * pi / 180;
+    svg += text_of("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#dddddd\"/>\n", cx, cy,
+                   cx + radius * std::sin(r), cy - radius * std::cos(r));
+    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" text-anchor=\"middle\">%d&#176;</text>\n",
+                   cx + (radius + 16) * std::sin(r), cy - (radius + 16) * std::cos(r) + 4, a <= 180 ? a : a - 360);
+  }
+  svg += text_of("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", cx, cy, radius);
+  for (std::size_t i = 0; i < series.size(); ++i) {
+    const auto& s = series[i];
+    std::string points;
+    for (std::size_t k = 0; k < s.angle_deg.size(); ++k) {
+      const Real r = s.angle_deg[k] * pi / 180, d = scaled(s.value_db[k]);
+      points += text_of("%.2f,%.2f ", cx + d * std::sin(r), cy - d * std::cos(r));
+    }
+    svg += "<polyline fill=\"none\" stroke-width=\"2\" stroke=\"" + s.colour + "\"" +
+           (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + " points=\"" + points + "\"/>\n";
+    const Real y = top + 30 + 20 * i;
+    svg += text_of("<line x1=\"520\" y1=\"%.1f\" x2=\"548\" y2=\"%.1f\" stroke-width=\"2\" stroke=\"", y, y) + s.colour +
+           "\"" + (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + "/>\n";
+    svg += text_of("<text x=\"554\" y=\"%.1f\">", y + 4) + escaped(s.label) + "</text>\n";
+  }
+  svg += text_of("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">0&#176; is +z (zenith)</text>\n",
+                 top + 30 + 20 * series.size() + 6);
+  return svg + "</svg>\n";
+}
+
 }  // namespace lobe

@@ -45,6 +45,16 @@ struct SmithSeries {
 /// point marked by a circle and its last by a square.
 std::string smith_chart_svg(const std::string& title, Real reference_ohm, const std::vector<SmithSeries>& series);
 
+/// A polar cut: angles in degrees from the top (θ from +z), radius in dB from `floor_db`
+/// at the centre to `ceiling_db` at the rim.
+struct PolarSeries {
+  std::string label;
+  std::vector<Real> angle_deg, value_db;
+  std::string colour = "#1f4e9c";
+  bool dashed = false;
+};
+std::string polar_chart_svg(const std::string& title, Real floor_db, Real ceiling_db, const std::vector<PolarSeries>& series);
+
 /// Colours for successive series, distinguishable in print and for common colour blindness.
 const std::string& series_colour(std::size_t index);
 
