@@ -1,6 +1,9 @@
 #include "post/output_files.hpp"
 
+#include <fcntl.h>
 #include <unistd.h>
+
+#include <stdexcept>
 
 namespace lobe {
 
@@ -21,12 +24,28 @@ std::filesystem::path OutputFiles::staging_path(const std::string& name) {
   return staging;
 }
 
+namespace {
+
+/// Flushes a file or directory to the disk, so that a rename that follows (or preceded)
+/// survives a power loss together with the data.
+void flush_to_disk(const std::filesystem::path& path) {
+  const int fd = ::open(path.c_str(), O_RDONLY);
+  if (fd < 0) throw std::runtime_error("cannot open " + path.string() + " to flush it");
+  const int status = ::fsync(fd);
+  ::close(fd);
+  if (status != 0) throw std::runtime_error("cannot flush " + path.string() + " to disk");
+}
+
+}  // namespace
+
 std::vector<std::filesystem::path> OutputFiles::commit() {
   std::vector<std::filesystem::path> written;
+  for (const auto& [staging, final_path] : m_staged) flush_to_disk(staging);
   for (const auto& [staging, final_path] : m_staged) {
     std::filesystem::rename(staging, final_path);
     written.push_back(final_path);
   }
+  flush_to_disk(m_directory);
   m_committed = true;
   return written;
 }

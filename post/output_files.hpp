@@ -17,7 +17,9 @@ class OutputFiles {
   OutputFiles& operator=(const OutputFiles&) = delete;
   /// The temporary path to write `name` to.
   std::filesystem::path staging_path(const std::string& name);
-  /// Renames every staged file to its final name; returns the final paths.
+  /// Flushes every staged file to disk, renames each to its final name and flushes the
+  /// directory: after a crash or power loss each file is either whole or absent.
+  /// Returns the final paths.
   std::vector<std::filesystem::path> commit();
 
  private:
