@@ -74,6 +74,21 @@ int plot_command(const PlotOptions& options);
 /// to `reference_ohm`) or from a CSV table.
 MeasuredCurve read_measured(const std::string& path, Real reference_ohm);
 
+struct SweepOptions {
+  std::string model_path;
+  std::vector<std::string> vary_options;  ///< NAME=START:STOP:STEP or NAME=A,B,C
+  std::vector<std::string> set_options;   ///< fixed overrides for every case
+  std::string output;                     ///< the sweep's HDF5 file; cases go to OUTPUT.cases/
+  std::string rank;                       ///< worst-vswr, mean-vswr, mean-mismatch-loss, share-under-vswr-2
+  std::string band;                       ///< LOW:HIGH for the ranking; default the model's first band
+  int threads = 0;
+};
+
+/// Solves every combination of the varied values, saving each finished case at once (a
+/// crash loses at most the case in flight; re-running the same command goes on where it
+/// stopped), then writes one file of all cases and, with a rank, prints the best ten.
+int sweep_command(const SweepOptions& options);
+
 /// Parses and meshes; prints counts and warnings; solves nothing.
 int check_command(const std::string& model_path, const std::vector<std::string>& set_options);
 

@@ -73,6 +73,22 @@ int main(int argc, char** argv) {
   plot_app->add_option("-o,--output", plot.output_directory, "Directory for the figures (default: beside the result)");
   plot_app->add_option("--measured", plot.measured_path, "A measured curve to overlay: Touchstone or CSV");
 
+  lobe::cli::SweepOptions sweep;
+  bool resume = false;
+  auto* sweep_app = app.add_subcommand("sweep", "Solve a model for every combination of varied let values");
+  sweep_app->add_option("MODEL", sweep.model_path, "Model file (.lobe)")->required();
+  sweep_app->add_option("--vary", sweep.vary_options, "NAME=START:STOP:STEP or NAME=A,B,C (repeatable)")
+      ->required()
+      ->allow_extra_args(false);
+  sweep_app->add_option("--set", sweep.set_options, "Override a let value in every case: NAME=VALUE (repeatable)")
+      ->allow_extra_args(false);
+  sweep_app->add_option("-o,--output", sweep.output, "The sweep's HDF5 file (default: MODEL-STEM-sweep.h5)");
+  sweep_app->add_flag("--resume", resume, "Go on with an interrupted sweep (re-running the same command does too)");
+  sweep_app->add_option("--rank", sweep.rank, "Rank the cases: worst-vswr, mean-vswr, mean-mismatch-loss, share-under-vswr-2")
+      ->check(CLI::IsMember({"worst-vswr", "mean-vswr", "mean-mismatch-loss", "share-under-vswr-2"}));
+  sweep_app->add_option("--band", sweep.band, "The band to rank over: LOW:HIGH (default: the model's first band)");
+  sweep_app->add_option("--threads", sweep.threads, "Threads (default: all cores)")->check(CLI::Range(1, 1024));
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -86,6 +102,7 @@ int main(int argc, char** argv) {
     if (*export_app) return lobe::cli::export_command(export_options);
     if (*compare_app) return lobe::cli::compare_command(compare);
     if (*plot_app) return lobe::cli::plot_command(plot);
+    if (*sweep_app) return lobe::cli::sweep_command(sweep);
     return lobe::cli::check_command(check_path, check_sets);
   } catch (const lobe::InputError& e) {
     std::fprintf(stderr, "%s\n", e.formatted().c_str());

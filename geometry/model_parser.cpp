@@ -1,5 +1,7 @@
 #include "geometry/model_parser.hpp"
 
+#include "core/number_text.hpp"
+
 #include <cmath>
 #include <map>
 #include <set>
@@ -840,6 +842,56 @@ Band parse_band_option(const std::string& option, int index) {
   if (band.high_hz <= band.low_hz)
     throw InputError({"--band", index, static_cast<int>(colon) + 2}, "the band's high edge must be above its low edge");
   return band;
+}
+
+VariedName parse_vary_option(const std::string& option, int index) {
+  const SourceLocation where{"--vary", index, 1};
+  const auto equals = option.find('=');
+  if (equals == std::string::npos || equals == 0)
+    throw InputError(where, "--vary takes NAME=START:STOP:STEP or NAME=A,B,C, got '" + option + "'");
+  VariedName varied{option.substr(0, equals), {}};
+  const std::string rest = option.substr(equals + 1);
+  if (rest.find(':') == std::string::npos) {
+    std::size_t start = 0;
+    while (true) {
+      const std::size_t comma = rest.find(',', start);
+      const std::string text = rest.substr(start, comma == std::string::npos ? std::string::npos : comma - start);
+      if (text.find_first_not_of(' ') == std::string::npos)
+        throw InputError({"--vary", index, static_cast<int>(equals + start) + 2}, "an empty value in the list");
+      varied.values.push_back(text);
+      if (comma == std::string::npos) break;
+      start = comma + 1;
+    }
+  } else {
+    std::vector<Quantity> parts;
+    std::size_t start = 0;
+    while (parts.size() < 3) {
+      const std::size_t colon = rest.find(':', start);
+      std::vector<Token> tokens =
+          tokenize_line(rest.substr(start, colon == std::string::npos ? std::string::npos : colon - start), "--vary", index);
+      for (Token& t : tokens) t.where.column += static_cast<int>(equals + 1 + start);
+      TokenCursor c(tokens);
+      parts.push_back(parse_expression(c, SymbolTable{}));
+      if (!c.at_end()) throw InputError(c.peek().where, "unexpected text in the range");
+      if (colon == std::string::npos) break;
+      start = colon + 1;
+    }
+    if (parts.size() != 3) throw InputError(where, "a range is START:STOP:STEP");
+    const Dimension d = parts[0].dim;
+    if (!(parts[1].dim == d) || !(parts[2].dim == d))
+      throw InputError(where, "START, STOP and STEP of --vary " + varied.name + " must have the same unit");
+    std::string unit;
+    if (d == dimension::length) unit = " m";
+    else if (d == dimension::frequency) unit = " Hz";
+    else if (d == dimension::angle) unit = " rad";
+    else if (!(d == Dimension{})) throw InputError(where, "a range takes plain numbers, lengths, frequencies or angles; list other values as A,B,C");
+    const Real first = parts[0].value, last = parts[1].value, step = parts[2].value;
+    if (!(step > 0.0) || last < first) throw InputError(where, "a range needs STOP at or above START and a STEP above zero");
+    const double count = std::floor((last - first) / step + 1e-9) + 1;
+    if (count > max_sweep_values) throw InputError(where, "the range has more than " + std::to_string(max_sweep_values) + " values");
+    for (int i = 0; i < static_cast<int>(count); ++i) varied.values.push_back(exact_text(first + i * step) + unit);
+  }
+  return varied;
 }
 
 }  // namespace lobe

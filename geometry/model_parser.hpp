@@ -21,6 +21,18 @@ Model parse_model(const std::string& text, const std::string& file,
 /// Splits "NAME=VALUE" of a --set option; the location names the option's position.
 Override parse_override(const std::string& option, int index);
 
+/// A `let` name and the values a sweep gives it, each as text for an override.
+struct VariedName {
+  std::string name;
+  std::vector<std::string> values;
+};
+
+/// NAME=START:STOP:STEP (inclusive; plain numbers, or lengths, frequencies or angles with
+/// units, such as 160mm:175mm:5mm) or NAME=A,B,C (any override texts). At most
+/// max_sweep_values values. Errors are located at --vary:INDEX:COLUMN.
+VariedName parse_vary_option(const std::string& option, int index);
+constexpr int max_sweep_values = 10000;
+
 /// A band given on the command line as LOW:HIGH with frequency units ("2.4GHz:2.4835GHz"),
 /// named "option-INDEX". Errors are located at --band:INDEX:COLUMN.
 Band parse_band_option(const std::string& option, int index);

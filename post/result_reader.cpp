@@ -89,14 +89,16 @@ std::vector<Band> read_result_bands(const std::filesystem::path& path) {
   return bands;
 }
 
-NetworkData read_result_network(const std::filesystem::path& path) {
+NetworkData read_result_network(const std::filesystem::path& path, const std::string& group) {
   const SourceLocation where{path.string(), 1, 1};
   Hdf5Handle file(open_result(path), H5Fclose);
   std::vector<hsize_t> f_dims, re_dims, im_dims, r_dims;
-  const std::vector<Real> frequencies = read_reals(file, "/frequency_hz", f_dims);
-  const std::vector<Real> re = read_reals(file, "/ports/s_matrix_re", re_dims);
-  const std::vector<Real> im = read_reals(file, "/ports/s_matrix_im", im_dims);
-  const std::vector<Real> reference = read_reals(file, "/model/reference_ohm", r_dims);
+  if (!group.empty() && H5Lexists(file, group.c_str(), H5P_DEFAULT) <= 0)
+    throw InputError(where, "the file has no group '" + group + "'");
+  const std::vector<Real> frequencies = read_reals(file, (group + "/frequency_hz").c_str(), f_dims);
+  const std::vector<Real> re = read_reals(file, (group + "/ports/s_matrix_re").c_str(), re_dims);
+  const std::vector<Real> im = read_reals(file, (group + "/ports/s_matrix_im").c_str(), im_dims);
+  const std::vector<Real> reference = read_reals(file, (group + "/model/reference_ohm").c_str(), r_dims);
   if (frequencies.empty() || re.empty() || re_dims.size() != 3 || re_dims != im_dims || re_dims[0] != frequencies.size() ||
       re_dims[1] != re_dims[2] || reference.size() != 1)
     throw InputError(where, "this is not a lobe antenna result (it lacks /ports/s_matrix_re and its companions)");

@@ -11,7 +11,8 @@ namespace lobe {
 
 /// The port S-matrices and reference impedance of an antenna result file. Throws
 /// InputError (at FILE:1:1) when the file is not a lobe antenna result.
-NetworkData read_result_network(const std::filesystem::path& path);
+/// `group` reads a case of a sweep file ("/case-000001"); empty reads a run's file.
+NetworkData read_result_network(const std::filesystem::path& path, const std::string& group = "");
 
 /// The port names of an antenna result file, in port order.
 std::vector<std::string> read_result_port_names(const std::filesystem::path& path);

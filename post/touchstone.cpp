@@ -10,6 +10,7 @@
 
 #include "core/constants.hpp"
 #include "core/input_error.hpp"
+#include "core/number_text.hpp"
 
 namespace lobe {
 namespace {
@@ -212,16 +213,6 @@ ComplexMatrix to_scattering(const Parsed& p, const ComplexMatrix& m) {
   const ComplexMatrix z = p.parameter == Parameter::z ? ComplexMatrix(m * scale) : ComplexMatrix((m / scale).inverse());
   const ComplexMatrix r = p.reference * ComplexMatrix::Identity(m.rows(), m.cols());
   return (z - r) * (z + r).inverse();
-}
-
-/// The shortest decimal text that reads back to exactly `value`.
-std::string exact_text(Real value) {
-  char buffer[40];
-  for (int digits = 15; digits <= 17; ++digits) {
-    std::snprintf(buffer, sizeof buffer, "%.*g", digits, value);
-    if (std::strtod(buffer, nullptr) == value) break;
-  }
-  return buffer;
 }
 
 }  // namespace

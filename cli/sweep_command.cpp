@@ -1,0 +1,193 @@
+#include <unistd.h>
+
+#include <atomic>
+#include <chrono>
+#include <csignal>
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+#include "cli/commands.hpp"
+#include "cli/model_loading.hpp"
+#include "geometry/model_parser.hpp"
+#include "post/band_report.hpp"
+#include "post/hdf5_writer.hpp"
+#include "post/output_files.hpp"
+#include "post/result_reader.hpp"
+#include "post/run_summary.hpp"
+#include "post/sweep_file.hpp"
+#include "solver/threads.hpp"
+
+namespace lobe::cli {
+namespace {
+
+std::atomic<bool> interrupted{false};
+extern "C" void on_interrupt(int) { interrupted = true; }
+
+/// Every combination of the varied values, the first name varying slowest.
+std::vector<std::vector<std::string>> combinations(const std::vector<VariedName>& varied) {
+  std::vector<std::vector<std::string>> cases{{}};
+  for (const auto& v : varied) {
+    std::vector<std::vector<std::string>> next;
+    for (const auto& c : cases)
+      for (const auto& value : v.values) {
+        next.push_back(c);
+        next.back().push_back(value);
+      }
+    cases = std::move(next);
+  }
+  return cases;
+}
+
+/// What identifies a sweep: the model text, the fixed overrides and every case. A case
+/// directory left by another sweep must not be mixed into this one.
+std::string manifest(const std::string& model_text, const SweepOptions& o, const std::vector<VariedName>& varied,
+                     const std::vector<std::vector<std::string>>& cases) {
+  std::ostringstream m;
+  m << "lobe sweep cases\nmodel:\n" << model_text << "\nfixed:";
+  for (const auto& s : o.set_options) m << ' ' << s;
+  m << "\nvaried:";
+  for (const auto& v : varied) m << ' ' << v.name;
+  m << '\n';
+  for (std::size_t c = 0; c < cases.size(); ++c) {
+    m << case_name(c);
+    for (const auto& value : cases[c]) m << ' ' << value;
+    m << '\n';
+  }
+  return m.str();
+}
+
+std::string read_all(const std::filesystem::path& path) {
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream text;
+  text << in.rdbuf();
+  return text.str();
+}
+
+}  // namespace
+
+int sweep_command(const SweepOptions& options) {
+  if (options.threads > 0) set_thread_count(options.threads);
+  std::vector<VariedName> varied;
+  for (std::size_t i = 0; i < options.vary_options.size(); ++i)
+    varied.push_back(parse_vary_option(options.vary_options[i], static_cast<int>(i) + 1));
+  const auto cases = combinations(varied);
+  if (cases.size() > static_cast<std::size_t>(max_sweep_values))
+    throw InputError({"--vary", 1, 1}, "the sweep has " + std::to_string(cases.size()) + " cases; at most " +
+                                           std::to_string(max_sweep_values) + " are allowed");
+  auto overrides_of = [&](const std::vector<std::string>& values) {
+    std::vector<std::string> sets = options.set_options;
+    for (std::size_t v = 0; v < varied.size(); ++v) sets.push_back(varied[v].name + "=" + values[v]);
+    return sets;
+  };
+  // Every case must load before any is solved: a bad value is an input error now, not
+  // hours into the night.
+  std::vector<std::vector<Real>> si;
+  for (const auto& c : cases) {
+    const Model model = load_model(options.model_path, overrides_of(c));
+    if (model.wave) throw InputError({options.model_path, 1, 1}, "sweeps solve antennas driven by ports, not plane waves");
+    std::vector<Real> values;
+    for (const auto& v : varied)
+      for (const auto& r : model.values)
+        if (r.name == v.name) values.push_back(r.value);
+    si.push_back(values);
+  }
+  const std::string stem = std::filesystem::path(options.model_path).stem().string();
+  const std::filesystem::path output(options.output.empty() ? stem + "-sweep.h5" : options.output);
+  const std::filesystem::path directory = output.has_parent_path() ? output.parent_path() : std::filesystem::path(".");
+  check_output_directory(directory);
+  const std::filesystem::path case_directory = output.string() + ".cases";
+  const std::string expected = manifest(read_all(options.model_path), options, varied, cases);
+  std::filesystem::create_directories(case_directory);
+  const auto manifest_path = case_directory / "manifest.txt";
+  if (std::filesystem::exists(manifest_path)) {
+    if (read_all(manifest_path) != expected)
+      throw InputError({output.string(), 1, 1}, "'" + case_directory.string() +
+                                                   "' holds the cases of a different sweep; remove it or choose another -o");
+  } else {
+    OutputFiles files(case_directory);
+    std::ofstream(files.staging_path("manifest.txt")) << expected;
+    files.commit();
+  }
+  // Half-written cases of a run that was killed: never published, safe to remove.
+  for (const auto& entry : std::filesystem::directory_iterator(case_directory))
+    if (entry.path().filename().string().find(".partial-") != std::string::npos) std::filesystem::remove(entry.path());
+
+  std::signal(SIGINT, on_interrupt);
+  std::signal(SIGTERM, on_interrupt);
+  const bool terminal = isatty(fileno(stderr));
+  std::vector<std::filesystem::path> case_files;
+  std::size_t skipped = 0, solved = 0;
+  const auto start = std::chrono::steady_clock::now();
+  for (std::size_t c = 0; c < cases.size(); ++c) {
+    case_files.push_back(case_directory / (case_name(c) + ".h5"));
+    if (std::filesystem::exists(case_files.back())) {
+      ++skipped;
+      continue;
+    }
+    const Model model = load_model(options.model_path, overrides_of(cases[c]));
+    const AntennaProblem problem(model);
+    std::string command = "lobe sweep case " + case_name(c) + ":";
+    for (const auto& s : overrides_of(cases[c])) command += " --set " + s;
+    RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), command, std::nullopt}};
+    for (Real f : model.frequencies_hz) {
+      if (interrupted) break;
+      run.results.push_back(evaluate_frequency(problem, solve_frequency(problem, f)));
+    }
+    if (interrupted) break;
+    OutputFiles files(case_directory);
+    write_hdf5(files.staging_path(case_name(c) + ".h5"), run);
+    files.commit();
+    ++solved;
+    const double elapsed = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+    std::fprintf(stderr, "%scase %zu/%zu done (%zu solved now, %zu from before), %.1f s elapsed, about %.0f s left%s",
+                 terminal ? "\r" : "", c + 1, cases.size(), solved, skipped, elapsed,
+                 elapsed / solved * static_cast<double>(cases.size() - c - 1), terminal ? "   " : "\n");
+  }
+  if (terminal) std::fprintf(stderr, "\n");
+  if (interrupted) {
+    std::fprintf(stderr, "interrupted: %zu of %zu cases are saved in %s; run the same command again to go on\n",
+                 solved + skipped, cases.size(), case_directory.string().c_str());
+    return 130;
+  }
+  std::vector<std::string> names;
+  for (const auto& v : varied) names.push_back(v.name);
+  OutputFiles files(directory);
+  write_sweep_hdf5(files.staging_path(output.filename().string()), names, cases, si, case_files);
+  files.commit();
+  std::printf("%zu cases (%zu solved now, %zu from before) in %s\n", cases.size(), solved, skipped, output.string().c_str());
+
+  // Rank by the chosen band figure of the first port.
+  if (!options.rank.empty()) {
+    const Model model = load_model(options.model_path, overrides_of(cases.front()));
+    Band band{"all computed frequencies", model.frequencies_hz.front(), model.frequencies_hz.back()};
+    if (!options.band.empty()) band = parse_band_option(options.band, 1);
+    else if (!model.bands.empty()) band = model.bands.front();
+    std::vector<std::pair<Real, std::size_t>> scores;
+    for (std::size_t c = 0; c < cases.size(); ++c) {
+      const NetworkData network = read_result_network(case_files[c]);
+      ReflectionCurve curve{network.frequency_hz, {}};
+      for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
+      const PortBandReport r = band_report(curve, band.low_hz, band.high_hz);
+      const Real score = options.rank == "worst-vswr"           ? r.highest_vswr.value
+                         : options.rank == "mean-vswr"          ? r.mean_vswr
+                         : options.rank == "mean-mismatch-loss" ? r.mean_mismatch_loss_db
+                                                                : -r.fraction_within;
+      scores.emplace_back(score, c);
+    }
+    std::stable_sort(scores.begin(), scores.end());
+    std::printf("\nbest cases by %s over %s (%s to %s), first port:\n", options.rank.c_str(), band.name.c_str(),
+                frequency_text(band.low_hz).c_str(), frequency_text(band.high_hz).c_str());
+    for (std::size_t k = 0; k < std::min<std::size_t>(10, scores.size()); ++k) {
+      std::printf("  %2zu. %s  %-12.4g", k + 1, case_name(scores[k].second).c_str(),
+                  options.rank == "share-under-vswr-2" ? -scores[k].first : scores[k].first);
+      for (std::size_t v = 0; v < varied.size(); ++v)
+        std::printf("  %s=%s", varied[v].name.c_str(), cases[scores[k].second][v].c_str());
+      std::printf("\n");
+    }
+  }
+  return 0;
+}
+
+}  // namespace lobe::cli

@@ -1,0 +1,103 @@
+// Sweeps through the real command line: cases equal single runs, and a sweep killed at
+// random moments and resumed ends with the same file as one that ran straight through.
+#include <gtest/gtest.h>
+
+#include <signal.h>
+#include <sys/wait.h>
+#include <unistd.h>
+
+#include <chrono>
+#include <random>
+#include <thread>
+
+#include "cli/run_process.hpp"
+#include "post/result_reader.hpp"
+
+namespace lobe::testing {
+namespace {
+
+const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
+
+// One thread makes every solve bit-for-bit repeatable, so "the same" can mean equal.
+TEST(Sweep, OneVariedNameReproducesTheSingleRuns) {
+  const auto dir = fresh_directory("sweep-single");
+  const ProcessResult r =
+      run_lobe("sweep '" + models + "half_wave_dipole_ism.lobe' --vary rod=0.5,2 -o '" + (dir / "s.h5").string() + "' --threads 1", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  int index = 1;
+  for (const char* rod : {"0.5", "2"}) {
+    const auto out = dir / ("single-" + std::string(rod));
+    ASSERT_EQ(run_lobe("run '" + models + "half_wave_dipole_ism.lobe' --set rod=" + rod + " -o '" + out.string() + "' --threads 1", dir)
+                  .exit_code,
+              0);
+    const NetworkData single = read_result_network(out / "half_wave_dipole_ism.h5");
+    const NetworkData swept = read_result_network(dir / "s.h5", "/case-00000" + std::to_string(index++));
+    ASSERT_EQ(single.frequency_hz.size(), swept.frequency_hz.size());
+    for (std::size_t k = 0; k < single.s.size(); ++k) EXPECT_EQ(single.s[k](0, 0), swept.s[k](0, 0)) << rod;
+  }
+}
+
+/// Starts `lobe ARGS` and returns its process id.
+pid_t start_lobe(const std::vector<std::string>& args) {
+  const pid_t pid = fork();
+  if (pid == 0) {
+    std::vector<char*> argv{const_cast<char*>(LOBE_EXECUTABLE)};
+    for (const auto& a : args) argv.push_back(const_cast<char*>(a.c_str()));
+    argv.push_back(nullptr);
+    freopen("/dev/null", "w", stdout);
+    freopen("/dev/null", "w", stderr);
+    execv(LOBE_EXECUTABLE, argv.data());
+    _exit(127);
+  }
+  return pid;
+}
+
+// Kill -9 at random moments several times, then run the same command to the end: the
+// file equals an uninterrupted sweep's, case by case, and no partial file is left.
+TEST(Sweep, KilledAndResumedEqualsUninterrupted) {
+  const auto dir = fresh_directory("sweep-kill");
+  const std::string model = models + "ground_plane_433.lobe";
+  auto args = [&](const std::string& output) {
+    return std::vector<std::string>{"sweep", model, "--vary", "droop=20deg:65deg:5deg", "--vary", "radial=150,160",
+                                    "-o", (dir / output).string(), "--threads", "1"};
+  };
+  std::mt19937 generator(20261202);
+  std::uniform_int_distribution<int> delay_ms(150, 900);
+  for (int attempt = 0; attempt < 4; ++attempt) {
+    const pid_t pid = start_lobe(args("killed.h5"));
+    std::this_thread::sleep_for(std::chrono::milliseconds(delay_ms(generator)));
+    kill(pid, SIGKILL);
+    int status = 0;
+    waitpid(pid, &status, 0);
+  }
+  std::vector<std::string> resume = args("killed.h5");
+  resume.push_back("--resume");
+  int status = 0;
+  waitpid(start_lobe(resume), &status, 0);
+  ASSERT_TRUE(WIFEXITED(status) && WEXITSTATUS(status) == 0);
+  waitpid(start_lobe(args("straight.h5")), &status, 0);
+  ASSERT_TRUE(WIFEXITED(status) && WEXITSTATUS(status) == 0);
+  for (int c = 1; c <= 20; ++c) {
+    char group[32];
+    std::snprintf(group, sizeof group, "/case-%06d", c);
+    const NetworkData a = read_result_network(dir / "killed.h5", group), b = read_result_network(dir / "straight.h5", group);
+    ASSERT_EQ(a.s.size(), b.s.size()) << group;
+    for (std::size_t k = 0; k < a.s.size(); ++k) EXPECT_EQ(a.s[k](0, 0), b.s[k](0, 0)) << group;
+  }
+  for (const auto& entry : std::filesystem::directory_iterator(dir / "killed.h5.cases"))
+    EXPECT_EQ(entry.path().filename().string().find(".partial-"), std::string::npos) << entry.path();
+}
+
+TEST(Sweep, BadVaryOptionsAreInputErrors) {
+  const auto dir = fresh_directory("sweep-bad");
+  for (const char* vary : {"rod", "rod=1:0:1", "rod=1mm:2MHz:1mm", "nosuch=1,2", "rod=1,,2"}) {
+    const ProcessResult r = run_lobe("sweep '" + models + "half_wave_dipole_ism.lobe' --vary '" + std::string(vary) + "' -o '" +
+                                         (dir / "x.h5").string() + "'",
+                                     dir);
+    EXPECT_EQ(r.exit_code, 2) << vary << ": " << r.err;
+    EXPECT_FALSE(std::filesystem::exists(dir / "x.h5.cases")) << vary;
+  }
+}
+
+}  // namespace
+}  // namespace lobe::testing
