@@ -89,6 +89,21 @@ struct SweepOptions {
 /// stopped), then writes one file of all cases and, with a rank, prints the best ten.
 int sweep_command(const SweepOptions& options);
 
+struct TuneOptions {
+  std::string model_path;
+  std::vector<std::string> vary_options;  ///< NAME=MIN:MAX
+  std::vector<std::string> set_options;
+  std::string goal = "worst-vswr";        ///< worst-vswr, mean-vswr or mean-mismatch-loss
+  std::string band;                       ///< LOW:HIGH; default the model's first band
+  std::string output;                     ///< the tuned model; default MODEL-STEM-tuned.lobe
+  int evaluations = 60;
+  int threads = 0;
+};
+
+/// Searches the varied values for the best band figure of the first port (NLopt's BOBYQA
+/// within the bounds) and writes the model with the best values filled in.
+int tune_command(const TuneOptions& options);
+
 /// Parses and meshes; prints counts and warnings; solves nothing.
 int check_command(const std::string& model_path, const std::vector<std::string>& set_options);
 

@@ -89,6 +89,18 @@ int main(int argc, char** argv) {
   sweep_app->add_option("--band", sweep.band, "The band to rank over: LOW:HIGH (default: the model's first band)");
   sweep_app->add_option("--threads", sweep.threads, "Threads (default: all cores)")->check(CLI::Range(1, 1024));
 
+  lobe::cli::TuneOptions tune;
+  auto* tune_app = app.add_subcommand("tune", "Search let values for the best match over a band; write the tuned model");
+  tune_app->add_option("MODEL", tune.model_path, "Model file (.lobe)")->required();
+  tune_app->add_option("--vary", tune.vary_options, "NAME=MIN:MAX (repeatable)")->required()->allow_extra_args(false);
+  tune_app->add_option("--set", tune.set_options, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
+  tune_app->add_option("--goal", tune.goal, "worst-vswr (default), mean-vswr or mean-mismatch-loss")
+      ->check(CLI::IsMember({"worst-vswr", "mean-vswr", "mean-mismatch-loss"}));
+  tune_app->add_option("--band", tune.band, "The band to judge: LOW:HIGH (default: the model's first band)");
+  tune_app->add_option("--evaluations", tune.evaluations, "Most models to solve (default 60)")->check(CLI::Range(2, 100000));
+  tune_app->add_option("-o,--output", tune.output, "The tuned model (default: MODEL-STEM-tuned.lobe)");
+  tune_app->add_option("--threads", tune.threads, "Threads (default: all cores)")->check(CLI::Range(1, 1024));
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -103,6 +115,7 @@ int main(int argc, char** argv) {
     if (*compare_app) return lobe::cli::compare_command(compare);
     if (*plot_app) return lobe::cli::plot_command(plot);
     if (*sweep_app) return lobe::cli::sweep_command(sweep);
+    if (*tune_app) return lobe::cli::tune_command(tune);
     return lobe::cli::check_command(check_path, check_sets);
   } catch (const lobe::InputError& e) {
     std::fprintf(stderr, "%s\n", e.formatted().c_str());

@@ -844,6 +844,55 @@ Band parse_band_option(const std::string& option, int index) {
   return band;
 }
 
+namespace {
+
+/// The `count` colon-separated expressions of a range, all of one dimension.
+std::vector<Quantity> range_parts(const std::string& rest, int index, std::size_t offset, std::size_t count,
+                                  const std::string& name) {
+  std::vector<Quantity> parts;
+  std::size_t start = 0;
+  while (true) {
+    const std::size_t colon = rest.find(':', start);
+    std::vector<Token> tokens =
+        tokenize_line(rest.substr(start, colon == std::string::npos ? std::string::npos : colon - start), "--vary", index);
+    for (Token& t : tokens) t.where.column += static_cast<int>(offset + start);
+    TokenCursor c(tokens);
+    parts.push_back(parse_expression(c, SymbolTable{}));
+    if (!c.at_end()) throw InputError(c.peek().where, "unexpected text in the range");
+    if (colon == std::string::npos) break;
+    start = colon + 1;
+  }
+  const SourceLocation where{"--vary", index, 1};
+  if (parts.size() != count) throw InputError(where, count == 3 ? "a range is START:STOP:STEP" : "a range is MIN:MAX");
+  for (const auto& p : parts)
+    if (!(p.dim == parts[0].dim)) throw InputError(where, "the ends of --vary " + name + " must have the same unit");
+  return parts;
+}
+
+/// The unit text that makes an SI value an override of a `let` of dimension d.
+std::string override_unit(const Dimension& d, const SourceLocation& where) {
+  if (d == dimension::length) return " m";
+  if (d == dimension::frequency) return " Hz";
+  if (d == dimension::angle) return " rad";
+  if (d == Dimension{}) return "";
+  throw InputError(where, "a range takes plain numbers, lengths, frequencies or angles; list other values as A,B,C");
+}
+
+}  // namespace
+
+TunedName parse_tune_option(const std::string& option, int index) {
+  const SourceLocation where{"--vary", index, 1};
+  const auto equals = option.find('=');
+  if (equals == std::string::npos || equals == 0) throw InputError(where, "--vary takes NAME=MIN:MAX, got '" + option + "'");
+  TunedName tuned{option.substr(0, equals), 0.0, 0.0, ""};
+  const std::vector<Quantity> parts = range_parts(option.substr(equals + 1), index, equals + 1, 2, tuned.name);
+  tuned.unit = override_unit(parts[0].dim, where);
+  tuned.low = parts[0].value;
+  tuned.high = parts[1].value;
+  if (!(tuned.high > tuned.low)) throw InputError(where, "MAX must be above MIN");
+  return tuned;
+}
+
 VariedName parse_vary_option(const std::string& option, int index) {
   const SourceLocation where{"--vary", index, 1};
   const auto equals = option.find('=');
@@ -863,28 +912,8 @@ VariedName parse_vary_option(const std::string& option, int index) {
       start = comma + 1;
     }
   } else {
-    std::vector<Quantity> parts;
-    std::size_t start = 0;
-    while (parts.size() < 3) {
-      const std::size_t colon = rest.find(':', start);
-      std::vector<Token> tokens =
-          tokenize_line(rest.substr(start, colon == std::string::npos ? std::string::npos : colon - start), "--vary", index);
-      for (Token& t : tokens) t.where.column += static_cast<int>(equals + 1 + start);
-      TokenCursor c(tokens);
-      parts.push_back(parse_expression(c, SymbolTable{}));
-      if (!c.at_end()) throw InputError(c.peek().where, "unexpected text in the range");
-      if (colon == std::string::npos) break;
-      start = colon + 1;
-    }
-    if (parts.size() != 3) throw InputError(where, "a range is START:STOP:STEP");
-    const Dimension d = parts[0].dim;
-    if (!(parts[1].dim == d) || !(parts[2].dim == d))
-      throw InputError(where, "START, STOP and STEP of --vary " + varied.name + " must have the same unit");
-    std::string unit;
-    if (d == dimension::length) unit = " m";
-    else if (d == dimension::frequency) unit = " Hz";
-    else if (d == dimension::angle) unit = " rad";
-    else if (!(d == Dimension{})) throw InputError(where, "a range takes plain numbers, lengths, frequencies or angles; list other values as A,B,C");
+    const std::vector<Quantity> parts = range_parts(rest, index, equals + 1, 3, varied.name);
+    const std::string unit = override_unit(parts[0].dim, where);
     const Real first = parts[0].value, last = parts[1].value, step = parts[2].value;
     if (!(step > 0.0) || last < first) throw InputError(where, "a range needs STOP at or above START and a STEP above zero");
     const double count = std::floor((last - first) / step + 1e-9) + 1;

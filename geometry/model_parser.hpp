@@ -33,6 +33,16 @@ struct VariedName {
 VariedName parse_vary_option(const std::string& option, int index);
 constexpr int max_sweep_values = 10000;
 
+/// A `let` name a tuner may move between two values: NAME=MIN:MAX (plain numbers, or
+/// lengths, frequencies or angles with units). `unit` is the suffix that makes a value
+/// text an override (" m", " Hz", " rad" or empty). Errors at --vary:INDEX:COLUMN.
+struct TunedName {
+  std::string name;
+  Real low = 0.0, high = 0.0;
+  std::string unit;
+};
+TunedName parse_tune_option(const std::string& option, int index);
+
 /// A band given on the command line as LOW:HIGH with frequency units ("2.4GHz:2.4835GHz"),
 /// named "option-INDEX". Errors are located at --band:INDEX:COLUMN.
 Band parse_band_option(const std::string& option, int index);

@@ -88,6 +88,34 @@ TEST(Sweep, KilledAndResumedEqualsUninterrupted) {
     EXPECT_EQ(entry.path().filename().string().find(".partial-"), std::string::npos) << entry.path();
 }
 
+/// The number after `label` in `text`.
+double number_after(const std::string& text, const std::string& label) {
+  const auto at = text.find(label);
+  if (at == std::string::npos) return -1.0;
+  return std::stod(text.substr(at + label.size()));
+}
+
+// tune must do at least as well as a 1 mm grid of the same range (what a sweep finds), and
+// the model it writes must give the figure it reports.
+TEST(Tune, FindsAtLeastTheBestOfAFineSweep) {
+  const auto dir = fresh_directory("tune");
+  const std::string model = models + "half_wave_dipole_ism.lobe";
+  const ProcessResult swept = run_lobe("sweep '" + model + "' --vary length=150mm:175mm:1mm --rank worst-vswr -o '" +
+                                           (dir / "s.h5").string() + "' --threads 1", dir);
+  ASSERT_EQ(swept.exit_code, 0) << swept.err;
+  const auto first = swept.out.find(" 1. case-");
+  ASSERT_NE(first, std::string::npos) << swept.out;
+  const double sweep_value = std::stod(swept.out.substr(first + 16));
+  const ProcessResult tuned = run_lobe("tune '" + model + "' --vary length=150mm:175mm -o '" + (dir / "t.lobe").string() +
+                                           "' --threads 1", dir);
+  ASSERT_EQ(tuned.exit_code, 0) << tuned.err;
+  const double tuned_value = number_after(tuned.out, "best worst-vswr ");
+  EXPECT_LE(tuned_value, sweep_value + 1e-3) << tuned.out << swept.out;
+  const ProcessResult rerun = run_lobe("run '" + (dir / "t.lobe").string() + "' -o '" + (dir / "r").string() + "'", dir);
+  ASSERT_EQ(rerun.exit_code, 0) << rerun.err;
+  EXPECT_NEAR(number_after(rerun.out, ", worst "), tuned_value, 0.006) << rerun.out;  // printed to 3 digits
+}
+
 TEST(Sweep, BadVaryOptionsAreInputErrors) {
   const auto dir = fresh_directory("sweep-bad");
   for (const char* vary : {"rod", "rod=1:0:1", "rod=1mm:2MHz:1mm", "nosuch=1,2", "rod=1,,2"}) {

@@ -1,0 +1,133 @@
+#include <nlopt.hpp>
+
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+#include <regex>
+#include <sstream>
+
+#include "cli/commands.hpp"
+#include "cli/model_loading.hpp"
+#include "core/number_text.hpp"
+#include "geometry/model_parser.hpp"
+#include "post/band_report.hpp"
+#include "post/frequency_result.hpp"
+#include "post/output_files.hpp"
+#include "post/run_summary.hpp"
+#include "solver/threads.hpp"
+
+namespace lobe::cli {
+namespace {
+
+/// The goal's value for one set of overrides: a band figure of the first port.
+struct Evaluator {
+  const TuneOptions& options;
+  const std::vector<TunedName>& tuned;
+  std::optional<Band> band;
+  int evaluations = 0;
+  Real best = 1e300;
+  std::vector<std::string> best_values;
+
+  std::vector<std::string> values_of(const std::vector<double>& x) const {
+    std::vector<std::string> texts;
+    for (std::size_t i = 0; i < tuned.size(); ++i)
+      texts.push_back(exact_text(tuned[i].low + x[i] * (tuned[i].high - tuned[i].low)) + tuned[i].unit);
+    return texts;
+  }
+
+  Real goal(const std::vector<std::string>& values) {
+    std::vector<std::string> sets = options.set_options;
+    for (std::size_t i = 0; i < tuned.size(); ++i) sets.push_back(tuned[i].name + "=" + values[i]);
+    const Model model = load_model(options.model_path, sets);
+    if (!band) band = model.bands.empty() ? Band{"all computed frequencies", model.frequencies_hz.front(), model.frequencies_hz.back()}
+                                          : model.bands.front();
+    const AntennaProblem problem(model);
+    ReflectionCurve curve;
+    for (Real f : model.frequencies_hz) {
+      curve.frequency_hz.push_back(f);
+      curve.reflection.push_back(port_results(solve_frequency(problem, f), model.reference_ohm)[0].reflection);
+    }
+    const PortBandReport r = band_report(curve, band->low_hz, band->high_hz);
+    return options.goal == "worst-vswr" ? r.highest_vswr.value
+           : options.goal == "mean-vswr" ? r.mean_vswr
+                                         : r.mean_mismatch_loss_db;
+  }
+};
+
+double objective(const std::vector<double>& x, std::vector<double>&, void* data) {
+  auto& e = *static_cast<Evaluator*>(data);
+  const auto values = e.values_of(x);
+  const Real g = e.goal(values);
+  ++e.evaluations;
+  if (g < e.best) e.best = g, e.best_values = values;
+  std::fprintf(stderr, "evaluation %d: %s %.5g (best %.5g)\n", e.evaluations, e.options.goal.c_str(), g, e.best);
+  return g;
+}
+
+/// The model text with each tuned `let` line set to its value, the old text kept in a comment.
+std::string tuned_text(const std::string& text, const std::vector<TunedName>& tuned, const std::vector<std::string>& values) {
+  std::istringstream in(text);
+  std::ostringstream out;
+  for (std::string line; std::getline(in, line);) {
+    for (std::size_t i = 0; i < tuned.size(); ++i) {
+      const std::regex let("^(\\s*let\\s+" + tuned[i].name + "\\s*=).*$");
+      if (std::regex_match(line, let)) {
+        std::string old = line.substr(line.find('=') + 1);
+        old = old.substr(old.find_first_not_of(' '));
+        line = std::regex_replace(line, let, "$1 " + values[i] + "   # tuned by lobe (was: " + old + ")");
+      }
+    }
+    out << line << '\n';
+  }
+  return out.str();
+}
+
+}  // namespace
+
+int tune_command(const TuneOptions& options) {
+  if (options.threads > 0) set_thread_count(options.threads);
+  std::vector<TunedName> tuned;
+  for (std::size_t i = 0; i < options.vary_options.size(); ++i)
+    tuned.push_back(parse_tune_option(options.vary_options[i], static_cast<int>(i) + 1));
+  Evaluator evaluator{options, tuned, std::nullopt, 0, 1e300, {}};
+  if (!options.band.empty()) evaluator.band = parse_band_option(options.band, 1);
+  const std::string stem = std::filesystem::path(options.model_path).stem().string();
+  const std::filesystem::path output(options.output.empty() ? stem + "-tuned.lobe" : options.output);
+  const std::filesystem::path directory = output.has_parent_path() ? output.parent_path() : std::filesystem::path(".");
+  check_output_directory(directory);
+  // Both ends must load before the search starts: a bad range fails now, not mid-search.
+  for (double end : {0.0, 1.0}) load_model(options.model_path, [&] {
+      std::vector<std::string> sets = options.set_options;
+      for (const auto& t : tuned) sets.push_back(t.name + "=" + exact_text(t.low + end * (t.high - t.low)) + t.unit);
+      return sets;
+    }());
+
+  // BOBYQA (Powell 2009): bounded, derivative-free, builds quadratic models; on the unit box.
+  nlopt::opt optimiser(nlopt::LN_BOBYQA, static_cast<unsigned>(tuned.size()));
+  optimiser.set_lower_bounds(std::vector<double>(tuned.size(), 0.0));
+  optimiser.set_upper_bounds(std::vector<double>(tuned.size(), 1.0));
+  optimiser.set_min_objective(objective, &evaluator);
+  optimiser.set_maxeval(options.evaluations);
+  optimiser.set_xtol_abs(1e-4);
+  std::vector<double> x(tuned.size(), 0.5);
+  double best = 0.0;
+  try {
+    optimiser.optimize(x, best);
+  } catch (const nlopt::roundoff_limited&) {
+    // The goal stopped improving at rounding level: the best point so far stands.
+  }
+  std::ifstream in(options.model_path, std::ios::binary);
+  std::ostringstream text;
+  text << in.rdbuf();
+  OutputFiles files(directory);
+  std::ofstream(files.staging_path(output.filename().string())) << tuned_text(text.str(), tuned, evaluator.best_values);
+  files.commit();
+  std::printf("best %s %.5g over %s (%s to %s) after %d evaluations:\n", options.goal.c_str(), evaluator.best,
+              evaluator.band->name.c_str(), frequency_text(evaluator.band->low_hz).c_str(),
+              frequency_text(evaluator.band->high_hz).c_str(), evaluator.evaluations);
+  for (std::size_t i = 0; i < tuned.size(); ++i) std::printf("  %s = %s\n", tuned[i].name.c_str(), evaluator.best_values[i].c_str());
+  std::printf("written: %s\n", output.string().c_str());
+  return 0;
+}
+
+}  // namespace lobe::cli
