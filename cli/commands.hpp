@@ -54,6 +54,7 @@ struct CompareOptions {
   std::string measured_path;
   std::string port;                       ///< empty: the first port
   std::vector<std::string> band_options;  ///< LOW:HIGH; none: the overlap of the two curves
+  std::optional<double> tx_power_w;       ///< forward power for reflected-power figures
 };
 
 /// Compares a result's reflection with a measured one (Touchstone or CSV) and prints dips,

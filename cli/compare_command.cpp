@@ -106,8 +106,20 @@ int compare_command(const CompareOptions& options) {
     std::printf("  RMS return-loss difference %.2f dB; %.2f dB after scaling the frequencies by %.4f\n",
                 rms_return_loss_difference_db(simulated, measured.curve, b_low, b_high),
                 rms_return_loss_difference_db(simulated, measured.curve, b_low, b_high, scale), scale);
-    std::printf("%s", band_line("simulated", band_report(simulated, b_low, b_high)).c_str());
-    std::printf("%s", band_line("measured", band_report(measured.curve, b_low, b_high)).c_str());
+    const PortBandReport sim = band_report(simulated, b_low, b_high), meas = band_report(measured.curve, b_low, b_high);
+    std::printf("%s", band_line("simulated", sim).c_str());
+    std::printf("%s", band_line("measured", meas).c_str());
+    if (options.tx_power_w) {
+      // The worst VSWR in the band gives the most power sent back: P |Γ|², |Γ| = (s − 1)/(s + 1).
+      auto reflected = [&](const PortBandReport& r) {
+        const Real g = (r.highest_vswr.value - 1) / (r.highest_vswr.value + 1);
+        return reflected_power_w(*options.tx_power_w, g);
+      };
+      const Real limit = reflected_power_w(*options.tx_power_w, (vswr_caution_threshold - 1) / (vswr_caution_threshold + 1));
+      std::printf("  reflected power with %.4g W forward, at worst: simulated %.4g W, measured %.4g W%s\n",
+                  *options.tx_power_w, reflected(sim), reflected(meas),
+                  std::max(reflected(sim), reflected(meas)) > limit ? " (more than VSWR 2 reflects: check the transmitter's rating)" : "");
+    }
   }
   return 0;
 }

@@ -66,6 +66,8 @@ int main(int argc, char** argv) {
   compare_app->add_option("--port", compare.port, "The result's port to compare (default: the first)");
   compare_app->add_option("--band", compare.band_options, "A band to report: LOW:HIGH (repeatable; default: the overlap)")
       ->allow_extra_args(false);
+  compare_app->add_option("--tx-power", compare.tx_power_w, "Transmitter forward power in W: the worst reflected power")
+      ->check(CLI::PositiveNumber);
 
   lobe::cli::PlotOptions plot;
   auto* plot_app = app.add_subcommand("plot", "Write SVG figures of a result (VSWR, return loss, Smith chart)");

@@ -24,7 +24,7 @@ int run_scattering(const RunOptions& options, const Model& model) {
               count_text(problem.basis.size(), "unknown").c_str(), problem.surfaces.smallest_angle * 180 / pi,
               count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
               count_text(thread_count(), "thread").c_str());
-  ScatteringRun run{problem, {}, {LOBE_VERSION, thread_count(), options.command_line}};
+  ScatteringRun run{problem, {}, {LOBE_VERSION, thread_count(), options.command_line, std::nullopt}};
   const auto start = std::chrono::steady_clock::now();
   for (std::size_t i = 0; i < model.frequencies_hz.size(); ++i) {
     run.results.push_back(evaluate_scattering(problem, solve_scattering(problem, model.frequencies_hz[i])));

@@ -285,6 +285,14 @@ TEST(DemoModels, CompareFindsTheFrequencyScaleOfTheInventedMeasurement) {
   ASSERT_NE(at, std::string::npos) << r.out;
   EXPECT_NEAR(std::stod(r.out.substr(at + 29)), 0.985, 0.002) << r.out;
   EXPECT_NE(r.out.find("magnitude only"), std::string::npos);
+  // With --tx-power: the measured worst VSWR in the band (1.25 as printed) reflects P |Γ|².
+  const ProcessResult powered = run_lobe("compare '" + result + "' '" + models +
+                                             "ground_plane_433_measured.csv' --band 433.05MHz:434.79MHz --tx-power 10", dir);
+  ASSERT_EQ(powered.exit_code, 0) << powered.err;
+  const auto worst = powered.out.find("measured ", powered.out.find("reflected power with 10 W forward, at worst"));
+  ASSERT_NE(worst, std::string::npos) << powered.out;
+  const double g = (1.25 - 1) / (1.25 + 1);
+  EXPECT_NEAR(std::stod(powered.out.substr(worst + 9)), 10 * g * g, 0.01) << powered.out;
   ASSERT_EQ(run_lobe("export '" + result + "' --touchstone", dir).exit_code, 0);
   r = run_lobe("compare '" + result + "' '" + (dir / "out" / "ground_plane_433.s1p").string() + "' --port feed", dir);
   ASSERT_EQ(r.exit_code, 0) << r.err;

@@ -46,7 +46,7 @@ std::string unit_of(hid_t file, const char* name) {
 
 TEST(ResultFiles, Hdf5HoldsTheComputedNumbersWithUnits) {
   const Solved s = solve_text(dipole_text(0.5, 1e-4, 20));
-  RunRecord run{*s.problem, {s.result}, {"test", 1, "lobe run test"}};
+  RunRecord run{*s.problem, {s.result}, {"test", 1, "lobe run test", std::nullopt}};
   const auto path = scratch("h5") / "run.h5";
   write_hdf5(path, run);
   const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
@@ -66,7 +66,7 @@ TEST(ResultFiles, Hdf5HoldsTheComputedNumbersWithUnits) {
 
 TEST(ResultFiles, PortsCsvHasTheDocumentedHeader) {
   const Solved s = solve_text(dipole_text(0.5, 1e-4, 20));
-  RunRecord run{*s.problem, {s.result}, {"test", 1, ""}};
+  RunRecord run{*s.problem, {s.result}, {"test", 1, "", std::nullopt}};
   const auto path = scratch("csv") / "ports.csv";
   write_ports_csv(path, run);
   std::ifstream in(path);
