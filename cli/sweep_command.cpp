@@ -58,13 +58,6 @@ std::string manifest(const std::string& model_text, const SweepOptions& o, const
   return m.str();
 }
 
-std::string read_all(const std::filesystem::path& path) {
-  std::ifstream in(path, std::ios::binary);
-  std::ostringstream text;
-  text << in.rdbuf();
-  return text.str();
-}
-
 }  // namespace
 
 int sweep_command(const SweepOptions& options) {
@@ -84,8 +77,10 @@ int sweep_command(const SweepOptions& options) {
   // Every case must load before any is solved: a bad value is an input error now, not
   // hours into the night.
   std::vector<std::vector<Real>> si;
+  std::string model_text;
   for (const auto& c : cases) {
     const Model model = load_model(options.model_path, overrides_of(c));
+    model_text = model.text;
     if (model.wave) throw InputError({options.model_path, 1, 1}, "sweeps solve antennas driven by ports, not plane waves");
     std::vector<Real> values;
     for (const auto& v : varied)
@@ -98,11 +93,14 @@ int sweep_command(const SweepOptions& options) {
   const std::filesystem::path directory = output.has_parent_path() ? output.parent_path() : std::filesystem::path(".");
   check_output_directory(directory);
   const std::filesystem::path case_directory = output.string() + ".cases";
-  const std::string expected = manifest(read_all(options.model_path), options, varied, cases);
+  const std::string expected = manifest(model_text, options, varied, cases);
   std::filesystem::create_directories(case_directory);
   const auto manifest_path = case_directory / "manifest.txt";
   if (std::filesystem::exists(manifest_path)) {
-    if (read_all(manifest_path) != expected)
+    std::ifstream in(manifest_path, std::ios::binary);
+    std::ostringstream found;
+    found << in.rdbuf();
+    if (found.str() != expected)
       throw InputError({output.string(), 1, 1}, "'" + case_directory.string() +
                                                    "' holds the cases of a different sweep; remove it or choose another -o");
   } else {

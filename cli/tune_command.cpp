@@ -96,11 +96,12 @@ int tune_command(const TuneOptions& options) {
   const std::filesystem::path directory = output.has_parent_path() ? output.parent_path() : std::filesystem::path(".");
   check_output_directory(directory);
   // Both ends must load before the search starts: a bad range fails now, not mid-search.
-  for (double end : {0.0, 1.0}) load_model(options.model_path, [&] {
+  std::string model_text;
+  for (double end : {0.0, 1.0}) model_text = load_model(options.model_path, [&] {
       std::vector<std::string> sets = options.set_options;
       for (const auto& t : tuned) sets.push_back(t.name + "=" + exact_text(t.low + end * (t.high - t.low)) + t.unit);
       return sets;
-    }());
+    }()).text;
 
   // BOBYQA (Powell 2009): bounded, derivative-free, builds quadratic models; on the unit box.
   nlopt::opt optimiser(nlopt::LN_BOBYQA, static_cast<unsigned>(tuned.size()));
@@ -116,11 +117,8 @@ int tune_command(const TuneOptions& options) {
   } catch (const nlopt::roundoff_limited&) {
     // The goal stopped improving at rounding level: the best point so far stands.
   }
-  std::ifstream in(options.model_path, std::ios::binary);
-  std::ostringstream text;
-  text << in.rdbuf();
   OutputFiles files(directory);
-  std::ofstream(files.staging_path(output.filename().string())) << tuned_text(text.str(), tuned, evaluator.best_values);
+  std::ofstream(files.staging_path(output.filename().string())) << tuned_text(model_text, tuned, evaluator.best_values);
   files.commit();
   std::printf("best %s %.5g over %s (%s to %s) after %d evaluations:\n", options.goal.c_str(), evaluator.best,
               evaluator.band->name.c_str(), frequency_text(evaluator.band->low_hz).c_str(),
