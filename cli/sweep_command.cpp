@@ -25,13 +25,14 @@ namespace {
 std::atomic<bool> interrupted{false};
 extern "C" void on_interrupt(int) { interrupted = true; }
 
-/// Every combination of the varied values, the first name varying slowest.
-std::vector<std::vector<std::string>> combinations(const std::vector<VariedName>& varied) {
+/// Every combination of the varied values (or of their labels), the first name varying slowest.
+std::vector<std::vector<std::string>> combinations(const std::vector<VariedName>& varied,
+                                                   std::vector<std::string> VariedName::*texts) {
   std::vector<std::vector<std::string>> cases{{}};
   for (const auto& v : varied) {
     std::vector<std::vector<std::string>> next;
     for (const auto& c : cases)
-      for (const auto& value : v.values) {
+      for (const auto& value : v.*texts) {
         next.push_back(c);
         next.back().push_back(value);
       }
@@ -65,7 +66,8 @@ int sweep_command(const SweepOptions& options) {
   std::vector<VariedName> varied;
   for (std::size_t i = 0; i < options.vary_options.size(); ++i)
     varied.push_back(parse_vary_option(options.vary_options[i], static_cast<int>(i) + 1));
-  const auto cases = combinations(varied);
+  const auto cases = combinations(varied, &VariedName::values);
+  const auto labels = combinations(varied, &VariedName::labels);
   if (cases.size() > static_cast<std::size_t>(max_sweep_values))
     throw InputError({"--vary", 1, 1}, "the sweep has " + std::to_string(cases.size()) + " cases; at most " +
                                            std::to_string(max_sweep_values) + " are allowed");
@@ -149,10 +151,10 @@ int sweep_command(const SweepOptions& options) {
                  solved + skipped, cases.size(), case_directory.string().c_str());
     return 130;
   }
-  std::vector<std::string> names;
-  for (const auto& v : varied) names.push_back(v.name);
+  SweepTable table{{}, cases, labels, si};
+  for (const auto& v : varied) table.names.push_back(v.name);
   OutputFiles files(directory);
-  write_sweep_hdf5(files.staging_path(output.filename().string()), names, cases, si, case_files);
+  write_sweep_hdf5(files.staging_path(output.filename().string()), table, case_files);
   files.commit();
   std::printf("%zu cases (%zu solved now, %zu from before) in %s\n", cases.size(), solved, skipped, output.string().c_str());
 
@@ -167,11 +169,8 @@ int sweep_command(const SweepOptions& options) {
       const NetworkData network = read_result_network(case_files[c]);
       ReflectionCurve curve{network.frequency_hz, {}};
       for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
-      const PortBandReport r = band_report(curve, band.low_hz, band.high_hz);
-      const Real score = options.rank == "worst-vswr"           ? r.highest_vswr.value
-                         : options.rank == "mean-vswr"          ? r.mean_vswr
-                         : options.rank == "mean-mismatch-loss" ? r.mean_mismatch_loss_db
-                                                                : -r.fraction_within;
+      const Real figure = band_figure(band_report(curve, band.low_hz, band.high_hz), options.rank);
+      const Real score = larger_is_better(options.rank) ? -figure : figure;
       scores.emplace_back(score, c);
     }
     std::stable_sort(scores.begin(), scores.end());
@@ -179,9 +178,9 @@ int sweep_command(const SweepOptions& options) {
                 frequency_text(band.low_hz).c_str(), frequency_text(band.high_hz).c_str());
     for (std::size_t k = 0; k < std::min<std::size_t>(10, scores.size()); ++k) {
       std::printf("  %2zu. %s  %-12.4g", k + 1, case_name(scores[k].second).c_str(),
-                  options.rank == "share-under-vswr-2" ? -scores[k].first : scores[k].first);
+                  larger_is_better(options.rank) ? -scores[k].first : scores[k].first);
       for (std::size_t v = 0; v < varied.size(); ++v)
-        std::printf("  %s=%s", varied[v].name.c_str(), cases[scores[k].second][v].c_str());
+        std::printf("  %s = %s", varied[v].name.c_str(), labels[scores[k].second][v].c_str());
       std::printf("\n");
     }
   }

@@ -27,11 +27,16 @@ struct Evaluator {
   int evaluations = 0;
   Real best = 1e300;
   std::vector<std::string> best_values;
+  std::vector<Real> best_si;
 
+  std::vector<Real> si_of(const std::vector<double>& x) const {
+    std::vector<Real> si;
+    for (std::size_t i = 0; i < tuned.size(); ++i) si.push_back(tuned[i].low + x[i] * (tuned[i].high - tuned[i].low));
+    return si;
+  }
   std::vector<std::string> values_of(const std::vector<double>& x) const {
     std::vector<std::string> texts;
-    for (std::size_t i = 0; i < tuned.size(); ++i)
-      texts.push_back(exact_text(tuned[i].low + x[i] * (tuned[i].high - tuned[i].low)) + tuned[i].unit);
+    for (std::size_t i = 0; i < tuned.size(); ++i) texts.push_back(exact_text(si_of(x)[i]) + tuned[i].unit);
     return texts;
   }
 
@@ -47,10 +52,7 @@ struct Evaluator {
       curve.frequency_hz.push_back(f);
       curve.reflection.push_back(port_results(solve_frequency(problem, f), model.reference_ohm)[0].reflection);
     }
-    const PortBandReport r = band_report(curve, band->low_hz, band->high_hz);
-    return options.goal == "worst-vswr" ? r.highest_vswr.value
-           : options.goal == "mean-vswr" ? r.mean_vswr
-                                         : r.mean_mismatch_loss_db;
+    return band_figure(band_report(curve, band->low_hz, band->high_hz), options.goal);
   }
 };
 
@@ -59,7 +61,7 @@ double objective(const std::vector<double>& x, std::vector<double>&, void* data)
   const auto values = e.values_of(x);
   const Real g = e.goal(values);
   ++e.evaluations;
-  if (g < e.best) e.best = g, e.best_values = values;
+  if (g < e.best) e.best = g, e.best_values = values, e.best_si = e.si_of(x);
   std::fprintf(stderr, "evaluation %d: %s %.5g (best %.5g)\n", e.evaluations, e.options.goal.c_str(), g, e.best);
   return g;
 }
@@ -89,7 +91,7 @@ int tune_command(const TuneOptions& options) {
   std::vector<TunedName> tuned;
   for (std::size_t i = 0; i < options.vary_options.size(); ++i)
     tuned.push_back(parse_tune_option(options.vary_options[i], static_cast<int>(i) + 1));
-  Evaluator evaluator{options, tuned, std::nullopt, 0, 1e300, {}};
+  Evaluator evaluator{options, tuned, std::nullopt, 0, 1e300, {}, {}};
   if (!options.band.empty()) evaluator.band = parse_band_option(options.band, 1);
   const std::string stem = std::filesystem::path(options.model_path).stem().string();
   const std::filesystem::path output(options.output.empty() ? stem + "-tuned.lobe" : options.output);
@@ -123,7 +125,8 @@ int tune_command(const TuneOptions& options) {
   std::printf("best %s %.5g over %s (%s to %s) after %d evaluations:\n", options.goal.c_str(), evaluator.best,
               evaluator.band->name.c_str(), frequency_text(evaluator.band->low_hz).c_str(),
               frequency_text(evaluator.band->high_hz).c_str(), evaluator.evaluations);
-  for (std::size_t i = 0; i < tuned.size(); ++i) std::printf("  %s = %s\n", tuned[i].name.c_str(), evaluator.best_values[i].c_str());
+  for (std::size_t i = 0; i < tuned.size(); ++i)
+    std::printf("  %s = %s\n", tuned[i].name.c_str(), shown_text(evaluator.best_si[i], tuned[i].shown).c_str());
   std::printf("written: %s\n", output.string().c_str());
   return 0;
 }

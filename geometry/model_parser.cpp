@@ -878,13 +878,30 @@ std::string override_unit(const Dimension& d, const SourceLocation& where) {
   throw InputError(where, "a range takes plain numbers, lengths, frequencies or angles; list other values as A,B,C");
 }
 
+/// The unit the first part of a range ("20deg" of "20deg:65deg:5deg") is written in.
+ShownUnit shown_unit(const std::string& rest, int index) {
+  const std::vector<Token> tokens = tokenize_line(rest.substr(0, rest.find(':')), "--vary", index);
+  if (tokens.size() < 2 || tokens[tokens.size() - 2].kind != TokenKind::identifier) return {};
+  const std::string unit = tokens[tokens.size() - 2].text;
+  if (!is_unit_name(unit)) return {};
+  std::vector<Token> one = tokenize_line("1 " + unit, "--vary", index);
+  TokenCursor c(one);
+  return {unit, parse_expression(c, SymbolTable{}).value};
+}
+
 }  // namespace
+
+std::string shown_text(Real value, const ShownUnit& shown) {
+  char text[40];
+  std::snprintf(text, sizeof text, "%.10g", value / shown.scale);
+  return shown.name.empty() ? std::string(text) : std::string(text) + " " + shown.name;
+}
 
 TunedName parse_tune_option(const std::string& option, int index) {
   const SourceLocation where{"--vary", index, 1};
   const auto equals = option.find('=');
   if (equals == std::string::npos || equals == 0) throw InputError(where, "--vary takes NAME=MIN:MAX, got '" + option + "'");
-  TunedName tuned{option.substr(0, equals), 0.0, 0.0, ""};
+  TunedName tuned{option.substr(0, equals), 0.0, 0.0, "", shown_unit(option.substr(equals + 1), index)};
   const std::vector<Quantity> parts = range_parts(option.substr(equals + 1), index, equals + 1, 2, tuned.name);
   tuned.unit = override_unit(parts[0].dim, where);
   tuned.low = parts[0].value;
@@ -898,7 +915,7 @@ VariedName parse_vary_option(const std::string& option, int index) {
   const auto equals = option.find('=');
   if (equals == std::string::npos || equals == 0)
     throw InputError(where, "--vary takes NAME=START:STOP:STEP or NAME=A,B,C, got '" + option + "'");
-  VariedName varied{option.substr(0, equals), {}};
+  VariedName varied{option.substr(0, equals), {}, {}};
   const std::string rest = option.substr(equals + 1);
   if (rest.find(':') == std::string::npos) {
     std::size_t start = 0;
@@ -908,6 +925,8 @@ VariedName parse_vary_option(const std::string& option, int index) {
       if (text.find_first_not_of(' ') == std::string::npos)
         throw InputError({"--vary", index, static_cast<int>(equals + start) + 2}, "an empty value in the list");
       varied.values.push_back(text);
+      const std::size_t first = text.find_first_not_of(' '), last = text.find_last_not_of(' ');
+      varied.labels.push_back(text.substr(first, last - first + 1));
       if (comma == std::string::npos) break;
       start = comma + 1;
     }
@@ -918,7 +937,11 @@ VariedName parse_vary_option(const std::string& option, int index) {
     if (!(step > 0.0) || last < first) throw InputError(where, "a range needs STOP at or above START and a STEP above zero");
     const double count = std::floor((last - first) / step + 1e-9) + 1;
     if (count > max_sweep_values) throw InputError(where, "the range has more than " + std::to_string(max_sweep_values) + " values");
-    for (int i = 0; i < static_cast<int>(count); ++i) varied.values.push_back(exact_text(first + i * step) + unit);
+    const ShownUnit shown = shown_unit(rest, index);
+    for (int i = 0; i < static_cast<int>(count); ++i) {
+      varied.values.push_back(exact_text(first + i * step) + unit);
+      varied.labels.push_back(shown_text(first + i * step, shown));
+    }
   }
   return varied;
 }

@@ -24,7 +24,8 @@ Override parse_override(const std::string& option, int index);
 /// A `let` name and the values a sweep gives it, each as text for an override.
 struct VariedName {
   std::string name;
-  std::vector<std::string> values;
+  std::vector<std::string> values;  ///< override texts that give exactly the intended value
+  std::vector<std::string> labels;  ///< the same values for people: in START's unit ("25 deg"), or as listed
 };
 
 /// NAME=START:STOP:STEP (inclusive; plain numbers, or lengths, frequencies or angles with
@@ -33,6 +34,16 @@ struct VariedName {
 VariedName parse_vary_option(const std::string& option, int index);
 constexpr int max_sweep_values = 10000;
 
+/// The unit a range was written in, for showing its values to people: "deg" and π/180
+/// (its size in SI); empty and 1 for plain numbers.
+struct ShownUnit {
+  std::string name;
+  Real scale = 1.0;
+};
+/// An SI value in that unit with ten significant digits ("25 deg"), which hides the
+/// rounding of START + i·STEP.
+std::string shown_text(Real value, const ShownUnit& shown);
+
 /// A `let` name a tuner may move between two values: NAME=MIN:MAX (plain numbers, or
 /// lengths, frequencies or angles with units). `unit` is the suffix that makes a value
 /// text an override (" m", " Hz", " rad" or empty). Errors at --vary:INDEX:COLUMN.
@@ -40,6 +51,7 @@ struct TunedName {
   std::string name;
   Real low = 0.0, high = 0.0;
   std::string unit;
+  ShownUnit shown;  ///< MIN's unit
 };
 TunedName parse_tune_option(const std::string& option, int index);
 

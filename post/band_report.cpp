@@ -122,4 +122,27 @@ PortBandReport band_report(const ReflectionCurve& curve, Real low_hz, Real high_
   return report;
 }
 
+const std::vector<std::string>& band_figure_names() {
+  static const std::vector<std::string> names{"worst-vswr", "mean-vswr", "mean-mismatch-loss", "share-under-vswr-2"};
+  return names;
+}
+
+Real band_figure(const PortBandReport& report, const std::string& name) {
+  if (name == "worst-vswr") return report.highest_vswr.value;
+  if (name == "mean-vswr") return report.mean_vswr;
+  if (name == "mean-mismatch-loss") return report.mean_mismatch_loss_db;
+  if (name == "share-under-vswr-2") return report.fraction_within;
+  throw std::invalid_argument("unknown band figure '" + name + "'");
+}
+
+bool larger_is_better(const std::string& figure_name) { return figure_name == "share-under-vswr-2"; }
+
+std::string band_figure_title(const std::string& name) {
+  if (name == "worst-vswr") return "worst VSWR";
+  if (name == "mean-vswr") return "mean VSWR";
+  if (name == "mean-mismatch-loss") return "mean mismatch loss (dB)";
+  if (name == "share-under-vswr-2") return "share of the band with VSWR <= 2";
+  throw std::invalid_argument("unknown band figure '" + name + "'");
+}
+
 }  // namespace lobe

@@ -2,6 +2,7 @@
 /// Honest figures over a whole band: extremes and frequency averages of a port's match,
 /// not its single best point.
 #include <optional>
+#include <string>
 #include <vector>
 
 #include "core/types.hpp"
@@ -44,5 +45,14 @@ struct PortBandReport {
 /// Throws std::invalid_argument when the curve does not overlap [low, high] or is not
 /// ascending.
 PortBandReport band_report(const ReflectionCurve& curve, Real low_hz, Real high_hz, Real vswr_threshold = 2.0);
+
+/// The band figures a sweep ranks by, a tuner minimises and a heat map shows, by name:
+/// worst-vswr, mean-vswr, mean-mismatch-loss (dB) and share-under-vswr-2 (the fraction of
+/// the band with VSWR at most 2; the only one where larger is better).
+const std::vector<std::string>& band_figure_names();
+Real band_figure(const PortBandReport& report, const std::string& name);
+bool larger_is_better(const std::string& figure_name);
+/// The figure's name in words with its unit, for headings and axes ("worst VSWR").
+std::string band_figure_title(const std::string& name);
 
 }  // namespace lobe

@@ -27,7 +27,8 @@ struct PatternData {
 };
 PatternData read_result_pattern(const std::filesystem::path& path);
 
-/// The bands of the model behind a result (the model's `band` statements and any --band).
-std::vector<Band> read_result_bands(const std::filesystem::path& path);
+/// The bands of the model behind a result (the model's `band` statements and any --band);
+/// `group` as for read_result_network.
+std::vector<Band> read_result_bands(const std::filesystem::path& path, const std::string& group = "");
 
 }  // namespace lobe

@@ -8,12 +8,24 @@
 
 namespace lobe {
 
-/// Writes `path` with /cases/names (the varied `let` names), /cases/values (cases × names,
-/// as override texts) and /cases/values_si (SI values the model resolved), and a group
-/// /case-000001 … per case holding a copy of that case's whole result file.
-void write_sweep_hdf5(const std::filesystem::path& path, const std::vector<std::string>& names,
-                      const std::vector<std::vector<std::string>>& texts, const std::vector<std::vector<Real>>& si,
+/// The varied `let` names and, per case, their values (cases × names).
+struct SweepTable {
+  std::vector<std::string> names;
+  std::vector<std::vector<std::string>> values;  ///< override texts, exactly as the cases were solved
+  std::vector<std::vector<std::string>> labels;  ///< the same values for people ("25 deg")
+  std::vector<std::vector<Real>> values_si;      ///< as the model resolved them (SI)
+};
+
+/// Writes `path` with /cases/names, /cases/values, /cases/labels and /cases/values_si, and a
+/// group /case-000001 … per case holding a copy of that case's whole result file.
+void write_sweep_hdf5(const std::filesystem::path& path, const SweepTable& table,
                       const std::vector<std::filesystem::path>& case_files);
+
+/// The case table of a sweep file; throws InputError at FILE:1:1 when `path` is not one.
+SweepTable read_sweep_table(const std::filesystem::path& path);
+
+/// Whether `path` is an HDF5 file with a sweep's case table.
+bool is_sweep_file(const std::filesystem::path& path);
 
 /// The group name of case `index` (from 0): "case-000001" for the first.
 std::string case_name(std::size_t index);

@@ -3,6 +3,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "core/number_text.hpp"
 #include "geometry/model_parser.hpp"
 
 namespace lobe {
@@ -128,6 +129,23 @@ TEST(ModelParser, ErrorsPointAtTheCause) {
             std::string::npos);
   EXPECT_EQ(error_of(""), "m.lobe:1:1: the model is empty: it has no statements");
   EXPECT_NE(error_of("wire w from (0,0,0) to (0,0,0) radius 1\n").find("zero length"), std::string::npos);
+}
+
+// Ranges override with exact SI texts but show their values in the unit START was written in.
+TEST(ModelParser, VariedValuesAreShownInTheUnitsGiven) {
+  const VariedName droop = parse_vary_option("droop=20deg:30deg:5deg", 1);
+  ASSERT_EQ(droop.values.size(), 3u);
+  EXPECT_EQ(droop.values[1], exact_text(25 * pi / 180) + " rad");
+  EXPECT_EQ(droop.labels, (std::vector<std::string>{"20 deg", "25 deg", "30 deg"}));
+  EXPECT_EQ(parse_vary_option("length=160 mm:161mm:0.5mm", 1).labels,
+            (std::vector<std::string>{"160 mm", "160.5 mm", "161 mm"}));
+  EXPECT_EQ(parse_vary_option("n=1:3:1", 1).labels, (std::vector<std::string>{"1", "2", "3"}));
+  const VariedName listed = parse_vary_option("rod=0.5, 2 ,3", 1);
+  EXPECT_EQ(listed.values[1], " 2 ");
+  EXPECT_EQ(listed.labels, (std::vector<std::string>{"0.5", "2", "3"}));
+  const TunedName f = parse_tune_option("f0=2.40GHz:2.48GHz", 1);
+  EXPECT_EQ(shown_text(f.low, f.shown), "2.4 GHz");
+  EXPECT_EQ(shown_text(0.1613331647701374, parse_tune_option("l=150mm:175mm", 1).shown), "161.3331648 mm");
 }
 
 }  // namespace
