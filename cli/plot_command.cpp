@@ -2,7 +2,6 @@
 #include <cmath>
 #include <cstdio>
 #include <filesystem>
-#include <fstream>
 
 #include "cli/commands.hpp"
 #include "post/measured_csv.hpp"
@@ -14,13 +13,6 @@
 
 namespace lobe::cli {
 namespace {
-
-void write_text(const std::filesystem::path& path, const std::string& text) {
-  std::ofstream out(path);
-  out << text;
-  out.close();
-  if (!out) throw std::runtime_error("writing " + path.string() + " failed");
-}
 
 /// Index of the value in `values` nearest to `x`.
 std::size_t nearest(const std::vector<Real>& values, Real x) {
@@ -124,13 +116,12 @@ int plot_command(const PlotOptions& options) {
 
   const std::string stem = std::filesystem::path(options.result_path).stem().string();
   OutputFiles files(directory);
-  write_text(files.staging_path(stem + "_pattern_phi0.svg"), pattern_cut_svg(pattern, f, 0.0, at));
-  write_text(files.staging_path(stem + "_pattern_phi90.svg"), pattern_cut_svg(pattern, f, 90.0, at));
-  write_text(files.staging_path(stem + "_axial_ratio.svg"), line_chart_svg(axial));
-  write_text(files.staging_path(stem + "_vswr.svg"), line_chart_svg(vswr));
-  write_text(files.staging_path(stem + "_return_loss.svg"), line_chart_svg(loss));
-  write_text(files.staging_path(stem + "_smith.svg"),
-             smith_chart_svg("Impedance (Smith chart)", network.reference_ohm, smith));
+  files.stage_text(stem + "_pattern_phi0.svg", pattern_cut_svg(pattern, f, 0.0, at));
+  files.stage_text(stem + "_pattern_phi90.svg", pattern_cut_svg(pattern, f, 90.0, at));
+  files.stage_text(stem + "_axial_ratio.svg", line_chart_svg(axial));
+  files.stage_text(stem + "_vswr.svg", line_chart_svg(vswr));
+  files.stage_text(stem + "_return_loss.svg", line_chart_svg(loss));
+  files.stage_text(stem + "_smith.svg", smith_chart_svg("Impedance (Smith chart)", network.reference_ohm, smith));
   for (const auto& path : files.commit()) std::printf("%s\n", path.string().c_str());
   return 0;
 }

@@ -107,7 +107,7 @@ int sweep_command(const SweepOptions& options) {
                                                    "' holds the cases of a different sweep; remove it or choose another -o");
   } else {
     OutputFiles files(case_directory);
-    std::ofstream(files.staging_path("manifest.txt")) << expected;
+    files.stage_text("manifest.txt", expected);
     files.commit();
   }
   // Half-written cases of a run that was killed: never published, safe to remove.

@@ -2,7 +2,6 @@
 
 #include <cstdio>
 #include <filesystem>
-#include <fstream>
 #include <regex>
 #include <sstream>
 
@@ -120,7 +119,7 @@ int tune_command(const TuneOptions& options) {
     // The goal stopped improving at rounding level: the best point so far stands.
   }
   OutputFiles files(directory);
-  std::ofstream(files.staging_path(output.filename().string())) << tuned_text(model_text, tuned, evaluator.best_values);
+  files.stage_text(output.filename().string(), tuned_text(model_text, tuned, evaluator.best_values));
   files.commit();
   std::printf("best %s %.5g over %s (%s to %s) after %d evaluations:\n", options.goal.c_str(), evaluator.best,
               evaluator.band->name.c_str(), frequency_text(evaluator.band->low_hz).c_str(),

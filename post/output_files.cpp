@@ -3,6 +3,7 @@
 #include <fcntl.h>
 #include <unistd.h>
 
+#include <fstream>
 #include <stdexcept>
 
 namespace lobe {
@@ -22,6 +23,14 @@ std::filesystem::path OutputFiles::staging_path(const std::string& name) {
   const auto staging = m_directory / ("." + name + ".partial-" + std::to_string(::getpid()));
   m_staged.emplace_back(staging, final_path);
   return staging;
+}
+
+void OutputFiles::stage_text(const std::string& name, const std::string& text) {
+  const auto path = staging_path(name);
+  std::ofstream out(path, std::ios::binary);
+  out << text;
+  out.close();
+  if (!out) throw std::runtime_error("writing " + path.string() + " failed");
 }
 
 namespace {

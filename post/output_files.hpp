@@ -17,6 +17,8 @@ class OutputFiles {
   OutputFiles& operator=(const OutputFiles&) = delete;
   /// The temporary path to write `name` to.
   std::filesystem::path staging_path(const std::string& name);
+  /// Writes `text` to the temporary path of `name`; throws when the write fails (a full disk).
+  void stage_text(const std::string& name, const std::string& text);
   /// Flushes every staged file to disk, renames each to its final name and flushes the
   /// directory: after a crash or power loss each file is either whole or absent.
   /// Returns the final paths.
