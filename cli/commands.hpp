@@ -63,13 +63,21 @@ int compare_command(const CompareOptions& options);
 
 struct PlotOptions {
   std::string result_path;
-  std::string output_directory;  ///< empty: beside the result
-  std::string measured_path;     ///< optional measured curve to overlay
+  std::string output_directory;           ///< empty: beside the result
+  std::string measured_path;              ///< optional measured curve to overlay
+  std::vector<std::string> band_options;  ///< LOW:HIGH; shaded, and for a sweep the band of its map
+  std::string figure;                     ///< a sweep map's band figure; empty: worst-vswr
+  std::vector<std::string> axes;          ///< a sweep map's varied names; default the first two
 };
 
 /// Writes SVG figures of a result: VSWR and return loss against frequency with the bands
-/// shaded, and the Smith chart; a measured curve is overlaid when given.
+/// shaded, the Smith chart, pattern cuts and axial ratio; a measured curve is overlaid when
+/// given. For a sweep file, writes the map of a band figure over two varied names.
 int plot_command(const PlotOptions& options);
+
+/// The map of a band figure of the first port over one or two varied names of a sweep,
+/// the other names held at the best case's values; prints the best case.
+int plot_sweep(const PlotOptions& options);
 
 /// The measured curve from Touchstone (by extension .sNp or .ts; its first port, referred
 /// to `reference_ohm`) or from a CSV table.

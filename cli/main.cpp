@@ -6,6 +6,7 @@
 
 #include "cli/commands.hpp"
 #include "core/input_error.hpp"
+#include "post/band_report.hpp"
 #include "solver/system_matrix.hpp"
 
 namespace {
@@ -70,10 +71,18 @@ int main(int argc, char** argv) {
       ->check(CLI::PositiveNumber);
 
   lobe::cli::PlotOptions plot;
-  auto* plot_app = app.add_subcommand("plot", "Write SVG figures of a result (VSWR, return loss, Smith chart)");
-  plot_app->add_option("RESULT", plot.result_path, "Result file written by run (.h5)")->required();
+  auto* plot_app =
+      app.add_subcommand("plot", "Write SVG figures of a result, or a map of a band figure over a sweep");
+  plot_app->add_option("RESULT", plot.result_path, "Result file written by run or sweep (.h5)")->required();
   plot_app->add_option("-o,--output", plot.output_directory, "Directory for the figures (default: beside the result)");
   plot_app->add_option("--measured", plot.measured_path, "A measured curve to overlay: Touchstone or CSV");
+  plot_app->add_option("--band", plot.band_options, "A band to shade, and a sweep map's band: LOW:HIGH (repeatable)")
+      ->allow_extra_args(false);
+  plot_app->add_option("--figure", plot.figure, "A sweep map's figure: worst-vswr (default), mean-vswr, mean-mismatch-loss, share-under-vswr-2")
+      ->check(CLI::IsMember(lobe::band_figure_names()));
+  plot_app->add_option("--axes", plot.axes, "A sweep map's varied names: X or X,Y (default: the first two)")
+      ->delimiter(',')
+      ->allow_extra_args(false);
 
   lobe::cli::SweepOptions sweep;
   bool resume = false;
@@ -87,7 +96,7 @@ int main(int argc, char** argv) {
   sweep_app->add_option("-o,--output", sweep.output, "The sweep's HDF5 file (default: MODEL-STEM-sweep.h5)");
   sweep_app->add_flag("--resume", resume, "Go on with an interrupted sweep (re-running the same command does too)");
   sweep_app->add_option("--rank", sweep.rank, "Rank the cases: worst-vswr, mean-vswr, mean-mismatch-loss, share-under-vswr-2")
-      ->check(CLI::IsMember({"worst-vswr", "mean-vswr", "mean-mismatch-loss", "share-under-vswr-2"}));
+      ->check(CLI::IsMember(lobe::band_figure_names()));
   sweep_app->add_option("--band", sweep.band, "The band to rank over: LOW:HIGH (default: the model's first band)");
   sweep_app->add_option("--threads", sweep.threads, "Threads (default: all cores)")->check(CLI::Range(1, 1024));
 

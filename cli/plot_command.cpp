@@ -4,12 +4,15 @@
 #include <filesystem>
 
 #include "cli/commands.hpp"
+#include "core/input_error.hpp"
+#include "geometry/model_parser.hpp"
 #include "post/measured_csv.hpp"
 #include "post/output_files.hpp"
 #include "post/port_quantities.hpp"
 #include "post/result_reader.hpp"
 #include "post/run_summary.hpp"
 #include "post/svg_chart.hpp"
+#include "post/sweep_file.hpp"
 
 namespace lobe::cli {
 namespace {
@@ -51,9 +54,15 @@ std::string pattern_cut_svg(const PatternData& d, std::size_t f, Real phi, const
 }  // namespace
 
 int plot_command(const PlotOptions& options) {
+  if (is_sweep_file(options.result_path)) return plot_sweep(options);
+  if (!options.figure.empty() || !options.axes.empty())
+    throw InputError({options.figure.empty() ? "--axes" : "--figure", 1, 1},
+                     "'" + options.result_path + "' is a single result; --figure and --axes map a sweep file");
   const NetworkData network = read_result_network(options.result_path);
   const std::vector<std::string> names = read_result_port_names(options.result_path);
-  const std::vector<Band> bands = read_result_bands(options.result_path);
+  std::vector<Band> bands = read_result_bands(options.result_path);
+  for (std::size_t b = 0; b < options.band_options.size(); ++b)
+    bands.push_back(parse_band_option(options.band_options[b], static_cast<int>(b) + 1));
   std::optional<MeasuredCurve> measured;
   if (!options.measured_path.empty()) measured = read_measured(options.measured_path, network.reference_ohm);
   std::filesystem::path directory = options.output_directory.empty()

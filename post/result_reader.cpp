@@ -7,12 +7,12 @@
 
 namespace lobe {
 
-std::vector<std::string> read_result_port_names(const std::filesystem::path& path) {
+std::vector<std::string> read_result_port_names(const std::filesystem::path& path, const std::string& group) {
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
-  if (!hdf5_exists(file, "/ports/names"))
+  if (!hdf5_exists(file, group + "/ports/names"))
     throw InputError({path.string(), 1, 1}, "this is not a lobe antenna result (it has no /ports/names)");
   std::vector<hsize_t> dims;
-  return read_strings(file, "/ports/names", dims);
+  return read_strings(file, group + "/ports/names", dims);
 }
 
 PatternData read_result_pattern(const std::filesystem::path& path) {

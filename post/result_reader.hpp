@@ -14,8 +14,8 @@ namespace lobe {
 /// `group` reads a case of a sweep file ("/case-000001"); empty reads a run's file.
 NetworkData read_result_network(const std::filesystem::path& path, const std::string& group = "");
 
-/// The port names of an antenna result file, in port order.
-std::vector<std::string> read_result_port_names(const std::filesystem::path& path);
+/// The port names of an antenna result file, in port order; `group` as above.
+std::vector<std::string> read_result_port_names(const std::filesystem::path& path, const std::string& group = "");
 
 /// The far field on a result's pattern grid, flat arrays indexed (frequency, θ, φ).
 struct PatternData {

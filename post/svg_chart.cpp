@@ -27,9 +27,10 @@ std::string escaped(const std::string& s) {
   return out;
 }
 
-/// Round-number ticks covering [low, high]: steps of 1, 2 or 5 times a power of ten.
-std::vector<Real> ticks(Real low, Real high) {
-  const Real raw = (high - low) / 6;
+/// Round-number ticks covering [low, high], about `count` of them: steps of 1, 2 or 5 times
+/// a power of ten.
+std::vector<Real> ticks(Real low, Real high, int count = 6) {
+  const Real raw = (high - low) / count;
   const Real power = std::pow(10.0, std::floor(std::log10(raw)));
   Real step = power;
   for (Real m : {1.0, 2.0, 5.0, 10.0})
@@ -210,6 +211,113 @@ std::string polar_chart_svg(const std::string& title, Real floor_db, Real ceilin
   }
   svg += text_of("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">0&#176; is +z (zenith)</text>\n",
                  top + 30 + 20 * series.size() + 6);
+  return svg + "</svg>\n";
+}
+
+namespace {
+
+/// A perceptually even scale from dark violet (t = 0) through teal to yellow (t = 1),
+/// readable in grey print and for common colour blindness (anchors of the viridis map).
+std::string scale_colour(Real t) {
+  static const Real anchors[5][3] = {{68, 1, 84}, {59, 82, 139}, {33, 145, 140}, {94, 201, 98}, {253, 231, 37}};
+  const Real u = std::clamp(t, 0.0, 1.0) * 4;
+  const int i = std::min(static_cast<int>(u), 3);
+  const Real w = u - i;
+  int rgb[3];
+  for (int k = 0; k < 3; ++k) rgb[k] = static_cast<int>(std::lround((1 - w) * anchors[i][k] + w * anchors[i + 1][k]));
+  return text_of("#%02x%02x%02x", rgb[0], rgb[1], rgb[2]);
+}
+
+/// Every k-th label, k chosen so that labels on cells `cell` px wide stand `spacing` px apart.
+std::size_t label_stride(Real cell, Real spacing) {
+  return std::max<std::size_t>(1, static_cast<std::size_t>(std::ceil(spacing / cell)));
+}
+
+}  // namespace
+
+std::string heat_map_svg(const HeatMap& map) {
+  const std::size_t rows = map.values.size(), columns = rows ? map.values[0].size() : 0;
+  Real low = 1e300, high = -1e300;
+  for (const auto& row : map.values)
+    for (Real v : row)
+      if (std::isfinite(v)) low = std::min(low, v), high = std::max(high, v);
+  // The scale runs from the best value to the worst, clipped on the worse side.
+  Real best = map.larger_is_better ? high : low, worst = map.larger_is_better ? low : high;
+  bool clipped = false;
+  if (map.colour_limit && (map.larger_is_better ? worst < *map.colour_limit : worst > *map.colour_limit))
+    worst = *map.colour_limit, clipped = true;
+  if (!(std::abs(worst - best) > 0)) worst = best + (map.larger_is_better ? -1 : 1);
+  auto goodness = [&](Real v) { return std::clamp((v - worst) / (best - worst), 0.0, 1.0); };
+
+  const Real map_left = 120, map_top = map.note.empty() ? 44 : 58, bar_width = 16, map_right = width - 110;
+  const Real map_bottom = height - 64;
+  const Real cell_w = (map_right - map_left) / std::max<std::size_t>(columns, 1);
+  const Real cell_h = (map_bottom - map_top) / std::max<std::size_t>(rows, 1);
+  std::string svg = header(map.title);
+  if (!map.note.empty())
+    svg += text_of("<text x=\"%.0f\" y=\"44\" text-anchor=\"middle\" font-size=\"11\" fill=\"#555555\">", width / 2) +
+           escaped(map.note) + "</text>\n";
+  // The best cell: found on the values, not on the clipped colours.
+  std::size_t best_row = rows, best_column = 0;
+  for (std::size_t r = 0; r < rows; ++r)
+    for (std::size_t c = 0; c < columns; ++c) {
+      const Real v = map.values[r][c];
+      if (!std::isfinite(v)) continue;
+      if (best_row == rows || (map.larger_is_better ? v > map.values[best_row][best_column] : v < map.values[best_row][best_column]))
+        best_row = r, best_column = c;
+    }
+  const bool numbers_fit = cell_w >= 38 && cell_h >= 16;
+  for (std::size_t r = 0; r < rows; ++r)
+    for (std::size_t c = 0; c < columns; ++c) {
+      const Real v = map.values[r][c], x = map_left + c * cell_w, y = map_bottom - (r + 1) * cell_h;
+      const bool known = std::isfinite(v);
+      const Real t = known ? goodness(v) : 0.0;
+      svg += text_of("<rect x=\"%.2f\" y=\"%.2f\" width=\"%.2f\" height=\"%.2f\" shape-rendering=\"crispEdges\" fill=\"", x,
+                     y, cell_w, cell_h) +
+             (known ? scale_colour(t) : std::string("#e6e6e6")) + "\"><title>" + escaped(map.x_ticks[c]) + ", " +
+             escaped(map.y_ticks[r]) + ": " + (known ? text_of("%.4g", v) : std::string("no case")) + "</title></rect>\n";
+      if (known && numbers_fit)
+        svg += text_of("<text x=\"%.2f\" y=\"%.2f\" text-anchor=\"middle\" font-size=\"11\" fill=\"%s\">%.3g</text>\n",
+                       x + cell_w / 2, y + cell_h / 2 + 4, t > 0.55 ? "#000000" : "#ffffff", v);
+    }
+  if (best_row < rows)
+    svg += text_of("<rect x=\"%.2f\" y=\"%.2f\" width=\"%.2f\" height=\"%.2f\" fill=\"none\" stroke=\"#000000\" "
+                   "stroke-width=\"3\"/>\n",
+                   map_left + best_column * cell_w + 1.5, map_bottom - (best_row + 1) * cell_h + 1.5, cell_w - 3, cell_h - 3);
+  svg += text_of("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", map_left,
+                 map_top, map_right - map_left, map_bottom - map_top);
+  const std::size_t x_stride = label_stride(cell_w, 64), y_stride = label_stride(cell_h, 16);
+  for (std::size_t c = 0; c < columns; c += x_stride)
+    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">", map_left + (c + 0.5) * cell_w, map_bottom + 18) +
+           escaped(map.x_ticks[c]) + "</text>\n";
+  for (std::size_t r = 0; r < rows; r += y_stride)
+    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"end\">", map_left - 6, map_bottom - (r + 0.5) * cell_h + 4) +
+           escaped(map.y_ticks[r]) + "</text>\n";
+  svg += text_of("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">", 0.5 * (map_left + map_right), height - 30) +
+         escaped(map.x_label) + "</text>\n";
+  svg += text_of("<text transform=\"translate(18 %.1f) rotate(-90)\" text-anchor=\"middle\">", 0.5 * (map_top + map_bottom)) +
+         escaped(map.y_label) + "</text>\n";
+  svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">outlined: the best case</text>\n", map_left,
+                 height - 10);
+  // Colour bar: best at the top.
+  const Real bar_x = map_right + 24, bar_steps = 48, bar_h = map_bottom - map_top;
+  for (int k = 0; k < bar_steps; ++k)
+    svg += text_of("<rect x=\"%.1f\" y=\"%.2f\" width=\"%.1f\" height=\"%.2f\" fill=\"", bar_x, map_top + k * bar_h / bar_steps,
+                   bar_width, bar_h / bar_steps + 0.5) + scale_colour(1 - (k + 0.5) / bar_steps) + "\"/>\n";
+  svg += text_of("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", bar_x,
+                 map_top, bar_width, bar_h);
+  auto bar_label = [&](Real value, const char* prefix) {
+    const Real y = map_top + (1 - goodness(value)) * bar_h;
+    svg += text_of("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#333333\"/>\n", bar_x + bar_width, y,
+                   bar_x + bar_width + 4, y);
+    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\">%s%g</text>\n", bar_x + bar_width + 6, y + 4, prefix, value);
+  };
+  // A clipped scale labels its worse end "at least" (or "at most") the limit.
+  if (clipped) bar_label(worst, map.larger_is_better ? "&#8804; " : "&#8805; ");
+  for (Real tick : ticks(std::min(best, worst), std::max(best, worst), 10))
+    if (!clipped || std::abs(goodness(tick)) * bar_h > 14) bar_label(tick, "");
+  svg += text_of("<text transform=\"translate(%.1f %.1f) rotate(-90)\" text-anchor=\"middle\" font-size=\"11\">", bar_x - 6,
+                 map_top + bar_h / 2) + escaped(map.value_label) + " (best at top)</text>\n";
   return svg + "</svg>\n";
 }
 

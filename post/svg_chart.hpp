@@ -55,6 +55,22 @@ struct PolarSeries {
 };
 std::string polar_chart_svg(const std::string& title, Real floor_db, Real ceiling_db, const std::vector<PolarSeries>& series);
 
+/// A grid of one figure over two varied names: values[row][column], NaN where there is no
+/// case. Colours run from dark (worst) to bright yellow (best); values on the worse side
+/// of `colour_limit` take the worst colour, so one very bad case does not wash out the rest.
+struct HeatMap {
+  std::string title, x_label, y_label, value_label;
+  std::vector<std::string> x_ticks, y_ticks;  ///< one per column, one per row (bottom row first)
+  std::vector<std::vector<Real>> values;
+  bool larger_is_better = false;
+  std::optional<Real> colour_limit;
+  std::string note;  ///< a line under the title, e.g. which values the other names are held at
+};
+
+/// The heat map as a standalone SVG document: cells with their values written in when they
+/// fit, the best cell outlined, a colour bar with its scale.
+std::string heat_map_svg(const HeatMap& map);
+
 /// Colours for successive series, distinguishable in print and for common colour blindness.
 const std::string& series_colour(std::size_t index);
 

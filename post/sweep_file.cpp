@@ -32,6 +32,8 @@ std::string case_name(std::size_t index) {
   return name;
 }
 
+std::string case_group(std::size_t index) { return std::string("/").append(case_name(index)); }
+
 void write_sweep_hdf5(const std::filesystem::path& path, const SweepTable& table,
                       const std::vector<std::filesystem::path>& case_files) {
   Hdf5Handle file(H5Fcreate(path.c_str(), H5F_ACC_TRUNC, H5P_DEFAULT, H5P_DEFAULT), H5Fclose);

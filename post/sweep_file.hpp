@@ -29,5 +29,7 @@ bool is_sweep_file(const std::filesystem::path& path);
 
 /// The group name of case `index` (from 0): "case-000001" for the first.
 std::string case_name(std::size_t index);
+/// Its path in the sweep file, "/case-000001", as the result readers take it.
+std::string case_group(std::size_t index);
 
 }  // namespace lobe

@@ -9,6 +9,7 @@
 #include "core/constants.hpp"
 #include "post/touchstone.hpp"
 #include "support/mie_series.hpp"
+#include "support/xml_check.hpp"
 
 namespace lobe::testing {
 namespace {
@@ -155,39 +156,19 @@ TEST(DemoModels, CalibrationSphereMatchesTheMieSeries) {
   EXPECT_EQ(checked, 5);
 }
 
-/// Every opened tag is closed in order (enough for the VTK files written here).
-bool well_formed_xml(const std::string& text) {
-  std::vector<std::string> open;
-  for (std::size_t at = text.find('<'); at != std::string::npos; at = text.find('<', at + 1)) {
-    const std::size_t end = text.find('>', at);
-    if (end == std::string::npos) return false;
-    const std::string tag = text.substr(at + 1, end - at - 1);
-    if (tag.empty() || tag[0] == '?' || tag.back() == '/') continue;
-    const std::string name = tag.substr(tag[0] == '/' ? 1 : 0, tag.find(' ') == std::string::npos ? std::string::npos
-                                                                : tag.find(' ') - (tag[0] == '/' ? 1 : 0));
-    if (tag[0] != '/') {
-      open.push_back(name);
-    } else {
-      if (open.empty() || open.back() != name) return false;
-      open.pop_back();
-    }
-  }
-  return open.empty();
-}
-
 TEST(DemoModels, MeshCommandWritesVtkForWiresAndSurfaces) {
   const auto dir = fresh_directory("vtk");
   ProcessResult r = run_lobe("mesh '" + std::string(LOBE_SOURCE_DIR) + "/models/yagi_3el_144.lobe' -o '" +
                                  (dir / "yagi.vtu").string() + "'", dir);
   ASSERT_EQ(r.exit_code, 0) << r.err;
   std::string vtu = read_text(dir / "yagi.vtu");
-  EXPECT_TRUE(well_formed_xml(vtu));
+  EXPECT_EQ(xml_error(vtu), "");
   EXPECT_NE(vtu.find("NumberOfCells=\"34\""), std::string::npos);  // the 34 segments `check` reports
   r = run_lobe("mesh '" + std::string(LOBE_SOURCE_DIR) + "/models/calibration_sphere.lobe' -o '" +
                    (dir / "ball.vtu").string() + "'", dir);
   ASSERT_EQ(r.exit_code, 0) << r.err;
   vtu = read_text(dir / "ball.vtu");
-  EXPECT_TRUE(well_formed_xml(vtu));
+  EXPECT_EQ(xml_error(vtu), "");
   EXPECT_NE(vtu.find("Name=\"object\""), std::string::npos);
   EXPECT_EQ(run_lobe("mesh '" + std::string(LOBE_SOURCE_DIR) + "/models/yagi_3el_144.lobe' -o '" +
                          (dir / "yagi.txt").string() + "'", dir).exit_code, 2);
@@ -249,7 +230,7 @@ TEST(DemoModels, MeshCommandWritesWiresAndPlatesTogether) {
                                        (dir / "m.vtu").string() + "'", dir);
   ASSERT_EQ(r.exit_code, 0) << r.err;
   const std::string vtu = read_text(dir / "m.vtu");
-  EXPECT_TRUE(well_formed_xml(vtu));
+  EXPECT_EQ(xml_error(vtu), "");
   EXPECT_NE(vtu.find("NumberOfCells=\"397\""), std::string::npos);  // 5 segments and 392 triangles, as `run` reports
 }
 
@@ -329,7 +310,7 @@ TEST(DemoModels, PlotWritesWellFormedFigures) {
   ASSERT_EQ(r.exit_code, 0) << r.err;
   for (const char* name : {"vswr", "return_loss", "smith", "pattern_phi0", "pattern_phi90", "axial_ratio"}) {
     const std::string svg = read_text(dir / "figures" / ("ground_plane_433_" + std::string(name) + ".svg"));
-    EXPECT_TRUE(well_formed_xml(svg)) << name;
+    EXPECT_EQ(xml_error(svg), "") << name;
     EXPECT_NE(svg.find("<svg xmlns=\"http://www.w3.org/2000/svg\""), std::string::npos) << name;
   }
   for (const char* name : {"vswr", "return_loss", "smith"})

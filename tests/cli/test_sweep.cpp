@@ -11,7 +11,9 @@
 #include <thread>
 
 #include "cli/run_process.hpp"
+#include "post/band_report.hpp"
 #include "post/result_reader.hpp"
+#include "support/xml_check.hpp"
 
 namespace lobe::testing {
 namespace {
@@ -114,6 +116,49 @@ TEST(Tune, FindsAtLeastTheBestOfAFineSweep) {
   const ProcessResult rerun = run_lobe("run '" + (dir / "t.lobe").string() + "' -o '" + (dir / "r").string() + "'", dir);
   ASSERT_EQ(rerun.exit_code, 0) << rerun.err;
   EXPECT_NEAR(number_after(rerun.out, ", worst "), tuned_value, 0.006) << rerun.out;  // printed to 3 digits
+}
+
+// plot on a sweep file maps the band figure of every case, each recomputed here from the
+// case's own S11, and names the best case.
+TEST(Sweep, PlotMapsTheBandFigureOfEveryCase) {
+  const auto dir = fresh_directory("sweep-map");
+  const auto sweep = dir / "s.h5";
+  ASSERT_EQ(run_lobe("sweep '" + models + "half_wave_dipole_ism.lobe' --vary length=155mm:165mm:5mm --vary rod=0.5,2 -o '" +
+                         sweep.string() + "'", dir).exit_code, 0);
+  const ProcessResult r = run_lobe("plot '" + sweep.string() + "' -o '" + (dir / "figures").string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const std::string svg = read_text(dir / "figures" / "s_worst_vswr_map.svg");
+  EXPECT_EQ(xml_error(svg), "");
+  const char* lengths[] = {"155 mm", "160 mm", "165 mm"};
+  const char* rods[] = {"0.5", "2"};
+  double best = 1e300;
+  std::string best_case;
+  for (int c = 0; c < 6; ++c) {
+    const std::string group = "/case-00000" + std::to_string(c + 1);
+    const NetworkData network = read_result_network(sweep, group);
+    ReflectionCurve curve{network.frequency_hz, {}};
+    for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
+    const double worst = band_report(curve, 863e6, 870e6).highest_vswr.value;  // the model's band srd
+    char tooltip[96];
+    std::snprintf(tooltip, sizeof tooltip, "<title>%s, %s: %.4g</title>", lengths[c / 2], rods[c % 2], worst);
+    EXPECT_NE(svg.find(tooltip), std::string::npos) << tooltip;
+    if (worst < best) best = worst, best_case = group.substr(1);
+  }
+  EXPECT_NE(r.out.find("best case by worst-vswr: " + best_case), std::string::npos) << r.out;
+
+  // Over one name, the other held at the best case's value: one row of three cells.
+  const ProcessResult one = run_lobe("plot '" + sweep.string() + "' --axes length --figure mean-vswr", dir);
+  ASSERT_EQ(one.exit_code, 0) << one.err;
+  const std::string row = read_text(dir / "s_mean_vswr_map.svg");
+  std::size_t cells = 0;
+  for (auto at = row.find("<title>"); at != std::string::npos; at = row.find("<title>", at + 1)) ++cells;
+  EXPECT_EQ(cells, 3u);
+  EXPECT_NE(row.find("other names held at the best case's values: rod = "), std::string::npos);
+
+  EXPECT_EQ(run_lobe("plot '" + sweep.string() + "' --axes nosuch", dir).exit_code, 2);
+  EXPECT_EQ(run_lobe("plot '" + sweep.string() + "' --axes rod,rod", dir).exit_code, 2);
+  EXPECT_EQ(run_lobe("plot '" + sweep.string() + "' --band 1GHz:2GHz", dir).exit_code, 2);
+  EXPECT_EQ(run_lobe("plot '" + (dir / "s.h5.cases" / "case-000001.h5").string() + "' --figure mean-vswr", dir).exit_code, 2);
 }
 
 TEST(Sweep, BadVaryOptionsAreInputErrors) {
