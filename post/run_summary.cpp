@@ -5,17 +5,13 @@
 #include <cstdio>
 
 #include "core/constants.hpp"
+#include "core/formatted_text.hpp"
 #include "post/band_report.hpp"
+#include "post/exposure_summary.hpp"
 #include "post/port_quantities.hpp"
 
 namespace lobe {
 namespace {
-
-std::string printf_string(const char* format, auto... args) {
-  char buffer[512];
-  std::snprintf(buffer, sizeof buffer, format, args...);
-  return buffer;
-}
 
 /// Linear interpolation of per-frequency values at f (results ascend in frequency).
 Real interpolated(const RunRecord& run, Real f, Real (*value)(const FrequencyResult&)) {
@@ -51,13 +47,13 @@ std::string band_text(const RunRecord& run, const Band& band) {
       curve.reflection.push_back(r.ports[p].reflection);
     }
     const PortBandReport b = band_report(curve, band.low_hz, band.high_hz, vswr_caution_threshold);
-    out += printf_string("  port %-10s VSWR best %.3g at %s, mean %.3g, worst %.3g at %s; mean mismatch loss %.2f dB\n",
+    out += formatted("  port %-10s VSWR best %.3g at %s, mean %.3g, worst %.3g at %s; mean mismatch loss %.2f dB\n",
                          model.ports[p].name.c_str(), b.lowest_vswr.value, frequency_text(b.lowest_vswr.frequency_hz).c_str(),
                          b.mean_vswr, b.highest_vswr.value, frequency_text(b.highest_vswr.frequency_hz).c_str(),
                          b.mean_mismatch_loss_db);
-    out += printf_string("  %-15s VSWR <= %.3g over %.0f%% of the band; ", "", b.vswr_threshold, 100 * b.fraction_within);
+    out += formatted("  %-15s VSWR <= %.3g over %.0f%% of the band; ", "", b.vswr_threshold, 100 * b.fraction_within);
     if (const auto& s = b.return_loss_10db)
-      out += printf_string("return loss >= 10 dB from %s%s to %s%s\n", s->open_low ? "below " : "",
+      out += formatted("return loss >= 10 dB from %s%s to %s%s\n", s->open_low ? "below " : "",
                            frequency_text(s->low_hz).c_str(), frequency_text(s->high_hz).c_str(),
                            s->open_high ? " and beyond" : "");
     else
@@ -74,10 +70,10 @@ std::string band_text(const RunRecord& run, const Band& band) {
     lowest_gain = std::min(lowest_gain, r->peak_gain_dbi);
     worst_axial = std::max(worst_axial, r->peak_axial_ratio_db);
   }
-  out += printf_string("  %-15s gain %.2f dBi at the centre (RHCP %.2f, LHCP %.2f dBi), lowest %.2f dBi\n", "pattern peak",
+  out += formatted("  %-15s gain %.2f dBi at the centre (RHCP %.2f, LHCP %.2f dBi), lowest %.2f dBi\n", "pattern peak",
                        interpolated(run, centre, gain), interpolated(run, centre, rhcp), interpolated(run, centre, lhcp),
                        lowest_gain);
-  out += printf_string("  %-15s axial ratio %.2f dB at the centre, worst %.2f dB\n", "", interpolated(run, centre, axial),
+  out += formatted("  %-15s axial ratio %.2f dB at the centre, worst %.2f dB\n", "", interpolated(run, centre, axial),
                        worst_axial);
   return out;
 }
@@ -87,21 +83,21 @@ std::string band_text(const RunRecord& run, const Band& band) {
 std::string reflected_power_text(const RunRecord& run, Real forward_w) {
   const Real limit_gamma = (vswr_caution_threshold - 1) / (vswr_caution_threshold + 1);
   const Real limit = reflected_power_w(forward_w, limit_gamma);
-  std::string out = printf_string("\nreflected power with %.4g W forward at each driven port (P |Gamma|^2); '!' marks more "
+  std::string out = formatted("\nreflected power with %.4g W forward at each driven port (P |Gamma|^2); '!' marks more "
                                   "than %.3g W, what VSWR %.3g reflects:\n",
                                   forward_w, limit, vswr_caution_threshold);
-  out += printf_string("%-14s %-10s %14s\n", "frequency", "port", "reflected (W)");
+  out += formatted("%-14s %-10s %14s\n", "frequency", "port", "reflected (W)");
   int flagged = 0;
   for (const auto& r : run.results)
     for (std::size_t p = 0; p < r.ports.size(); ++p) {
       if (!r.ports[p].driven) continue;
       const Real w = reflected_power_w(forward_w, std::abs(r.ports[p].reflection));
       flagged += w > limit;
-      out += printf_string("%-14s %-10s %14.4g%s\n", frequency_text(r.frequency_hz).c_str(),
+      out += formatted("%-14s %-10s %14.4g%s\n", frequency_text(r.frequency_hz).c_str(),
                            run.problem.model.ports[p].name.c_str(), w, w > limit ? " !" : "");
     }
   if (flagged)
-    out += printf_string("%d of these exceed %.3g W: check that the transmitter tolerates it before transmitting there.\n",
+    out += formatted("%d of these exceed %.3g W: check that the transmitter tolerates it before transmitting there.\n",
                          flagged, limit);
   return out;
 }
@@ -109,9 +105,9 @@ std::string reflected_power_text(const RunRecord& run, Real forward_w) {
 }  // namespace
 
 std::string frequency_text(Real hz) {
-  if (hz >= 1e9) return printf_string("%.4f GHz", hz / 1e9);
-  if (hz >= 1e6) return printf_string("%.3f MHz", hz / 1e6);
-  return printf_string("%.3f kHz", hz / 1e3);
+  if (hz >= 1e9) return formatted("%.4f GHz", hz / 1e9);
+  if (hz >= 1e6) return formatted("%.3f MHz", hz / 1e6);
+  return formatted("%.3f kHz", hz / 1e3);
 }
 
 std::string count_text(std::size_t count, const std::string& noun, const std::string& plural) {
@@ -121,20 +117,20 @@ std::string count_text(std::size_t count, const std::string& noun, const std::st
 std::string run_summary(const RunRecord& run) {
   const Model& model = run.problem.model;
   std::string out;
-  out += printf_string("%-14s %-10s %10s %10s %9s %8s\n", "frequency", "port", "R (ohm)", "X (ohm)", "VSWR", "RL (dB)");
+  out += formatted("%-14s %-10s %10s %10s %9s %8s\n", "frequency", "port", "R (ohm)", "X (ohm)", "VSWR", "RL (dB)");
   for (const auto& r : run.results)
     for (std::size_t p = 0; p < r.ports.size(); ++p) {
       const PortResult& port = r.ports[p];
-      out += printf_string("%-14s %-10s %10.2f %+10.2f %9.3g %8.2f%s\n", frequency_text(r.frequency_hz).c_str(),
+      out += formatted("%-14s %-10s %10.2f %+10.2f %9.3g %8.2f%s\n", frequency_text(r.frequency_hz).c_str(),
                            model.ports[p].name.c_str(), port.impedance.real(), port.impedance.imag(), port.vswr,
                            port.return_loss_db, port.driven ? "" : "  (0 V: self impedance)");
     }
   out += "\n";
-  out += printf_string("%-14s %11s %15s %12s %7s %10s\n", "frequency", "peak (dBi)", "at theta/phi", "AR (dB)", "hand",
+  out += formatted("%-14s %11s %15s %12s %7s %10s\n", "frequency", "peak (dBi)", "at theta/phi", "AR (dB)", "hand",
                        "efficiency");
   for (const auto& r : run.results) {
-    const std::string direction = printf_string("%.0f/%.0f deg", r.peak_theta * 180 / pi, r.peak_phi * 180 / pi);
-    out += printf_string("%-14s %11.2f %15s %12.2f %7s %9.1f%%\n", frequency_text(r.frequency_hz).c_str(),
+    const std::string direction = formatted("%.0f/%.0f deg", r.peak_theta * 180 / pi, r.peak_phi * 180 / pi);
+    out += formatted("%-14s %11.2f %15s %12.2f %7s %9.1f%%\n", frequency_text(r.frequency_hz).c_str(),
                          r.peak_gain_dbi, direction.c_str(), r.peak_axial_ratio_db, hand_name(r.peak_hand),
                          100.0 * r.power.efficiency());
   }
@@ -146,8 +142,8 @@ std::string run_summary(const RunRecord& run) {
     smallest_rcond = std::min(smallest_rcond, r.report.reciprocal_condition);
     largest_residual = std::max(largest_residual, r.report.relative_residual);
   }
-  const std::string condition = smallest_rcond > 0 ? printf_string("%.2g", 1.0 / smallest_rcond) : "infinite";
-  out += printf_string("\nmatrix: condition number up to %s, relative residual up to %.1e%s\n", condition.c_str(),
+  const std::string condition = smallest_rcond > 0 ? formatted("%.2g", 1.0 / smallest_rcond) : "infinite";
+  out += formatted("\nmatrix: condition number up to %s, relative residual up to %.1e%s\n", condition.c_str(),
                        largest_residual,
                        smallest_rcond < ill_conditioned_rcond ? " (ill-conditioned: check the geometry)" : "");
 
@@ -158,11 +154,11 @@ std::string run_summary(const RunRecord& run) {
         worst = p.vswr;
         worst_hz = r.frequency_hz;
       }
-  if (run.info.tx_power_w) out += reflected_power_text(run, *run.info.tx_power_w);
+  if (run.info.tx_power_w) out += reflected_power_text(run, *run.info.tx_power_w) + exposure_text(run, *run.info.tx_power_w);
   out += "\nCautions:\n";
   if (worst > vswr_caution_threshold) {
     const Real gamma = (worst - 1.0) / (worst + 1.0);
-    out += printf_string("  - VSWR reaches %.3g at %s: %.0f%% of the transmitter's power is reflected back toward it.\n"
+    out += formatted("  - VSWR reaches %.3g at %s: %.0f%% of the transmitter's power is reflected back toward it.\n"
                          "    A high VSWR can damage a transmitter's amplifier; check its rating before transmitting.\n",
                          worst, frequency_text(worst_hz).c_str(), 100.0 * gamma * gamma);
   }

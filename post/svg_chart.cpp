@@ -4,16 +4,12 @@
 #include <cmath>
 #include <cstdio>
 
+#include "core/formatted_text.hpp"
+
 namespace lobe {
 namespace {
 
 constexpr Real width = 720, height = 440, left = 78, right = 24, top = 44, bottom = 56;
-
-std::string text_of(const char* format, auto... values) {
-  char buffer[256];
-  std::snprintf(buffer, sizeof buffer, format, values...);
-  return buffer;
-}
 
 std::string escaped(const std::string& s) {
   std::string out;
@@ -44,11 +40,11 @@ std::vector<Real> ticks(Real low, Real high, int count = 6) {
 }
 
 std::string header(const std::string& title) {
-  return text_of("<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"%.0f\" height=\"%.0f\" viewBox=\"0 0 %.0f %.0f\" "
+  return formatted("<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"%.0f\" height=\"%.0f\" viewBox=\"0 0 %.0f %.0f\" "
                  "font-family=\"sans-serif\" font-size=\"13\">\n",
                  width, height, width, height) +
          "<rect width=\"100%\" height=\"100%\" fill=\"white\"/>\n" +
-         text_of("<text x=\"%.0f\" y=\"26\" text-anchor=\"middle\" font-size=\"16\">", width / 2) + escaped(title) +
+         formatted("<text x=\"%.0f\" y=\"26\" text-anchor=\"middle\" font-size=\"16\">", width / 2) + escaped(title) +
          "</text>\n";
 }
 
@@ -78,81 +74,81 @@ std::string line_chart_svg(const LineChart& chart) {
   auto px = [&](Real x) { return left + (x - x0) / (x1 - x0) * pw; };
   auto py = [&](Real y) { return top + (y1 - std::clamp(y, y0, y1)) / (y1 - y0) * ph; };
   std::string svg = header(chart.title);
-  svg += text_of("<defs><clipPath id=\"plot\"><rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\"/></clipPath></defs>\n",
+  svg += formatted("<defs><clipPath id=\"plot\"><rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\"/></clipPath></defs>\n",
                  left, top, pw, ph);
   for (const auto& shade : chart.shades) {
     const Real a = std::max(px(shade.low), left), b = std::min(px(shade.high), left + pw);
     if (b <= a) continue;
-    svg += text_of("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"#f2d16b\" fill-opacity=\"0.35\"/>\n", a,
+    svg += formatted("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"#f2d16b\" fill-opacity=\"0.35\"/>\n", a,
                    top, std::max(b - a, 1.0), ph);
-    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\" font-size=\"11\" fill=\"#7a5c00\">", 0.5 * (a + b),
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\" font-size=\"11\" fill=\"#7a5c00\">", 0.5 * (a + b),
                    top + 13) + escaped(shade.label) + "</text>\n";
   }
   for (Real t : ticks(x0, x1)) {
-    svg += text_of("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#dddddd\"/>\n", px(t), top, px(t), top + ph);
-    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">%g</text>\n", px(t), top + ph + 18, t);
+    svg += formatted("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#dddddd\"/>\n", px(t), top, px(t), top + ph);
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">%g</text>\n", px(t), top + ph + 18, t);
   }
   for (Real t : ticks(y0, y1)) {
-    svg += text_of("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#dddddd\"/>\n", left, py(t), left + pw, py(t));
-    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"end\">%g</text>\n", left - 6, py(t) + 4, t);
+    svg += formatted("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#dddddd\"/>\n", left, py(t), left + pw, py(t));
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"end\">%g</text>\n", left - 6, py(t) + 4, t);
   }
   for (const auto& [y, label] : chart.guides) {
     if (y < y0 || y > y1) continue;
-    svg += text_of("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#888888\" stroke-dasharray=\"6 4\"/>\n",
+    svg += formatted("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#888888\" stroke-dasharray=\"6 4\"/>\n",
                    left, py(y), left + pw, py(y));
-    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">", left + 6, py(y) - 4) +
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">", left + 6, py(y) - 4) +
            escaped(label) + "</text>\n";
   }
-  svg += text_of("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", left, top,
+  svg += formatted("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", left, top,
                  pw, ph);
   for (const auto& s : chart.series) {
     std::string points;
     for (std::size_t i = 0; i < s.x.size(); ++i)
-      if (std::isfinite(s.y[i])) points += text_of("%.2f,%.2f ", px(s.x[i]), py(s.y[i]));
+      if (std::isfinite(s.y[i])) points += formatted("%.2f,%.2f ", px(s.x[i]), py(s.y[i]));
     svg += "<polyline clip-path=\"url(#plot)\" fill=\"none\" stroke-width=\"2\" stroke=\"" + s.colour + "\"" +
            (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + " points=\"" + points + "\"/>\n";
   }
   for (std::size_t i = 0; i < chart.series.size(); ++i) {
     const auto& s = chart.series[i];
     const Real y = top + 18 + 18 * i, x = left + pw - 190;
-    svg += text_of("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke-width=\"2\" stroke=\"", x, y, x + 28, y) +
+    svg += formatted("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke-width=\"2\" stroke=\"", x, y, x + 28, y) +
            s.colour + "\"" + (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + "/>\n";
-    svg += text_of("<text x=\"%.1f\" y=\"%.1f\">", x + 34, y + 4) + escaped(s.label) + "</text>\n";
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\">", x + 34, y + 4) + escaped(s.label) + "</text>\n";
   }
-  svg += text_of("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">", left + pw / 2, height - 14) + escaped(chart.x_label) +
+  svg += formatted("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">", left + pw / 2, height - 14) + escaped(chart.x_label) +
          "</text>\n";
-  svg += text_of("<text transform=\"translate(18 %.1f) rotate(-90)\" text-anchor=\"middle\">", top + ph / 2) +
+  svg += formatted("<text transform=\"translate(18 %.1f) rotate(-90)\" text-anchor=\"middle\">", top + ph / 2) +
          escaped(chart.y_label) + "</text>\n";
   return svg + "</svg>\n";
 }
 
 std::string smith_chart_svg(const std::string& title, Real reference_ohm, const std::vector<SmithSeries>& series) {
   const Real cx = 300, cy = 236, radius = 180;
-  auto px = [&](Complex g) { return text_of("%.2f,%.2f", cx + radius * g.real(), cy - radius * g.imag()); };
+  auto px = [&](Complex g) { return formatted("%.2f,%.2f", cx + radius * g.real(), cy - radius * g.imag()); };
   std::string svg = header(title);
-  svg += text_of("<defs><clipPath id=\"disc\"><circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\"/></clipPath></defs>\n", cx, cy, radius);
+  svg += formatted("<defs><clipPath id=\"disc\"><circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\"/></clipPath></defs>\n", cx, cy, radius);
   // Constant resistance r: circle centre (r/(1+r), 0), radius 1/(1+r).
   for (Real r : {0.2, 0.5, 1.0, 2.0, 5.0}) {
-    svg += text_of("<circle cx=\"%.2f\" cy=\"%.2f\" r=\"%.2f\" fill=\"none\" stroke=\"#cccccc\"/>\n",
+    svg += formatted("<circle cx=\"%.2f\" cy=\"%.2f\" r=\"%.2f\" fill=\"none\" stroke=\"#cccccc\"/>\n",
                    cx + radius * r / (1 + r), cy, radius / (1 + r));
-    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"10\" fill=\"#777777\">%g</text>\n",
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"10\" fill=\"#777777\">%g</text>\n",
                    cx + radius * (r - 1) / (r + 1) + 2, cy - 3, r * reference_ohm);
   }
   // Constant reactance x: circle centre (1, 1/x), radius 1/|x|, clipped to the unit disc.
   for (Real x : {0.2, 0.5, 1.0, 2.0, 5.0})
     for (Real sign : {1.0, -1.0}) {
-      svg += text_of("<circle clip-path=\"url(#disc)\" cx=\"%.2f\" cy=\"%.2f\" r=\"%.2f\" fill=\"none\" stroke=\"#cccccc\"/>\n",
+      svg += formatted("<circle clip-path=\"url(#disc)\" cx=\"%.2f\" cy=\"%.2f\" r=\"%.2f\" fill=\"none\" stroke=\"#cccccc\"/>\n",
                      cx + radius, cy - sign * radius / x, radius / x);
       const Complex z(0.0, sign * x), g = (z - 1.0) / (z + 1.0);
-      svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"10\" fill=\"#777777\" text-anchor=\"middle\">%+gj</text>\n",
+      svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"10\" fill=\"#777777\" text-anchor=\"middle\">%+gj</text>\n",
                      cx + 1.08 * radius * g.real(), cy - 1.08 * radius * g.imag() + 4, sign * x * reference_ohm);
     }
-  svg += text_of("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#cccccc\"/>\n", cx - radius, cy, cx + radius, cy);
-  svg += text_of("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", cx, cy, radius);
+  svg += formatted("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#cccccc\"/>\n", cx - radius, cy, cx + radius, cy);
+  svg += formatted("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", cx, cy, radius);
   // VSWR 2 circle: |Γ| = 1/3.
-  svg += text_of("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#888888\" stroke-dasharray=\"6 4\"/>\n", cx,
+  svg += formatted("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#888888\" stroke-dasharray=\"6 4\"/>\n", cx,
                  cy, radius / 3);
-  svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">VSWR 2</text>\n", cx + radius / 3 * 0.72,
+  svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">VSWR 2</text>\n", cx + radius / 3 * 0.72,
                  cy + radius / 3 * 0.72 + 12);
   for (std::size_t i = 0; i < series.size(); ++i) {
     const auto& s = series[i];
@@ -162,18 +158,18 @@ std::string smith_chart_svg(const std::string& title, Real reference_ohm, const 
     svg += "<polyline fill=\"none\" stroke-width=\"2\" stroke=\"" + s.colour + "\"" +
            (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + " points=\"" + points + "\"/>\n";
     const Complex a = s.reflection.front(), b = s.reflection.back();
-    svg += text_of("<circle cx=\"%.2f\" cy=\"%.2f\" r=\"4\" fill=\"", cx + radius * a.real(), cy - radius * a.imag()) +
+    svg += formatted("<circle cx=\"%.2f\" cy=\"%.2f\" r=\"4\" fill=\"", cx + radius * a.real(), cy - radius * a.imag()) +
            s.colour + "\"/>\n";
-    svg += text_of("<rect x=\"%.2f\" y=\"%.2f\" width=\"8\" height=\"8\" fill=\"", cx + radius * b.real() - 4,
+    svg += formatted("<rect x=\"%.2f\" y=\"%.2f\" width=\"8\" height=\"8\" fill=\"", cx + radius * b.real() - 4,
                    cy - radius * b.imag() - 4) + s.colour + "\"/>\n";
     const Real y = top + 30 + 20 * i;
-    svg += text_of("<line x1=\"520\" y1=\"%.1f\" x2=\"548\" y2=\"%.1f\" stroke-width=\"2\" stroke=\"", y, y) + s.colour + "\"" +
+    svg += formatted("<line x1=\"520\" y1=\"%.1f\" x2=\"548\" y2=\"%.1f\" stroke-width=\"2\" stroke=\"", y, y) + s.colour + "\"" +
            (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + "/>\n";
-    svg += text_of("<text x=\"554\" y=\"%.1f\">", y + 4) + escaped(s.label) + "</text>\n";
+    svg += formatted("<text x=\"554\" y=\"%.1f\">", y + 4) + escaped(s.label) + "</text>\n";
   }
-  svg += text_of("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">circle: first frequency, square: last</text>\n",
+  svg += formatted("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">circle: first frequency, square: last</text>\n",
                  top + 30 + 20 * series.size() + 6);
-  svg += text_of("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">labels in ohm (reference %g ohm)</text>\n",
+  svg += formatted("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">labels in ohm (reference %g ohm)</text>\n",
                  top + 30 + 20 * series.size() + 22, reference_ohm);
   return svg + "</svg>\n";
 }
@@ -183,33 +179,33 @@ std::string polar_chart_svg(const std::string& title, Real floor_db, Real ceilin
   auto scaled = [&](Real db) { return radius * std::clamp((db - floor_db) / (ceiling_db - floor_db), 0.0, 1.0); };
   std::string svg = header(title);
   for (Real ring : ticks(floor_db, ceiling_db)) {
-    svg += text_of("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#dddddd\"/>\n", cx, cy, scaled(ring));
-    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"10\" fill=\"#777777\">%g dBi</text>\n", cx + 3,
+    svg += formatted("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#dddddd\"/>\n", cx, cy, scaled(ring));
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"10\" fill=\"#777777\">%g dBi</text>\n", cx + 3,
                    cy - scaled(ring) + 11, ring);
   }
   for (int a = 0; a < 360; a += 30) {
     const Real r = a * pi / 180;
-    svg += text_of("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#dddddd\"/>\n", cx, cy,
+    svg += formatted("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#dddddd\"/>\n", cx, cy,
                    cx + radius * std::sin(r), cy - radius * std::cos(r));
-    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" text-anchor=\"middle\">%d&#176;</text>\n",
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" text-anchor=\"middle\">%d&#176;</text>\n",
                    cx + (radius + 16) * std::sin(r), cy - (radius + 16) * std::cos(r) + 4, a <= 180 ? a : a - 360);
   }
-  svg += text_of("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", cx, cy, radius);
+  svg += formatted("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", cx, cy, radius);
   for (std::size_t i = 0; i < series.size(); ++i) {
     const auto& s = series[i];
     std::string points;
     for (std::size_t k = 0; k < s.angle_deg.size(); ++k) {
       const Real r = s.angle_deg[k] * pi / 180, d = scaled(s.value_db[k]);
-      points += text_of("%.2f,%.2f ", cx + d * std::sin(r), cy - d * std::cos(r));
+      points += formatted("%.2f,%.2f ", cx + d * std::sin(r), cy - d * std::cos(r));
     }
     svg += "<polyline fill=\"none\" stroke-width=\"2\" stroke=\"" + s.colour + "\"" +
            (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + " points=\"" + points + "\"/>\n";
     const Real y = top + 30 + 20 * i;
-    svg += text_of("<line x1=\"520\" y1=\"%.1f\" x2=\"548\" y2=\"%.1f\" stroke-width=\"2\" stroke=\"", y, y) + s.colour +
+    svg += formatted("<line x1=\"520\" y1=\"%.1f\" x2=\"548\" y2=\"%.1f\" stroke-width=\"2\" stroke=\"", y, y) + s.colour +
            "\"" + (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + "/>\n";
-    svg += text_of("<text x=\"554\" y=\"%.1f\">", y + 4) + escaped(s.label) + "</text>\n";
+    svg += formatted("<text x=\"554\" y=\"%.1f\">", y + 4) + escaped(s.label) + "</text>\n";
   }
-  svg += text_of("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">0&#176; is +z (zenith)</text>\n",
+  svg += formatted("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">0&#176; is +z (zenith)</text>\n",
                  top + 30 + 20 * series.size() + 6);
   return svg + "</svg>\n";
 }
@@ -225,7 +221,7 @@ std::string scale_colour(Real t) {
   const Real w = u - i;
   int rgb[3];
   for (int k = 0; k < 3; ++k) rgb[k] = static_cast<int>(std::lround((1 - w) * anchors[i][k] + w * anchors[i + 1][k]));
-  return text_of("#%02x%02x%02x", rgb[0], rgb[1], rgb[2]);
+  return formatted("#%02x%02x%02x", rgb[0], rgb[1], rgb[2]);
 }
 
 /// Every k-th label, k chosen so that labels on cells `cell` px wide stand `spacing` px apart.
@@ -255,7 +251,7 @@ std::string heat_map_svg(const HeatMap& map) {
   const Real cell_h = (map_bottom - map_top) / std::max<std::size_t>(rows, 1);
   std::string svg = header(map.title);
   if (!map.note.empty())
-    svg += text_of("<text x=\"%.0f\" y=\"44\" text-anchor=\"middle\" font-size=\"11\" fill=\"#555555\">", width / 2) +
+    svg += formatted("<text x=\"%.0f\" y=\"44\" text-anchor=\"middle\" font-size=\"11\" fill=\"#555555\">", width / 2) +
            escaped(map.note) + "</text>\n";
   // The best cell: found on the values, not on the clipped colours.
   std::size_t best_row = rows, best_column = 0;
@@ -272,51 +268,51 @@ std::string heat_map_svg(const HeatMap& map) {
       const Real v = map.values[r][c], x = map_left + c * cell_w, y = map_bottom - (r + 1) * cell_h;
       const bool known = std::isfinite(v);
       const Real t = known ? goodness(v) : 0.0;
-      svg += text_of("<rect x=\"%.2f\" y=\"%.2f\" width=\"%.2f\" height=\"%.2f\" shape-rendering=\"crispEdges\" fill=\"", x,
+      svg += formatted("<rect x=\"%.2f\" y=\"%.2f\" width=\"%.2f\" height=\"%.2f\" shape-rendering=\"crispEdges\" fill=\"", x,
                      y, cell_w, cell_h) +
              (known ? scale_colour(t) : std::string("#e6e6e6")) + "\"><title>" + escaped(map.x_ticks[c]) + ", " +
-             escaped(map.y_ticks[r]) + ": " + (known ? text_of("%.4g", v) : std::string("no case")) + "</title></rect>\n";
+             escaped(map.y_ticks[r]) + ": " + (known ? formatted("%.4g", v) : std::string("no case")) + "</title></rect>\n";
       if (known && numbers_fit)
-        svg += text_of("<text x=\"%.2f\" y=\"%.2f\" text-anchor=\"middle\" font-size=\"11\" fill=\"%s\">%.3g</text>\n",
+        svg += formatted("<text x=\"%.2f\" y=\"%.2f\" text-anchor=\"middle\" font-size=\"11\" fill=\"%s\">%.3g</text>\n",
                        x + cell_w / 2, y + cell_h / 2 + 4, t > 0.55 ? "#000000" : "#ffffff", v);
     }
   if (best_row < rows)
-    svg += text_of("<rect x=\"%.2f\" y=\"%.2f\" width=\"%.2f\" height=\"%.2f\" fill=\"none\" stroke=\"#000000\" "
+    svg += formatted("<rect x=\"%.2f\" y=\"%.2f\" width=\"%.2f\" height=\"%.2f\" fill=\"none\" stroke=\"#000000\" "
                    "stroke-width=\"3\"/>\n",
                    map_left + best_column * cell_w + 1.5, map_bottom - (best_row + 1) * cell_h + 1.5, cell_w - 3, cell_h - 3);
-  svg += text_of("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", map_left,
+  svg += formatted("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", map_left,
                  map_top, map_right - map_left, map_bottom - map_top);
   const std::size_t x_stride = label_stride(cell_w, 64), y_stride = label_stride(cell_h, 16);
   for (std::size_t c = 0; c < columns; c += x_stride)
-    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">", map_left + (c + 0.5) * cell_w, map_bottom + 18) +
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">", map_left + (c + 0.5) * cell_w, map_bottom + 18) +
            escaped(map.x_ticks[c]) + "</text>\n";
   for (std::size_t r = 0; r < rows; r += y_stride)
-    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"end\">", map_left - 6, map_bottom - (r + 0.5) * cell_h + 4) +
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"end\">", map_left - 6, map_bottom - (r + 0.5) * cell_h + 4) +
            escaped(map.y_ticks[r]) + "</text>\n";
-  svg += text_of("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">", 0.5 * (map_left + map_right), height - 30) +
+  svg += formatted("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">", 0.5 * (map_left + map_right), height - 30) +
          escaped(map.x_label) + "</text>\n";
-  svg += text_of("<text transform=\"translate(18 %.1f) rotate(-90)\" text-anchor=\"middle\">", 0.5 * (map_top + map_bottom)) +
+  svg += formatted("<text transform=\"translate(18 %.1f) rotate(-90)\" text-anchor=\"middle\">", 0.5 * (map_top + map_bottom)) +
          escaped(map.y_label) + "</text>\n";
-  svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">outlined: the best case</text>\n", map_left,
+  svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">outlined: the best case</text>\n", map_left,
                  height - 10);
   // Colour bar: best at the top.
   const Real bar_x = map_right + 24, bar_steps = 48, bar_h = map_bottom - map_top;
   for (int k = 0; k < bar_steps; ++k)
-    svg += text_of("<rect x=\"%.1f\" y=\"%.2f\" width=\"%.1f\" height=\"%.2f\" fill=\"", bar_x, map_top + k * bar_h / bar_steps,
+    svg += formatted("<rect x=\"%.1f\" y=\"%.2f\" width=\"%.1f\" height=\"%.2f\" fill=\"", bar_x, map_top + k * bar_h / bar_steps,
                    bar_width, bar_h / bar_steps + 0.5) + scale_colour(1 - (k + 0.5) / bar_steps) + "\"/>\n";
-  svg += text_of("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", bar_x,
+  svg += formatted("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", bar_x,
                  map_top, bar_width, bar_h);
   auto bar_label = [&](Real value, const char* prefix) {
     const Real y = map_top + (1 - goodness(value)) * bar_h;
-    svg += text_of("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#333333\"/>\n", bar_x + bar_width, y,
+    svg += formatted("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke=\"#333333\"/>\n", bar_x + bar_width, y,
                    bar_x + bar_width + 4, y);
-    svg += text_of("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\">%s%g</text>\n", bar_x + bar_width + 6, y + 4, prefix, value);
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\">%s%g</text>\n", bar_x + bar_width + 6, y + 4, prefix, value);
   };
   // A clipped scale labels its worse end "at least" (or "at most") the limit.
   if (clipped) bar_label(worst, map.larger_is_better ? "&#8804; " : "&#8805; ");
   for (Real tick : ticks(std::min(best, worst), std::max(best, worst), 10))
     if (!clipped || std::abs(goodness(tick)) * bar_h > 14) bar_label(tick, "");
-  svg += text_of("<text transform=\"translate(%.1f %.1f) rotate(-90)\" text-anchor=\"middle\" font-size=\"11\">", bar_x - 6,
+  svg += formatted("<text transform=\"translate(%.1f %.1f) rotate(-90)\" text-anchor=\"middle\" font-size=\"11\">", bar_x - 6,
                  map_top + bar_h / 2) + escaped(map.value_label) + " (best at top)</text>\n";
   return svg + "</svg>\n";
 }

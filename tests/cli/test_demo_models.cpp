@@ -298,6 +298,32 @@ TEST(DemoModels, ReflectedPowerFollowsTheReflection) {
   EXPECT_EQ(run_lobe("run '" + model + "' -o '" + (dir / "x").string() + "' --tx-power -1", dir).exit_code, 2);
 }
 
+// The exposure estimate at 4 W, by hand from the pattern table: in the band srd (863 to
+// 870 MHz; computed at 865 and 870 MHz) EIRP = 4 W x peak gain, the ICNIRP 2020 limit is
+// f/200 W/m^2 (f in MHz), and the distance is sqrt(EIRP / (4 pi limit)), largest of the two.
+TEST(DemoModels, ExposureDistanceFollowsThePeakGain) {
+  const auto dir = fresh_directory("exposure");
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
+  const ProcessResult r = run_lobe("run '" + model + "' -o '" + (dir / "out").string() + "' --tx-power 4", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  std::map<double, double> peak;
+  for (const Row& row : read_csv(dir / "out" / "half_wave_dipole_ism_pattern.csv")) {
+    const double f = number(row, "frequency_hz");
+    if (f >= 863e6 && f <= 870e6) peak[f] = std::max(peak.count(f) ? peak[f] : -1e9, number(row, "gain_dbi"));
+  }
+  ASSERT_EQ(peak.size(), 2u);
+  double distance = 0.0;
+  for (const auto& [f, gain_dbi] : peak)
+    distance = std::max(distance, std::sqrt(4 * std::pow(10.0, gain_dbi / 10) / (4 * pi * (f / 1e6 / 200))));
+  const auto line = r.out.find("ICNIRP 2020    limit");
+  ASSERT_NE(line, std::string::npos) << r.out;
+  const auto beyond = r.out.find("under it beyond ", line);
+  EXPECT_NEAR(std::stod(r.out.substr(beyond + 16)), distance, 0.006) << r.out;
+  EXPECT_NE(r.out.find("an estimate, not a compliance assessment"), std::string::npos);
+  EXPECT_NE(r.out.find("47 CFR 1.1310  limit"), std::string::npos);
+  EXPECT_NE(r.out.find("local regulations and licensed practice decide"), std::string::npos);
+}
+
 // plot writes its six figures as well-formed SVG with the model's band shaded and the
 // measured curve overlaid.
 TEST(DemoModels, PlotWritesWellFormedFigures) {
