@@ -1,10 +1,8 @@
-#include <unistd.h>
-
-#include <chrono>
 #include <cstdio>
 #include <filesystem>
 
 #include "cli/commands.hpp"
+#include "cli/progress_line.hpp"
 #include "cli/model_loading.hpp"
 #include "geometry/model_parser.hpp"
 #include "post/csv_writer.hpp"
@@ -61,18 +59,13 @@ int run_command(const RunOptions& options) {
   std::printf("\n");
 
   RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), options.command_line, options.tx_power_w}};
-  const bool terminal = isatty(fileno(stderr));
-  const auto start = std::chrono::steady_clock::now();
-  for (std::size_t i = 0; i < model.frequencies_hz.size(); ++i) {
-    const Real f = model.frequencies_hz[i];
-    run.results.push_back(evaluate_frequency(problem, solve_frequency(problem, f)));
-    const double elapsed = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
-    if (model.frequencies_hz.size() > 1)
-      std::fprintf(stderr, "%ssolved %zu/%zu (%.6g MHz), %.1f s elapsed, about %.0f s left%s",
-                   terminal ? "\r" : "", i + 1, model.frequencies_hz.size(), f / 1e6, elapsed,
-                   elapsed / (i + 1) * (model.frequencies_hz.size() - i - 1), terminal ? "   " : "\n");
+  {
+    ProgressLine progress("frequency", model.frequencies_hz.size());
+    for (std::size_t i = 0; i < model.frequencies_hz.size(); ++i) {
+      run.results.push_back(evaluate_frequency(problem, solve_frequency(problem, model.frequencies_hz[i])));
+      progress.update(i + 1, i + 1, frequency_text(model.frequencies_hz[i]));
+    }
   }
-  if (terminal && model.frequencies_hz.size() > 1) std::fprintf(stderr, "\n");
 
   OutputFiles files(directory);
   write_hdf5(files.staging_path(stem + ".h5"), run);

@@ -1,8 +1,8 @@
-#include <chrono>
 #include <cstdio>
 #include <filesystem>
 
 #include "cli/commands.hpp"
+#include "cli/progress_line.hpp"
 #include "core/constants.hpp"
 #include "post/hdf5_writer.hpp"
 #include "post/output_files.hpp"
@@ -25,12 +25,12 @@ int run_scattering(const RunOptions& options, const Model& model) {
               count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
               count_text(thread_count(), "thread").c_str());
   ScatteringRun run{problem, {}, {LOBE_VERSION, thread_count(), options.command_line, std::nullopt}};
-  const auto start = std::chrono::steady_clock::now();
-  for (std::size_t i = 0; i < model.frequencies_hz.size(); ++i) {
-    run.results.push_back(evaluate_scattering(problem, solve_scattering(problem, model.frequencies_hz[i])));
-    const double elapsed = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
-    if (model.frequencies_hz.size() > 1)
-      std::fprintf(stderr, "solved %zu/%zu, %.1f s elapsed\n", i + 1, model.frequencies_hz.size(), elapsed);
+  {
+    ProgressLine progress("frequency", model.frequencies_hz.size());
+    for (std::size_t i = 0; i < model.frequencies_hz.size(); ++i) {
+      run.results.push_back(evaluate_scattering(problem, solve_scattering(problem, model.frequencies_hz[i])));
+      progress.update(i + 1, i + 1, frequency_text(model.frequencies_hz[i]));
+    }
   }
   OutputFiles files(directory);
   write_scattering_hdf5(files.staging_path(stem + ".h5"), run);

@@ -1,7 +1,4 @@
-#include <unistd.h>
-
 #include <atomic>
-#include <chrono>
 #include <csignal>
 #include <cstdio>
 #include <filesystem>
@@ -9,6 +6,7 @@
 #include <sstream>
 
 #include "cli/commands.hpp"
+#include "cli/progress_line.hpp"
 #include "cli/model_loading.hpp"
 #include "geometry/model_parser.hpp"
 #include "post/band_report.hpp"
@@ -116,10 +114,9 @@ int sweep_command(const SweepOptions& options) {
 
   std::signal(SIGINT, on_interrupt);
   std::signal(SIGTERM, on_interrupt);
-  const bool terminal = isatty(fileno(stderr));
   std::vector<std::filesystem::path> case_files;
   std::size_t skipped = 0, solved = 0;
-  const auto start = std::chrono::steady_clock::now();
+  std::optional<ProgressLine> progress(std::in_place, "case", cases.size());
   for (std::size_t c = 0; c < cases.size(); ++c) {
     case_files.push_back(case_directory / (case_name(c) + ".h5"));
     if (std::filesystem::exists(case_files.back())) {
@@ -140,12 +137,9 @@ int sweep_command(const SweepOptions& options) {
     write_hdf5(files.staging_path(case_name(c) + ".h5"), run);
     files.commit();
     ++solved;
-    const double elapsed = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
-    std::fprintf(stderr, "%scase %zu/%zu done (%zu solved now, %zu from before), %.1f s elapsed, about %.0f s left%s",
-                 terminal ? "\r" : "", c + 1, cases.size(), solved, skipped, elapsed,
-                 elapsed / solved * static_cast<double>(cases.size() - c - 1), terminal ? "   " : "\n");
+    progress->update(c + 1, solved);
   }
-  if (terminal) std::fprintf(stderr, "\n");
+  progress.reset();
   if (interrupted) {
     std::fprintf(stderr, "interrupted: %zu of %zu cases are saved in %s; run the same command again to go on\n",
                  solved + skipped, cases.size(), case_directory.string().c_str());
