@@ -59,6 +59,10 @@ int plot_sweep(const PlotOptions& options) {
   const std::filesystem::path path(options.result_path);
   const SweepTable table = read_sweep_table(path);
   const std::string figure = options.figure.empty() ? "worst-vswr" : options.figure;
+  if (!options.measured_path.empty())
+    throw InputError({"--measured", 1, 1}, "a measured curve is laid over a single result; re-run the chosen case with "
+                                           "`lobe run --set ...` and plot that");
+  if (options.band_options.size() > 1) throw InputError({"--band", 2, 1}, "a sweep map takes one band");
   if (options.axes.size() > 2) throw InputError({"--axes", 1, 1}, "--axes takes one or two varied names");
   const std::size_t x = options.axes.empty() ? 0 : name_index(table, options.axes[0]);
   // y is `none` for a map over one name (a single row).

@@ -158,6 +158,7 @@ TEST(Sweep, PlotMapsTheBandFigureOfEveryCase) {
   EXPECT_EQ(run_lobe("plot '" + sweep.string() + "' --axes nosuch", dir).exit_code, 2);
   EXPECT_EQ(run_lobe("plot '" + sweep.string() + "' --axes rod,rod", dir).exit_code, 2);
   EXPECT_EQ(run_lobe("plot '" + sweep.string() + "' --band 1GHz:2GHz", dir).exit_code, 2);
+  EXPECT_EQ(run_lobe("plot '" + sweep.string() + "' --measured '" + models + "ground_plane_433_measured.csv'", dir).exit_code, 2);
   EXPECT_EQ(run_lobe("plot '" + (dir / "s.h5.cases" / "case-000001.h5").string() + "' --figure mean-vswr", dir).exit_code, 2);
 }
 
