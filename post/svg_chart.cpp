@@ -108,6 +108,10 @@ std::string line_chart_svg(const LineChart& chart) {
     svg += "<polyline clip-path=\"url(#plot)\" fill=\"none\" stroke-width=\"2\" stroke=\"" + s.colour + "\"" +
            (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + " points=\"" + points + "\"/>\n";
   }
+  // The legend sits on a white card so guides and curves beneath it do not cross its text.
+  if (!chart.series.empty())
+    svg += formatted("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"white\" fill-opacity=\"0.9\"/>\n",
+                     left + pw - 196, top + 6, 192.0, 18.0 * chart.series.size() + 6);
   for (std::size_t i = 0; i < chart.series.size(); ++i) {
     const auto& s = chart.series[i];
     const Real y = top + 18 + 18 * i, x = left + pw - 190;
