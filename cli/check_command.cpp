@@ -9,15 +9,15 @@
 
 namespace lobe::cli {
 
-void print_warnings(const WireMesh& mesh) {
-  for (const auto& w : mesh.warnings)
-    std::fprintf(stderr, "%s:%d:%d: warning: %s\n", w.where.file.c_str(), w.where.line, w.where.column, w.message.c_str());
+void print_warnings(const std::vector<MeshWarning>& warnings) {
+  for (const auto& w : warnings) std::fprintf(stderr, "%s\n", w.formatted().c_str());
 }
 
 int check_command(const std::string& model_path, const std::vector<std::string>& set_options) {
   const Model model = load_model(model_path, set_options);
   if (model.wave) {
     const ScatteringProblem problem(model);
+    print_warnings(problem.surfaces.warnings);
     std::printf("%s: %s, %s, %s (RWG edges), smallest triangle angle %.1f deg\n", model_path.c_str(),
                 count_text(model.surfaces.size(), "plate or body", "plates and bodies").c_str(),
                 count_text(problem.surfaces.mesh.triangles.size(), "triangle").c_str(),
@@ -27,7 +27,8 @@ int check_command(const std::string& model_path, const std::vector<std::string>&
     return 0;
   }
   const AntennaProblem problem(model);
-  print_warnings(problem.mesh);
+  print_warnings(problem.mesh.warnings);
+  print_warnings(problem.surfaces.warnings);
   std::printf("%s: %s, %s, %s, %s, %s, %s, %s\n", model_path.c_str(), count_text(model.wires.size(), "wire").c_str(),
               count_text(problem.mesh.segments.size(), "segment").c_str(),
               count_text(problem.mesh.nodes.size(), "node").c_str(),
@@ -45,7 +46,7 @@ int check_command(const std::string& model_path, const std::vector<std::string>&
               static_cast<double>(dense_matrix_bytes(static_cast<std::uint64_t>(problem.unknowns()))) / (1 << 20));
   std::printf("%s from %s to %s; ground %s; %s\n", count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
               frequency_text(model.frequencies_hz.front()).c_str(), frequency_text(model.highest_frequency()).c_str(),
-              model.ground_perfect ? "perfect" : "none", count_text(problem.mesh.warnings.size(), "warning").c_str());
+              model.ground_perfect ? "perfect" : "none", count_text(problem.mesh.warnings.size() + problem.surfaces.warnings.size(), "warning").c_str());
   return 0;
 }
 

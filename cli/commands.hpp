@@ -36,7 +36,7 @@ int run_scattering(const RunOptions& options, const Model& model);
 int mesh_command(const std::string& model_path, const std::string& output, const std::vector<std::string>& set_options);
 
 /// Prints the mesher's warnings as FILE:LINE:COL: warning: ... on standard error.
-void print_warnings(const WireMesh& mesh);
+void print_warnings(const std::vector<MeshWarning>& warnings);
 
 struct ExportOptions {
   std::string result_path;

@@ -18,10 +18,13 @@ int mesh_command(const std::string& model_path, const std::string& output, const
   OutputFiles files(directory);
   const auto staging = files.staging_path(target.filename().string());
   if (model.wave) {
-    write_model_vtu(staging, WireMesh{}, mesh_model_surfaces(model));
+    const SurfaceMeshReport surfaces = mesh_model_surfaces(model);
+    print_warnings(surfaces.warnings);
+    write_model_vtu(staging, WireMesh{}, surfaces);
   } else {
     const AntennaProblem problem(model);
-    print_warnings(problem.mesh);
+    print_warnings(problem.mesh.warnings);
+    print_warnings(problem.surfaces.warnings);
     write_model_vtu(staging, problem.mesh, problem.surfaces);
   }
   for (const auto& path : files.commit()) std::printf("%s\n", path.string().c_str());

@@ -18,6 +18,7 @@ int run_scattering(const RunOptions& options, const Model& model) {
   const std::filesystem::path directory = output_directory(options);
   check_output_directory(directory);
   const ScatteringProblem problem(model);
+  print_warnings(problem.surfaces.warnings);
   std::printf("lobe %s: %s\n", LOBE_VERSION, options.model_path.c_str());
   std::printf("configuration: %s, %s, smallest triangle angle %.1f deg, %s, %s\n\n",
               count_text(problem.surfaces.mesh.triangles.size(), "triangle").c_str(),

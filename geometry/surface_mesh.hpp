@@ -16,6 +16,10 @@ struct SurfaceMesh {
   Real area(int triangle) const {
     return 0.5 * (corner(triangle, 1) - corner(triangle, 0)).cross(corner(triangle, 2) - corner(triangle, 0)).norm();
   }
+  /// Unit normal by the right-hand rule over the corners' order.
+  Vec3 normal(int triangle) const {
+    return (corner(triangle, 1) - corner(triangle, 0)).cross(corner(triangle, 2) - corner(triangle, 0)).normalized();
+  }
   Vec3 centroid(int triangle) const {
     return (corner(triangle, 0) + corner(triangle, 1) + corner(triangle, 2)) / 3.0;
   }

@@ -11,6 +11,8 @@
 #include <string>
 
 #include "core/constants.hpp"
+#include "core/formatted_text.hpp"
+#include "geometry/surface_contact.hpp"
 
 namespace lobe {
 namespace {
@@ -39,13 +41,6 @@ class GmshSession {
  private:
   int m_threads = 1;
 };
-
-/// In-plane unit vector nearest +x (nearest +y when the normal is along x).
-Vec3 in_plane_direction(const Vec3& normal) {
-  Vec3 u = Vec3::UnitX() - Vec3::UnitX().dot(normal) * normal;
-  if (u.norm() < 1e-9) u = Vec3::UnitY() - Vec3::UnitY().dot(normal) * normal;
-  return u.normalized();
-}
 
 /// Refuses outlines whose edges cross or touch anywhere but at shared corners (a bow tie),
 /// and repeated corners: the mesher would make something other than what was meant.
@@ -377,7 +372,21 @@ Real outline_area(const SurfaceShape& s) {
 }  // namespace
 
 SurfaceMeshReport mesh_model_surfaces(const Model& model, const MeshConstraints& constraints) {
-  return mesh_surfaces(sized_shapes(model), constraints);
+  const std::vector<SurfaceShape> shapes = sized_shapes(model);
+  SurfaceMeshReport report = mesh_surfaces(shapes, constraints);
+  // Flat facets stand in for a curved surface: at the default tenth of a wavelength a
+  // sphere's RCS came out 0.5 dB low at ka = 2, at a twentieth within 0.15 dB of the Mie
+  // series (tests/reference/test_sphere_scattering.cpp).
+  const Real wavelength = speed_of_light / model.highest_frequency();
+  for (const SurfaceShape& s : shapes)
+    if (s.kind == SurfaceKind::sphere && s.mesh_size > wavelength / coarse_curved_edges_per_wavelength)
+      report.warnings.push_back(
+          {s.where, formatted("sphere '%s' is meshed in triangles of about λ/%.3g at the highest frequency; a curved "
+                              "body needs about λ/%.0f for its flat facets to follow it (RCS within about 0.15 dB): "
+                              "add 'mesh %s size %.3g mm'",
+                              s.name.c_str(), wavelength / s.mesh_size, curved_edges_per_wavelength, s.name.c_str(),
+                              wavelength / curved_edges_per_wavelength * 1e3)});
+  return report;
 }
 
 double estimated_surface_functions(const Model& model) {

@@ -2,6 +2,7 @@
 /// Triangle meshes of plates and bodies, made by Gmsh (OpenCASCADE kernel).
 #include <vector>
 
+#include "geometry/mesh_warning.hpp"
 #include "geometry/model.hpp"
 #include "geometry/surface_mesh.hpp"
 #include "geometry/surface_shape.hpp"
@@ -29,6 +30,7 @@ struct SurfaceMeshReport {
   std::vector<int> point_vertex;
   /// Per constraint line: the mesh edges (vertex pairs) laid along it on surfaces.
   std::vector<std::vector<std::array<int, 2>>> line_edges;
+  std::vector<MeshWarning> warnings;  ///< from mesh_model_surfaces: meshes too coarse for their shape
 };
 
 /// Meshes every shape with triangles of about its mesh size. Shapes that touch or overlap
@@ -45,9 +47,14 @@ namespace lobe {
 
 /// Default mesh: about ten triangle edges per wavelength (common practice for RWG).
 constexpr Real default_edges_per_wavelength = 10.0;
+/// What a curved body needs for its facets to follow it (about 0.15 dB in a sphere's RCS).
+constexpr Real curved_edges_per_wavelength = 20.0;
+/// Coarser than this a curved body earns a warning: "about λ/20", with a quarter's grace.
+constexpr Real coarse_curved_edges_per_wavelength = 16.0;
 
 /// Meshes the model's plates and bodies; shapes without a `mesh` size get a tenth of the
-/// wavelength at the model's highest frequency.
+/// wavelength at the model's highest frequency. Warns where a curved body's triangles are
+/// longer than a twentieth of that wavelength.
 SurfaceMeshReport mesh_model_surfaces(const Model& model, const MeshConstraints& constraints = {});
 
 /// The RWG functions the model's surfaces will have, estimated from their areas and mesh

@@ -3,9 +3,12 @@
 #include <algorithm>
 #include <cmath>
 #include <numeric>
+#include <set>
 #include <sstream>
 
 #include "core/constants.hpp"
+#include "geometry/spatial_grid.hpp"
+#include "geometry/surface_contact.hpp"
 #include "geometry/wire_path.hpp"
 
 namespace lobe {
@@ -20,8 +23,6 @@ constexpr Real thin_wire_ratio = 8.0;
 /// Above this fraction of a wavelength a segment cannot follow the current well.
 constexpr Real longest_segment_wavelengths = 0.1;
 constexpr std::size_t max_total_segments = 200000;
-/// Relative to a segment's length, how close to z = 0 an end must be to touch the ground.
-constexpr Real ground_tolerance = 1e-6;
 
 std::string format(Real v) {
   std::ostringstream s;
@@ -34,58 +35,16 @@ struct Positions {
   std::vector<Real> fractions;  ///< node fractions along the wire, 0 ... 1
 };
 
-/// Node fractions of one wire. Required fractions (ports, loads) become nodes: with an
-/// automatic count they are breakpoints; with `segments N` the nearest node is used when
-/// it is within a thousandth of a segment, otherwise the segment is split there.
-std::vector<Real> node_fractions(const Wire& wire, const WirePath& path, std::vector<Real> required,
-                                 Real target_length) {
-  std::vector<Real> breaks = path.corner_fractions();
-  const Real length = path.length();
-  std::vector<Real> nodes;
-  auto subdivide = [&](const std::vector<Real>& marks, const std::vector<int>& counts) {
-    nodes.clear();
-    for (std::size_t i = 0; i + 1 < marks.size(); ++i)
-      for (int k = 0; k < counts[i]; ++k) nodes.push_back(marks[i] + (marks[i + 1] - marks[i]) * k / counts[i]);
-    nodes.push_back(1.0);
-  };
-  const Real min_curve_segments = std::ceil(path.turning_angle() / max_turn_per_segment - 1e-9);
-  if (wire.segments == 0) {
-    breaks.insert(breaks.end(), required.begin(), required.end());
-    std::sort(breaks.begin(), breaks.end());
-    breaks.erase(std::unique(breaks.begin(), breaks.end(), [](Real a, Real b) { return b - a < 1e-9; }),
-                 breaks.end());
-    breaks.back() = 1.0;
-    std::vector<int> counts;
-    Real total = 0.0;
-    for (std::size_t i = 0; i + 1 < breaks.size(); ++i) {
-      const Real share = breaks[i + 1] - breaks[i];
-      const Real by_length = std::ceil(share * length / target_length - 1e-9);
-      const Real by_turning = std::ceil(share * min_curve_segments - 1e-9);
-      const Real count = std::max({1.0, by_length, by_turning});
-      total += count;
-      if (total > max_segments_per_wire)
-        throw InputError(wire.where, "wire '" + wire.name + "' is " + format(length / (default_segments_per_wavelength * target_length)) +
-                                         " wavelengths long at the highest frequency; it would need more than " +
-                                         std::to_string(max_segments_per_wire) + " segments");
-      counts.push_back(static_cast<int>(count));
-    }
-    subdivide(breaks, counts);
-    return nodes;
-  }
+/// `total` segments shared out over the pieces between `breaks` by length, at least one
+/// per piece (total ≥ pieces), largest remainders first.
+std::vector<int> share_by_length(const std::vector<Real>& breaks, int total) {
   const int pieces = static_cast<int>(breaks.size()) - 1;
-  if (wire.segments < pieces)
-    throw InputError(wire.where, "wire '" + wire.name + "' has " + std::to_string(pieces) +
-                                     " straight pieces but only " + std::to_string(wire.segments) +
-                                     " segments; it needs at least one per piece");
-  // Share the segments out by length, at least one per piece, largest remainders first.
   std::vector<int> counts(pieces, 1);
+  const int left = total - pieces;
   std::vector<Real> remainder(pieces);
-  int left = wire.segments - pieces;
-  Real spare_total = 0;
-  for (int i = 0; i < pieces; ++i) spare_total += breaks[i + 1] - breaks[i];
   int given = 0;
   for (int i = 0; i < pieces; ++i) {
-    const Real exact = left * (breaks[i + 1] - breaks[i]) / spare_total;
+    const Real exact = left * (breaks[i + 1] - breaks[i]);
     const int whole = static_cast<int>(std::floor(exact));
     counts[i] += whole;
     given += whole;
@@ -95,17 +54,68 @@ std::vector<Real> node_fractions(const Wire& wire, const WirePath& path, std::ve
   std::iota(order.begin(), order.end(), 0);
   std::stable_sort(order.begin(), order.end(), [&](int a, int b) { return remainder[a] > remainder[b]; });
   for (int i = 0; given < left; ++i, ++given) ++counts[order[i % pieces]];
-  subdivide(breaks, counts);
-  const Real snap = 1e-3 / wire.segments;
-  for (Real r : required) {
-    const auto nearest = std::min_element(nodes.begin(), nodes.end(),
-                                          [r](Real a, Real b) { return std::abs(a - r) < std::abs(b - r); });
-    if (std::abs(*nearest - r) <= snap) {
-      *nearest = r;
-    } else {
-      nodes.insert(std::upper_bound(nodes.begin(), nodes.end(), r), r);
+  return counts;
+}
+
+/// Node fractions of one wire. Corners and required fractions (ports, loads, points where
+/// another wire or a plate joins it) are breakpoints, so each of them is a node. With an
+/// automatic count each piece between breakpoints gets about `target_length` per segment;
+/// with `segments N` at least N segments are shared out over the pieces by length, adding
+/// up to one per required point where that makes them more nearly equal.
+std::vector<Real> node_fractions(const Wire& wire, const WirePath& path, std::vector<Real> required,
+                                 Real target_length) {
+  const std::vector<Real>& corners = path.corner_fractions();
+  const int corner_pieces = static_cast<int>(corners.size()) - 1;
+  if (wire.segments > 0 && wire.segments < corner_pieces)
+    throw InputError(wire.where, "wire '" + wire.name + "' has " + std::to_string(corner_pieces) +
+                                     " straight pieces but only " + std::to_string(wire.segments) +
+                                     " segments; it needs at least one per piece");
+  std::vector<Real> breaks = corners;
+  breaks.insert(breaks.end(), required.begin(), required.end());
+  std::sort(breaks.begin(), breaks.end());
+  breaks.erase(std::unique(breaks.begin(), breaks.end(), [](Real a, Real b) { return b - a < 1e-9; }), breaks.end());
+  breaks.back() = 1.0;
+  const int pieces = static_cast<int>(breaks.size()) - 1;
+  const Real length = path.length();
+  std::vector<int> counts(pieces, 1);
+  if (wire.segments == 0) {
+    const Real min_curve_segments = std::ceil(path.turning_angle() / max_turn_per_segment - 1e-9);
+    Real total = 0.0;
+    for (int i = 0; i < pieces; ++i) {
+      const Real share = breaks[i + 1] - breaks[i];
+      const Real by_length = std::ceil(share * length / target_length - 1e-9);
+      const Real by_turning = std::ceil(share * min_curve_segments - 1e-9);
+      const Real count = std::max({1.0, by_length, by_turning});
+      total += count;
+      if (total > max_segments_per_wire)
+        throw InputError(wire.where, "wire '" + wire.name + "' is " +
+                                         format(length / (default_segments_per_wavelength * target_length)) +
+                                         " wavelengths long at the highest frequency; it would need more than " +
+                                         std::to_string(max_segments_per_wire) + " segments");
+      counts[i] = static_cast<int>(count);
+    }
+  } else {
+    // The count closest to N (never fewer) whose segments come out most nearly equal:
+    // `segments 11` with a port at the middle gives 12 equal segments, not 5.5 + 5.5.
+    const int fewest = std::max(wire.segments, pieces);
+    Real best_spread = INFINITY;
+    for (int total = fewest; total <= fewest + static_cast<int>(required.size()); ++total) {
+      const std::vector<int> shared = share_by_length(breaks, total);
+      Real longest = 0.0, shortest = INFINITY;
+      for (int i = 0; i < pieces; ++i) {
+        longest = std::max(longest, (breaks[i + 1] - breaks[i]) / shared[i]);
+        shortest = std::min(shortest, (breaks[i + 1] - breaks[i]) / shared[i]);
+      }
+      if (longest / shortest < best_spread * (1 - 1e-9)) {
+        best_spread = longest / shortest;
+        counts = shared;
+      }
     }
   }
+  std::vector<Real> nodes;
+  for (int i = 0; i < pieces; ++i)
+    for (int k = 0; k < counts[i]; ++k) nodes.push_back(breaks[i] + (breaks[i + 1] - breaks[i]) * k / counts[i]);
+  nodes.push_back(1.0);
   return nodes;
 }
 
@@ -137,15 +147,37 @@ Real segment_distance(const Segment& a, const Segment& b) {
   return (a.start + s * d1 - (b.start + t * d2)).norm();
 }
 
+/// Parameter in [0, 1] of the point of segment a→b nearest p.
+Real nearest_parameter(const Vec3& p, const Vec3& a, const Vec3& b) {
+  return std::clamp((p - a).dot(b - a) / (b - a).squaredNorm(), 0.0, 1.0);
+}
+
+std::string point_text(const Vec3& p, Real unit) {
+  return "(" + format(p.x() / unit) + ", " + format(p.y() / unit) + ", " + format(p.z() / unit) + ")";
+}
+
 class Mesher {
  public:
-  explicit Mesher(const Model& model) : m_model(model) {}
+  explicit Mesher(const Model& model) : m_model(model), m_contact(model.surfaces) {
+    for (const Wire& w : model.wires) m_paths.emplace_back(w);
+  }
 
   WireMesh run() {
     const Real wavelength = speed_of_light / m_model.highest_frequency();
     const Real target = wavelength / default_segments_per_wavelength;
-    for (std::size_t w = 0; w < m_model.wires.size(); ++w) mesh_wire(static_cast<int>(w), target);
-    join_ends();
+    std::vector<std::vector<Real>> required(m_model.wires.size());
+    for (std::size_t w = 0; w < m_model.wires.size(); ++w) {
+      for (const auto& p : m_model.ports)
+        if (!p.line && p.position.wire == m_model.wires[w].name) required[w].push_back(p.position.fraction);
+      for (const auto& l : m_model.loads)
+        if (l.position.wire == m_model.wires[w].name) required[w].push_back(l.position.fraction);
+    }
+    mesh_all(required, target);
+    // Points where another wire's end or a plate meets a wire between its nodes become
+    // nodes too; then the wires are meshed again with them as breakpoints.
+    if (add_joining_points(required)) mesh_all(required, target);
+    check_surfaces();
+    join_nodes();
     check_ground();
     count_junctions();
     m_mesh.port_gaps.reserve(m_model.ports.size());
@@ -158,14 +190,16 @@ class Mesher {
   }
 
  private:
-  void mesh_wire(int index, Real target) {
+  void mesh_all(const std::vector<std::vector<Real>>& required, Real target) {
+    m_mesh.segments.clear();
+    m_first_segment.clear();
+    m_wire_fractions.clear();
+    for (std::size_t w = 0; w < m_model.wires.size(); ++w) mesh_wire(static_cast<int>(w), required[w], target);
+  }
+
+  void mesh_wire(int index, const std::vector<Real>& required, Real target) {
     const Wire& wire = m_model.wires[index];
-    const WirePath path(wire);
-    std::vector<Real> required;
-    for (const auto& p : m_model.ports)
-      if (!p.line && p.position.wire == wire.name) required.push_back(p.position.fraction);
-    for (const auto& l : m_model.loads)
-      if (l.position.wire == wire.name) required.push_back(l.position.fraction);
+    const WirePath& path = m_paths[index];
     const std::vector<Real> fractions = node_fractions(wire, path, required, target);
     if (m_mesh.segments.size() + fractions.size() > max_total_segments)
       throw InputError(wire.where, "the model would need more than " + std::to_string(max_total_segments) +
@@ -187,26 +221,145 @@ class Mesher {
     }
   }
 
-  /// Ends closer than the smaller of their radii are one node; consecutive segments of a
-  /// wire always share theirs.
-  void join_ends() {
+  int wire_end_segment(int wire, int end) const {
+    return end == 0 ? m_first_segment[wire] : m_first_segment[wire] + static_cast<int>(m_wire_fractions[wire].size()) - 2;
+  }
+
+  /// The fraction of wire `w` between its nodes k and k + 1 nearest p (golden-section search
+  /// on the path, so a curved wire's node lands on the curve, not on the chord).
+  Real nearest_fraction(int w, int k, const Vec3& p) const {
+    Real lo = m_wire_fractions[w][k], hi = m_wire_fractions[w][k + 1];
+    const Real ratio = 0.5 * (std::sqrt(5.0) - 1.0);
+    for (int i = 0; i < 80 && hi - lo > 1e-15; ++i) {
+      const Real a = hi - ratio * (hi - lo), b = lo + ratio * (hi - lo);
+      if ((m_paths[w].point(a) - p).norm() < (m_paths[w].point(b) - p).norm()) hi = b;
+      else lo = a;
+    }
+    return 0.5 * (lo + hi);
+  }
+
+  /// Adds to `required` (per wire) the fraction where a wire end lies on another wire
+  /// between its nodes, and where a wire passes through a plate between its nodes. Returns
+  /// true when it added any.
+  bool add_joining_points(std::vector<std::vector<Real>>& required) {
+    const auto& segs = m_mesh.segments;
+    Real reach = 0.0;
+    for (const auto& s : segs) reach = std::max(reach, 0.5 * s.length() + s.radius);
+    SpatialGrid grid(reach);
+    for (std::size_t i = 0; i < segs.size(); ++i) grid.insert(segs[i].midpoint(), static_cast<int>(i));
+    bool added = false;
+    auto add = [&](int w, Real fraction) {
+      for (Real r : required[w])
+        if (std::abs(r - fraction) < 1e-9) return;
+      required[w].push_back(fraction);
+      added = true;
+    };
+    for (std::size_t w = 0; w < m_model.wires.size(); ++w)
+      for (int end = 0; end < 2; ++end) {
+        const Segment& own = segs[wire_end_segment(static_cast<int>(w), end)];
+        const Vec3 p = end == 0 ? own.start : own.end;
+        grid.for_near(p, [&](int i) {
+          const Segment& s = segs[i];
+          const Real tolerance = std::min(own.radius, s.radius);
+          const Real t = nearest_parameter(p, s.start, s.end);
+          if ((s.start + t * (s.end - s.start) - p).norm() >= tolerance) return;
+          // Within a radius of either end it meets a node, which join_nodes handles.
+          if (t * s.length() < tolerance || (1 - t) * s.length() < tolerance) return;
+          const int k = i - m_first_segment[s.wire];
+          add(s.wire, nearest_fraction(s.wire, k, p));
+        });
+      }
+    for (std::size_t i = 0; i < segs.size(); ++i)
+      for (std::size_t plate = 0; plate < m_contact.size(); ++plate)
+        if (m_contact.is_plate(plate)) {
+          const Real fraction = plate_crossing(static_cast<int>(i), plate);
+          if (fraction >= 0.0) add(segs[i].wire, fraction);
+        }
+    return added;
+  }
+
+  /// The fraction where segment i passes through the plate between its ends, or −1 when
+  /// it does not. Refuses a wire that passes through the plate at its edge, where it
+  /// could be neither joined nor left unjoined with confidence.
+  Real plate_crossing(int i, std::size_t plate) const {
+    const Segment& s = m_mesh.segments[i];
+    const Real tolerance = touch_tolerance(s.length());
+    const Real ha = m_contact.height(plate, s.start), hb = m_contact.height(plate, s.end);
+    if (!((ha > tolerance && hb < -tolerance) || (ha < -tolerance && hb > tolerance))) return -1.0;
+    const int w = s.wire, k = i - m_first_segment[w];
+    // Bisection on the path's height above the plane: exact on the curve.
+    Real lo = m_wire_fractions[w][k], hi = m_wire_fractions[w][k + 1];
+    for (int step = 0; step < 80 && hi - lo > 1e-15; ++step) {
+      const Real mid = 0.5 * (lo + hi);
+      if ((m_contact.height(plate, m_paths[w].point(mid)) > 0) == (ha > 0)) lo = mid;
+      else hi = mid;
+    }
+    const Real fraction = 0.5 * (lo + hi);
+    const Vec3 at = m_paths[w].point(fraction);
+    Real edge = 0.0;
+    const bool on = m_contact.foot_on_plate(plate, at, &edge);
+    if (edge <= s.radius) {
+      const Wire& wire = m_model.wires[w];
+      throw InputError(wire.where, "wire '" + wire.name + "' passes through the edge of '" +
+                                       m_model.surfaces[plate].name + "' at " + point_text(at, m_model.length_unit) +
+                                       "; pass it through the plate at least a wire radius inside its edges and holes, "
+                                       "or clear of it");
+    }
+    return on ? fraction : -1.0;
+  }
+
+  /// Refuses wires that lie along a plate or enter a closed body: the thin-wire model has
+  /// no meaning there.
+  void check_surfaces() {
+    for (const Segment& s : m_mesh.segments) {
+      const Wire& wire = m_model.wires[s.wire];
+      const Real tolerance = touch_tolerance(s.length());
+      for (std::size_t k = 0; k < m_contact.size(); ++k) {
+        const std::string& name = m_model.surfaces[k].name;
+        if (m_contact.is_plate(k)) {
+          if (std::abs(m_contact.height(k, s.start)) <= tolerance && std::abs(m_contact.height(k, s.end)) <= tolerance &&
+              m_contact.foot_on_plate(k, s.midpoint(), nullptr))
+            throw InputError(wire.where, "wire '" + wire.name + "' lies on plate '" + name +
+                                             "'; a wire may end on a plate or pass through it, not run along it");
+          continue;
+        }
+        for (const Vec3& p : {s.start, s.midpoint(), s.end})
+          if (m_contact.inside_body(k, p, tolerance))
+            throw InputError(wire.where, "wire '" + wire.name + "' goes inside '" + name + "' at " +
+                                             point_text(p, m_model.length_unit) +
+                                             "; a wire may end on a body's surface but not enter it");
+      }
+    }
+  }
+
+  /// Segment ends closer than the smaller of their radii are one node; consecutive segments
+  /// of a wire always share theirs. Every node counts, a polyline's corners and a wire's
+  /// inner nodes included, but two inner nodes of one wire never join (a helix whose turns
+  /// touch overlaps itself; check_crossings refuses it).
+  void join_nodes() {
     const auto count = m_mesh.segments.size();
     Joiner joiner(2 * count);
-    std::vector<int> free_ends;
+    std::vector<int> wire_end(2 * count, 0);  // 1 where the end is a wire's start or end
+    Real largest_radius = 0.0;
     for (std::size_t w = 0; w < m_first_segment.size(); ++w) {
-      const int first = m_first_segment[w];
-      const int last = first + static_cast<int>(m_wire_fractions[w].size()) - 2;
+      const int first = wire_end_segment(static_cast<int>(w), 0), last = wire_end_segment(static_cast<int>(w), 1);
       for (int s = first; s < last; ++s) joiner.join(2 * s + 1, 2 * (s + 1));
-      free_ends.push_back(2 * first);
-      free_ends.push_back(2 * last + 1);
+      wire_end[2 * first] = wire_end[2 * last + 1] = 1;
     }
     auto end_point = [&](int e) { return e % 2 ? m_mesh.segments[e / 2].end : m_mesh.segments[e / 2].start; };
-    for (std::size_t i = 0; i < free_ends.size(); ++i)
-      for (std::size_t j = i + 1; j < free_ends.size(); ++j) {
-        const int a = free_ends[i], b = free_ends[j];
-        const Real tolerance = std::min(m_mesh.segments[a / 2].radius, m_mesh.segments[b / 2].radius);
-        if ((end_point(a) - end_point(b)).norm() < tolerance) joiner.join(a, b);
-      }
+    for (const auto& s : m_mesh.segments) largest_radius = std::max(largest_radius, s.radius);
+    SpatialGrid grid(largest_radius);
+    for (std::size_t e = 0; e < 2 * count; ++e) grid.insert(end_point(static_cast<int>(e)), static_cast<int>(e));
+    for (std::size_t e = 0; e < 2 * count; ++e) {
+      const int a = static_cast<int>(e);
+      grid.for_near(end_point(a), [&](int b) {
+        if (b <= a) return;
+        const Segment &sa = m_mesh.segments[a / 2], &sb = m_mesh.segments[b / 2];
+        if (sa.wire == sb.wire && !wire_end[a] && !wire_end[b]) return;
+        if ((end_point(a) - end_point(b)).norm() < std::min(sa.radius, sb.radius)) joiner.join(a, b);
+      });
+    }
+    m_mesh.nodes.clear();
     std::vector<int> node_of_root(2 * count, -1);
     for (std::size_t e = 0; e < 2 * count; ++e) {
       const int root = joiner.root(static_cast<int>(e));
@@ -222,15 +375,13 @@ class Mesher {
 
   void check_ground() {
     if (!m_model.ground_perfect) return;
-    // An end within a millionth of its segment's length of z = 0 touches the ground:
-    // rounding in the user's arithmetic, not a gap.
     for (auto& node : m_mesh.nodes) {
-      const Real tolerance = ground_tolerance * m_mesh.segments[node.ends.front().segment].length();
+      const Real tolerance = touch_tolerance(m_mesh.segments[node.ends.front().segment].length());
       if (std::abs(node.position.z()) < tolerance) node.on_ground = true;
     }
     for (const auto& s : m_mesh.segments) {
       const Wire& wire = m_model.wires[s.wire];
-      const Real tolerance = ground_tolerance * s.length();
+      const Real tolerance = touch_tolerance(s.length());
       if (s.start.z() < -tolerance || s.end.z() < -tolerance)
         throw InputError(wire.where, "wire '" + wire.name + "' goes below the ground plane at z = 0");
       if (m_mesh.nodes[s.node[0]].on_ground && m_mesh.nodes[s.node[1]].on_ground)
@@ -286,11 +437,32 @@ class Mesher {
   }
 
   /// Segments that come within their radii of each other without sharing a node either
-  /// overlap (an error) or cross unjoined (a warning).
+  /// overlap (an error, for two wires and for one wire whose turns or pieces lie on one
+  /// another alike) or cross unjoined (a warning). Two segments of one wire count only when
+  /// the wire between them is longer than π times their radii: nearer, they are the wire's
+  /// own thickness at a short segment (check_segments warns of that), not a second touch.
   void check_crossings() {
     const auto& segs = m_mesh.segments;
     if (segs.empty()) return;
-    std::vector<std::pair<int, int>> reported;
+    std::vector<Real> along(segs.size(), 0.0);  // path length from the wire's start
+    std::vector<Real> wire_length(m_model.wires.size(), 0.0);
+    for (std::size_t i = 0; i < segs.size(); ++i) {
+      along[i] = wire_length[segs[i].wire];
+      wire_length[segs[i].wire] += segs[i].length();
+    }
+    auto closed = [&](int w) {
+      return segs[wire_end_segment(w, 0)].node[0] == segs[wire_end_segment(w, 1)].node[1];
+    };
+    // Two segments leaving one node the same way lie on one another.
+    for (const MeshNode& node : m_mesh.nodes)
+      for (std::size_t i = 0; i < node.ends.size(); ++i)
+        for (std::size_t j = i + 1; j < node.ends.size(); ++j) {
+          const Segment &a = segs[node.ends[i].segment], &b = segs[node.ends[j].segment];
+          const Vec3 da = node.ends[i].end ? -a.direction() : a.direction();
+          const Vec3 db = node.ends[j].end ? -b.direction() : b.direction();
+          if (da.dot(db) > 0.999) throw InputError(m_model.wires[b.wire].where, overlap_message(a.wire, b.wire));
+        }
+    std::set<std::pair<int, int>> warned;
     // Sweep along the axis on which the structure is longest: only segments whose extents
     // on it come within reach are compared, so a long straight wire costs O(S log S).
     Vec3 lowest = segs.front().start, highest = segs.front().start;
@@ -315,25 +487,35 @@ class Mesher {
         const Real span = 0.5 * (a.length() + b.length()) + reach;
         if ((a.midpoint() - b.midpoint()).norm() > span) continue;
         if (segment_distance(a, b) >= reach) continue;
-        const std::pair<int, int> wires{std::min(a.wire, b.wire), std::max(a.wire, b.wire)};
-        if (std::find(reported.begin(), reported.end(), wires) != reported.end()) continue;
-        reported.push_back(wires);
+        if (a.wire == b.wire) {
+          Real between = along[j] - along[i] - a.length();
+          if (closed(a.wire)) between = std::min(between, wire_length[a.wire] - along[j] - b.length() + along[i]);
+          if (between <= pi * reach) continue;
+        }
         const Wire& wa = m_model.wires[a.wire];
         const Wire& wb = m_model.wires[b.wire];
-        const std::string names = a.wire == b.wire ? "wire '" + wa.name + "' touches itself"
-                                                   : "wires '" + wa.name + "' and '" + wb.name + "'";
         if (std::abs(a.direction().dot(b.direction())) > 0.999)
-          throw InputError(wb.where, names + (a.wire == b.wire ? " where it doubles back" : " overlap") +
-                                         "; remove one or move it apart");
-        warn(wb.where, names + (a.wire == b.wire ? "" : " cross") +
-                           " without a junction; end one wire on the other's node to connect them");
+          throw InputError(wb.where, overlap_message(a.wire, b.wire));
+        if (!warned.insert({a.wire, b.wire}).second) continue;
+        warn(wb.where, (a.wire == b.wire ? "wire '" + wa.name + "' touches itself"
+                                         : "wires '" + wa.name + "' and '" + wb.name + "' cross") +
+                           " without a junction; end one wire on the other to connect them");
       }
     }
+  }
+
+  std::string overlap_message(int a, int b) const {
+    const std::string& first = m_model.wires[a].name;
+    return (a == b ? "wire '" + first + "' overlaps itself (turns or pieces lie on one another)"
+                   : "wires '" + first + "' and '" + m_model.wires[b].name + "' overlap") +
+           "; move them apart or remove one";
   }
 
   void warn(const SourceLocation& where, const std::string& message) { m_mesh.warnings.push_back({where, message}); }
 
   const Model& m_model;
+  SurfaceContact m_contact;
+  std::vector<WirePath> m_paths;
   WireMesh m_mesh;
   std::vector<int> m_first_segment;
   std::vector<std::vector<Real>> m_wire_fractions;

@@ -3,6 +3,7 @@
 #include <string>
 #include <vector>
 
+#include "geometry/mesh_warning.hpp"
 #include "geometry/model.hpp"
 
 namespace lobe {
@@ -43,10 +44,6 @@ struct Gap {
   std::string what;      ///< "port NAME" or "load NAME"
 };
 
-struct MeshWarning {
-  SourceLocation where;
-  std::string message;
-};
 
 struct WireMesh {
   std::vector<Segment> segments;
@@ -57,9 +54,14 @@ struct WireMesh {
   int junction_count = 0;      ///< nodes where three or more ends meet, or a wire meets the ground
 };
 
+/// How close a wire node must come to the ground or a surface to touch it: a millionth of
+/// its segment's length, rounding in the user's arithmetic rather than a gap.
+inline Real touch_tolerance(Real segment_length) { return 1e-6 * segment_length; }
+
 /// Meshes every wire of the model: segment counts from `segments N` or from the highest
-/// frequency (about a twentieth of a wavelength), nodes at every port and load, ends joined
-/// where they touch. Throws InputError for geometry that cannot be solved; warns for
+/// frequency (about a twentieth of a wavelength), nodes at every port and load, nodes joined
+/// where they touch (a wire end on another wire between its nodes splits that segment, and
+/// a wire passing through a plate gets a node there). Throws InputError for geometry that cannot be solved; warns for
 /// geometry that is solvable but questionable.
 WireMesh mesh_wires(const Model& model);
 

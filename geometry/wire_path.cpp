@@ -3,20 +3,9 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "geometry/surface_contact.hpp"
 
 namespace lobe {
-namespace {
-
-/// A unit vector perpendicular to `axis`, the one nearest to +x (nearest to +y when the
-/// axis is along x), so that a helix on the z axis starts on the +x side.
-Vec3 reference_direction(const Vec3& axis) {
-  Vec3 u = Vec3::UnitX() - Vec3::UnitX().dot(axis) * axis;
-  if (u.norm() < 1e-9) u = Vec3::UnitY() - Vec3::UnitY().dot(axis) * axis;
-  return u.normalized();
-}
-
-}  // namespace
-
 WirePath::WirePath(const Wire& wire) : m_wire(wire) {
   const WireShape& s = wire.shape;
   switch (s.kind) {
@@ -65,7 +54,7 @@ Vec3 WirePath::local_point(Real u) const {
       return s.center + rotation * (s.start - s.center);
     }
     case ShapeKind::helix: {
-      const Vec3 u_dir = reference_direction(s.axis);
+      const Vec3 u_dir = in_plane_direction(s.axis);
       const Vec3 w_dir = (s.right_handed ? 1.0 : -1.0) * s.axis.cross(u_dir);
       const Real phase = 2 * pi * s.turns * u;
       return s.center + 0.5 * s.diameter * (std::cos(phase) * u_dir + std::sin(phase) * w_dir) +

@@ -94,9 +94,8 @@ void write_model(hid_t file, const RunRecord& run) {
     overridden.push_back(v.overridden ? 1 : 0);
   }
   std::vector<std::string> warnings;
-  for (const auto& w : run.problem.mesh.warnings)
-    warnings.push_back(w.where.file + ":" + std::to_string(w.where.line) + ":" + std::to_string(w.where.column) +
-                       ": warning: " + w.message);
+  for (const auto* list : {&run.problem.mesh.warnings, &run.problem.surfaces.warnings})
+    for (const auto& w : *list) warnings.push_back(w.formatted());
   write_strings(g, "warnings", warnings);
   write_strings(g, "value_names", names);
   write_reals(g, "values", {values.size()}, values, "SI, per value_units");

@@ -53,5 +53,38 @@ TEST(MonopoleOnPlateReference, TendsToTheInfiniteGroundAsThePlateGrows) {
   EXPECT_LT(previous, 0.10);
 }
 
+// Wires meeting a plate from both sides at one point, or one wire passing through it, are
+// joined to it there: the whip's impedance stays what it is alone (the short open lead
+// below carries almost no current), the same distance from image theory as the 1 λ case
+// above (about 12 %), where before the joint was missed and the port saw 31 − j273 Ω.
+TEST(MonopoleOnPlateReference, LeadBelowThePlateAndWirePassingThroughAreJoined) {
+  /// The 1 λ plate's own finite-size departure from the infinite ground, with margin.
+  constexpr Real plate_departure = 0.15;
+  /// The open lead of 0.05 λ below the plate shifts the feed only slightly.
+  constexpr Real lead_effect = 0.02;
+  const Complex z_infinite = solve_text(monopole_text(0.0)).port_impedance();
+  const Complex z_alone = solve_text(monopole_text(1.0)).port_impedance();
+  char lead[256], through[512];
+  std::snprintf(lead, sizeof lead, "wire lead from (0, 0, -0.05) to (0, 0, 0) radius %.17g segments 1\n", radius);
+  std::string text = monopole_text(1.0);
+  const Solved with_lead = solve_text(text + lead);
+  std::string through_text = text.substr(0, text.find("wire whip"));
+  std::snprintf(through, sizeof through,
+                "wire rod from (0, 0, -0.05) to (0, 0, %.17g) radius %.17g segments 6\n"
+                "port feed on rod at %.17g\nfrequency %.17g Hz\n",
+                height, radius, 0.05 / (0.05 + height), one_metre_wavelength_hz);
+  const Solved passing = solve_text(through_text + through);
+  for (const Solved* solved : {&with_lead, &passing}) {
+    ASSERT_EQ(solved->problem->stars.size(), 1u);
+    EXPECT_EQ(solved->problem->stars.front().bases.size(), 2u);
+    expect_power_balance(*solved);
+    const Complex z = solved->port_impedance();
+    std::printf("joined from both sides: %.3f %+.3fj ohm (whip alone %.3f %+.3fj)\n", z.real(), z.imag(),
+                z_alone.real(), z_alone.imag());
+    EXPECT_LT(std::abs(z - z_infinite) / std::abs(z_infinite), plate_departure);
+    EXPECT_LT(std::abs(z - z_alone) / std::abs(z_alone), lead_effect);
+  }
+}
+
 }  // namespace
 }  // namespace lobe::testing
