@@ -3,6 +3,7 @@
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
+#include <set>
 #include <sstream>
 
 #include "cli/commands.hpp"
@@ -69,10 +70,10 @@ int sweep_command(const SweepOptions& options) {
   if (cases.size() > static_cast<std::size_t>(max_sweep_values))
     throw InputError({"--vary", 1, 1}, "the sweep has " + std::to_string(cases.size()) + " cases; at most " +
                                            std::to_string(max_sweep_values) + " are allowed");
+  std::vector<std::string> varied_names;
+  for (const auto& v : varied) varied_names.push_back(v.name);
   auto overrides_of = [&](const std::vector<std::string>& values) {
-    std::vector<std::string> sets = options.set_options;
-    for (std::size_t v = 0; v < varied.size(); ++v) sets.push_back(varied[v].name + "=" + values[v]);
-    return sets;
+    return overrides_with(options.set_options, varied_names, values);
   };
   // Every case must load before any is solved: a bad value is an input error now, not
   // hours into the night.
@@ -116,6 +117,7 @@ int sweep_command(const SweepOptions& options) {
   std::signal(SIGTERM, on_interrupt);
   std::vector<std::filesystem::path> case_files;
   std::size_t skipped = 0, solved = 0;
+  std::set<std::string> warned;  // each distinct mesh warning once, not once per case
   std::optional<ProgressLine> progress(std::in_place, "case", cases.size());
   for (std::size_t c = 0; c < cases.size(); ++c) {
     case_files.push_back(case_directory / (case_name(c) + ".h5"));
@@ -125,8 +127,11 @@ int sweep_command(const SweepOptions& options) {
     }
     const Model model = load_model(options.model_path, overrides_of(cases[c]));
     const AntennaProblem problem(model);
+    for (const auto* list : {&problem.mesh.warnings, &problem.surfaces.warnings})
+      for (const auto& w : *list)
+        if (warned.insert(w.formatted()).second) std::fprintf(stderr, "\n%s (%s)\n", w.formatted().c_str(), case_name(c).c_str());
     std::string command = "lobe sweep case " + case_name(c) + ":";
-    for (const auto& s : overrides_of(cases[c])) command += " --set " + s;
+    for (const auto& o : overrides_of(cases[c])) command += " --set " + o.name + "=" + o.expression;
     RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), command, std::nullopt}};
     for (Real f : model.frequencies_hz) {
       if (interrupted) break;

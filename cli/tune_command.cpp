@@ -1,5 +1,6 @@
 #include <nlopt.hpp>
 
+#include <algorithm>
 #include <cstdio>
 #include <filesystem>
 #include <regex>
@@ -17,6 +18,12 @@
 
 namespace lobe::cli {
 namespace {
+
+std::vector<std::string> names_of(const std::vector<TunedName>& tuned) {
+  std::vector<std::string> names;
+  for (const auto& t : tuned) names.push_back(t.name);
+  return names;
+}
 
 /// The goal's value for one set of overrides: a band figure of the first port.
 struct Evaluator {
@@ -40,9 +47,7 @@ struct Evaluator {
   }
 
   Real goal(const std::vector<std::string>& values) {
-    std::vector<std::string> sets = options.set_options;
-    for (std::size_t i = 0; i < tuned.size(); ++i) sets.push_back(tuned[i].name + "=" + values[i]);
-    const Model model = load_model(options.model_path, sets);
+    const Model model = load_model(options.model_path, overrides_with(options.set_options, names_of(tuned), values));
     if (!band) band = model.bands.empty() ? Band{"all computed frequencies", model.frequencies_hz.front(), model.frequencies_hz.back()}
                                           : model.bands.front();
     const AntennaProblem problem(model);
@@ -65,18 +70,22 @@ double objective(const std::vector<double>& x, std::vector<double>&, void* data)
   return g;
 }
 
-/// The model text with each tuned `let` line set to its value, the old text kept in a comment.
-std::string tuned_text(const std::string& text, const std::vector<TunedName>& tuned, const std::vector<std::string>& values) {
-  std::istringstream in(text);
+/// The model text with every overridden `let` (tuned or fixed by --set) set to the value
+/// `model` was solved with, in the model's own units, the old text kept in a comment, so
+/// the file reproduces the tuned figure on its own.
+std::string tuned_text(const Model& model, const std::vector<TunedName>& tuned) {
+  std::istringstream in(model.text);
   std::ostringstream out;
   for (std::string line; std::getline(in, line);) {
-    for (std::size_t i = 0; i < tuned.size(); ++i) {
-      const std::regex let("^(\\s*let\\s+" + tuned[i].name + "\\s*=).*$");
-      if (std::regex_match(line, let)) {
-        std::string old = line.substr(line.find('=') + 1);
-        old = old.substr(old.find_first_not_of(' '));
-        line = std::regex_replace(line, let, "$1 " + values[i] + "   # tuned by lobe (was: " + old + ")");
-      }
+    for (const ResolvedValue& v : model.values) {
+      if (!v.overridden) continue;
+      const std::regex let("^(\\s*let\\s+" + v.name + "\\s*=).*$");
+      if (!std::regex_match(line, let)) continue;
+      const bool was_tuned = std::any_of(tuned.begin(), tuned.end(), [&](const TunedName& t) { return t.name == v.name; });
+      std::string old = line.substr(line.find('=') + 1);
+      old = old.substr(std::min(old.size(), old.find_first_not_of(' ')));
+      line = std::regex_replace(line, let, "$1 " + model_value_text(v, model)) +
+             (was_tuned ? "   # tuned by lobe (was: " : "   # set by --set when tuned (was: ") + old + ")";
     }
     out << line << '\n';
   }
@@ -97,12 +106,11 @@ int tune_command(const TuneOptions& options) {
   const std::filesystem::path directory = output.has_parent_path() ? output.parent_path() : std::filesystem::path(".");
   check_output_directory(directory);
   // Both ends must load before the search starts: a bad range fails now, not mid-search.
-  std::string model_text;
-  for (double end : {0.0, 1.0}) model_text = load_model(options.model_path, [&] {
-      std::vector<std::string> sets = options.set_options;
-      for (const auto& t : tuned) sets.push_back(t.name + "=" + exact_text(t.low + end * (t.high - t.low)) + t.unit);
-      return sets;
-    }()).text;
+  for (double end : {0.0, 1.0}) {
+    std::vector<std::string> values;
+    for (const auto& t : tuned) values.push_back(exact_text(t.low + end * (t.high - t.low)) + t.unit);
+    load_model(options.model_path, overrides_with(options.set_options, names_of(tuned), values));
+  }
 
   // BOBYQA (Powell 2009): bounded, derivative-free, builds quadratic models; on the unit box.
   nlopt::opt optimiser(nlopt::LN_BOBYQA, static_cast<unsigned>(tuned.size()));
@@ -119,7 +127,9 @@ int tune_command(const TuneOptions& options) {
     // The goal stopped improving at rounding level: the best point so far stands.
   }
   OutputFiles files(directory);
-  files.stage_text(output.filename().string(), tuned_text(model_text, tuned, evaluator.best_values));
+  const Model tuned_model =
+      load_model(options.model_path, overrides_with(options.set_options, names_of(tuned), evaluator.best_values));
+  files.stage_text(output.filename().string(), tuned_text(tuned_model, tuned));
   files.commit();
   std::printf("best %s %.5g over %s (%s to %s) after %d evaluations:\n", options.goal.c_str(), evaluator.best,
               evaluator.band->name.c_str(), frequency_text(evaluator.band->low_hz).c_str(),

@@ -111,6 +111,7 @@ struct Model {
   std::string file;
   std::string text;
   Real length_unit = 1.0;  ///< metres per bare length number
+  std::string length_unit_name = "m";  ///< as written in `units`
   std::vector<Wire> wires;
   std::vector<SurfaceShape> surfaces;
   std::optional<PlaneWave> wave;

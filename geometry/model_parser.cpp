@@ -43,7 +43,12 @@ std::string si_unit_text(const Dimension& d) {
 class ModelParser {
  public:
   ModelParser(const std::string& file, const std::vector<Override>& overrides) : m_file(file) {
-    for (const auto& o : overrides) m_overrides.emplace(o.name, o);
+    for (const auto& o : overrides) {
+      const auto [earlier, fresh] = m_overrides.emplace(o.name, o);
+      if (!fresh)
+        throw InputError(o.where, "'" + o.name + "' is given twice (also by " + earlier->second.where.file + " " +
+                                      std::to_string(earlier->second.where.line) + "); give each name once");
+    }
     m_model.file = file;
     m_model.pattern = {0.0, pi, 5.0 * pi / 180.0, 0.0, 355.0 * pi / 180.0, 5.0 * pi / 180.0};
   }
@@ -122,6 +127,7 @@ class ModelParser {
     auto it = scale.find(u.text);
     if (it == scale.end()) throw InputError(u.where, "unknown length unit '" + u.text + "'; use m cm mm um in mil");
     m_model.length_unit = it->second;
+    m_model.length_unit_name = it->first;
   }
 
   void let(TokenCursor& c) {
@@ -136,7 +142,7 @@ class ModelParser {
       Quantity replaced = evaluate_override(it->second);
       if (replaced.dim.is_none() && !value.dim.is_none()) replaced = plain_as(replaced.value, value.dim, it->second);
       if (replaced.dim != value.dim)
-        throw InputError(it->second.where, "--set " + name.text + " gives " + dimension_name(replaced.dim) +
+        throw InputError(it->second.where, it->second.where.file + " " + name.text + " gives " + dimension_name(replaced.dim) +
                                                " but the model defines it as " + dimension_name(value.dim));
       value = replaced;
       resolved = {name.text, value.value, si_unit_text(value.dim), true};
@@ -151,7 +157,7 @@ class ModelParser {
   /// must say its unit.
   Quantity plain_as(Real number, const Dimension& dim, const Override& o) {
     if (dim == dimension::frequency)
-      throw InputError(o.where, "--set " + o.name + " needs a unit (Hz, kHz, MHz or GHz)");
+      throw InputError(o.where, o.where.file + " " + o.name + " needs a unit (Hz, kHz, MHz or GHz)");
     const Real scale = dim == dimension::length ? m_model.length_unit : dim == dimension::angle ? pi / 180.0 : 1.0;
     return {number * scale, dim};
   }
@@ -160,7 +166,7 @@ class ModelParser {
     const auto tokens = tokenize_line(o.expression, o.where.file, o.where.line);
     TokenCursor c(tokens);
     const Quantity q = parse_expression(c, m_symbols);
-    if (!c.at_end()) throw InputError(c.peek().where, "unexpected " + quoted(c.peek()) + " in the --set value");
+    if (!c.at_end()) throw InputError(c.peek().where, "unexpected " + quoted(c.peek()) + " in the " + o.where.file + " value");
     return q;
   }
 
@@ -758,7 +764,7 @@ class ModelParser {
     const SourceLocation end_of_file{m_file, m_last_line, 1};
     for (const auto& [name, o] : m_overrides)
       if (!m_used_overrides.count(name))
-        throw InputError(o.where, "--set " + name + ": the model has no 'let " + name + "'");
+        throw InputError(o.where, o.where.file + " " + name + ": the model has no 'let " + name + "'");
     if (m_model.wires.empty() && m_model.surfaces.empty())
       throw InputError(end_of_file, "the model has no wire, arc, helix, plate or body");
     if (m_model.frequencies_hz.empty()) throw InputError(end_of_file, "the model has no 'frequency' statement");
@@ -813,11 +819,11 @@ Model parse_model(const std::string& text, const std::string& file, const std::v
   return parser.parse(text);
 }
 
-Override parse_override(const std::string& option, int index) {
-  const SourceLocation where{"--set", index, 1};
+Override parse_override(const std::string& option, int index, const std::string& option_name) {
+  const SourceLocation where{option_name, index, 1};
   const auto equals = option.find('=');
   if (equals == std::string::npos || equals == 0)
-    throw InputError(where, "--set takes NAME=VALUE, got '" + option + "'");
+    throw InputError(where, option_name + " takes NAME=VALUE, got '" + option + "'");
   Override o{option.substr(0, equals), option.substr(equals + 1), where};
   o.where.column = static_cast<int>(equals) + 2;
   return o;
@@ -890,6 +896,13 @@ ShownUnit shown_unit(const std::string& rest, int index) {
 }
 
 }  // namespace
+
+std::string model_value_text(const ResolvedValue& v, const Model& model) {
+  if (v.unit == "m") return exact_text(v.value / model.length_unit) + " " + model.length_unit_name;
+  if (v.unit == "rad") return exact_text(v.value * 180.0 / pi) + " deg";
+  if (v.unit == "Hz") return exact_text(v.value / 1e6) + " MHz";
+  return exact_text(v.value) + (v.unit.empty() ? "" : " " + v.unit);
+}
 
 std::string shown_text(Real value, const ShownUnit& shown) {
   char text[40];

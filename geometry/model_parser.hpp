@@ -18,8 +18,10 @@ struct Override {
 Model parse_model(const std::string& text, const std::string& file,
                   const std::vector<Override>& overrides = {});
 
-/// Splits "NAME=VALUE" of a --set option; the location names the option's position.
-Override parse_override(const std::string& option, int index);
+/// Splits "NAME=VALUE" of a --set option (or of `option_name`, such as one case of a
+/// --vary); the location names the option and its position. parse_model refuses a name
+/// given twice.
+Override parse_override(const std::string& option, int index, const std::string& option_name = "--set");
 
 /// A `let` name and the values a sweep gives it, each as text for an override.
 struct VariedName {
@@ -43,6 +45,10 @@ struct ShownUnit {
 /// An SI value in that unit with ten significant digits ("25 deg"), which hides the
 /// rounding of START + i·STEP.
 std::string shown_text(Real value, const ShownUnit& shown);
+
+/// A resolved value as model text, exact, in the model's own units: lengths in `units`,
+/// angles in degrees, frequencies in MHz, everything else in SI ("161.5 mm", "45 deg").
+std::string model_value_text(const ResolvedValue& value, const Model& model);
 
 /// A `let` name a tuner may move between two values: NAME=MIN:MAX (plain numbers, or
 /// lengths, frequencies or angles with units). `unit` is the suffix that makes a value

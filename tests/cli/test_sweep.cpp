@@ -8,6 +8,7 @@
 
 #include <chrono>
 #include <random>
+#include <regex>
 #include <thread>
 
 #include "cli/run_process.hpp"
@@ -116,6 +117,57 @@ TEST(Tune, FindsAtLeastTheBestOfAFineSweep) {
   const ProcessResult rerun = run_lobe("run '" + (dir / "t.lobe").string() + "' -o '" + (dir / "r").string() + "'", dir);
   ASSERT_EQ(rerun.exit_code, 0) << rerun.err;
   EXPECT_NEAR(number_after(rerun.out, ", worst "), tuned_value, 0.006) << rerun.out;  // printed to 3 digits
+}
+
+// With --set beside --vary, the written model holds the --set values too, and every value
+// in the model's own units (millimetres here, not metres): run on its own it gives the
+// figure tune reported (before, it dropped --set and gave another antenna).
+TEST(Tune, WrittenModelKeepsSetValuesAndReproducesTheFigure) {
+  const auto dir = fresh_directory("tune-set");
+  const std::string model = models + "half_wave_dipole_ism.lobe";
+  const ProcessResult tuned = run_lobe("tune '" + model + "' --set rod=3 --vary length=150mm:175mm --evaluations 10 -o '" +
+                                           (dir / "t.lobe").string() + "' --threads 1", dir);
+  ASSERT_EQ(tuned.exit_code, 0) << tuned.err;
+  const double tuned_value = number_after(tuned.out, "best worst-vswr ");
+  const std::string text = read_text(dir / "t.lobe");
+  EXPECT_TRUE(std::regex_search(text, std::regex("let rod += 3 +# set by --set"))) << text;
+  EXPECT_TRUE(std::regex_search(text, std::regex("let length = 1[5-7][0-9.]* mm +# tuned"))) << text;
+  ASSERT_EQ(run_lobe("run '" + (dir / "t.lobe").string() + "' -o '" + (dir / "r").string() + "' --threads 1", dir).exit_code, 0);
+  const NetworkData network = read_result_network(dir / "r" / "t.h5");
+  ReflectionCurve curve{network.frequency_hz, {}};
+  for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
+  const Real rerun = band_figure(band_report(curve, 863e6, 870e6), "worst-vswr");
+  EXPECT_NEAR(rerun, tuned_value, 1e-4 * tuned_value);  // tune prints five digits
+}
+
+// Giving one name twice would silently use the first value: refused, naming the option.
+TEST(Sweep, ANameGivenTwiceIsRefused) {
+  const auto dir = fresh_directory("sweep-twice");
+  const std::string model = models + "half_wave_dipole_ism.lobe";
+  const std::string out = " -o '" + (dir / "s.h5").string() + "'";
+  for (const auto& [args, where] : std::vector<std::pair<std::string, std::string>>{
+           {"sweep '" + model + "' --set length=150mm --vary length=100mm,170mm" + out, "--vary:1:"},
+           {"sweep '" + model + "' --vary length=100mm,170mm --vary length=1mm,2mm" + out, "--vary:2:"},
+           {"tune '" + model + "' --set length=150mm --vary length=150mm:170mm -o '" + (dir / "t.lobe").string() + "'", "--vary:1:"},
+           {"run '" + model + "' --set rod=1 --set rod=2 -o '" + (dir / "r").string() + "'", "--set:2:"}}) {
+    const ProcessResult r = run_lobe(args, dir);
+    EXPECT_EQ(r.exit_code, 2) << args;
+    EXPECT_EQ(r.err.rfind(where, 0), 0u) << r.err;
+    EXPECT_NE(r.err.find("is given twice"), std::string::npos) << r.err;
+  }
+  EXPECT_FALSE(std::filesystem::exists(dir / "s.h5"));
+  EXPECT_FALSE(std::filesystem::exists(dir / "t.lobe"));
+}
+
+// A sweep shows the mesher's warnings (each distinct one once), as run does.
+TEST(Sweep, ShowsTheMeshWarningsOfItsCases) {
+  const auto dir = fresh_directory("sweep-warnings");
+  const ProcessResult r = run_lobe("sweep '" + models + "half_wave_dipole_ism.lobe' --vary rod=3,3.0 -o '" +
+                                       (dir / "s.h5").string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const auto first = r.err.find("radii long");
+  ASSERT_NE(first, std::string::npos) << r.err;
+  EXPECT_EQ(r.err.find("radii long", first + 1), std::string::npos) << r.err;
 }
 
 // plot on a sweep file maps the band figure of every case, each recomputed here from the
