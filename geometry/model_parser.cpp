@@ -40,6 +40,10 @@ std::string si_unit_text(const Dimension& d) {
   return unit_symbols(d);
 }
 
+/// Bounds on every length in a model, m (see ModelParser::length and positive_length).
+constexpr Real largest_length = 1e5;
+constexpr Real smallest_length = 1e-7;
+
 class ModelParser {
  public:
   ModelParser(const std::string& file, const std::vector<Override>& overrides) : m_file(file) {
@@ -701,14 +705,27 @@ class ModelParser {
     return v;
   }
 
+  /// A length no larger than any antenna this tool can solve: beyond it the arithmetic,
+  /// not the physics, decides (coordinates overflow, far fields lose every digit).
   Real length(TokenCursor& c, const std::string& what) {
-    return quantity_in(c, dimension::length, m_model.length_unit, what).value;
+    const Token& at = c.peek();
+    const Real v = quantity_in(c, dimension::length, m_model.length_unit, what).value;
+    if (!(std::abs(v) <= largest_length))
+      throw InputError(at.where, what + " must lie within " + number_text(largest_length / 1e3) + " km of the origin, got " +
+                                     number_text(v) + " m");
+    return v;
   }
 
+  /// A size (radius, width, diameter, pitch, mesh size): above zero and no smaller than a
+  /// tenth of a micrometre, below which no wire or plate is built and the thin-wire kernel's
+  /// quadrature would chase a vanishing radius without end.
   Real positive_length(TokenCursor& c, const std::string& what) {
     const Token& at = c.peek();
     const Real v = length(c, what);
     if (!(v > 0.0)) throw InputError(at.where, what + " must be above zero, got " + number_text(v) + " m");
+    if (v < smallest_length)
+      throw InputError(at.where, what + " must be at least " + number_text(smallest_length * 1e6) + " um, got " +
+                                     number_text(v) + " m");
     return v;
   }
 

@@ -7,6 +7,7 @@
 #include "core/check.hpp"
 #include "geometry/surface_contact.hpp"
 #include "solver/coupling_fill.hpp"
+#include "solver/frequency_limits.hpp"
 #include "solver/dense_matrix.hpp"
 #include "solver/impedance_fill.hpp"
 #include "solver/lumped_load.hpp"
@@ -182,6 +183,7 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
       basis(mesh, attached(node_vertex)),
       rwg(surfaces.mesh, basis.size()) {
   check_surfaces_above_ground(m, surfaces);
+  for (MeshWarning& w : check_frequency_limits(m, mesh, surfaces.mesh)) mesh.warnings.push_back(std::move(w));
   require_current_at_gaps(mesh, attached(node_vertex));
   for (std::size_t n = 0; n < mesh.nodes.size(); ++n) {
     if (node_vertex[n] < 0) continue;

@@ -1,6 +1,7 @@
 #include "solver/scattering_problem.hpp"
 
 #include "solver/dense_matrix.hpp"
+#include "solver/frequency_limits.hpp"
 #include "solver/surface_fill.hpp"
 
 namespace lobe {
@@ -20,6 +21,7 @@ ScatteringProblem::ScatteringProblem(const Model& m)
   if (basis.size() == 0)
     throw InputError({m.file, 1, 1}, "the surfaces have no interior mesh edges, so no current can flow");
   require_dense_memory(m, basis.size());
+  for (MeshWarning& w : check_frequency_limits(m, WireMesh{}, surfaces.mesh)) surfaces.warnings.push_back(std::move(w));
 }
 
 ScatteringSolution solve_scattering(const ScatteringProblem& problem, Real frequency_hz) {

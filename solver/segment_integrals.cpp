@@ -106,7 +106,9 @@ QuadratureRule graded_rule(Real length, Real radius) {
   // Breakpoints 0, h, 3h, 9h, … up to the middle, mirrored toward the far end.
   std::vector<Real> half{0.0};
   Real h = std::min(radius, 0.5 * length) / length;
-  while (half.back() + h < 0.5 - 1e-12) {
+  // The parser bounds radius/length from below (0.1 um in 100 km), so this ends within a
+  // few dozen steps; the cap keeps it so whatever the caller passes.
+  for (int step = 0; step < 200 && half.back() + h < 0.5 - 1e-12; ++step) {
     half.push_back(half.back() + h);
     h *= graded_ratio;
   }

@@ -97,6 +97,17 @@ TEST(BadInput, BadSetOption) {
   EXPECT_NE(r.err.find("--set:1:"), std::string::npos) << r.err;
 }
 
+// A --set value outside physical bounds is refused while parsing, not hours into a solve
+// (a radius of 1e-200 once sent an integration rule after a vanishing radius forever).
+TEST(BadInput, SetValueOutsidePhysicalBounds) {
+  const auto scratch = fresh_directory("bad-set-bounds");
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
+  const ProcessResult r = run_lobe("run '" + model + "' --set rod=1e-200 -o '" + (scratch / "out").string() + "'", scratch);
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_NE(r.err.find("a wire radius must be at least 0.1 um"), std::string::npos) << r.err;
+  EXPECT_FALSE(std::filesystem::exists(scratch / "out"));
+}
+
 TEST(BadInput, BadBandOption) {
   const auto scratch = fresh_directory("bad-band");
   const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
