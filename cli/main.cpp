@@ -1,7 +1,10 @@
 /// The lobe command: `lobe run MODEL`, `lobe check MODEL` and `lobe mesh MODEL -o FILE.vtu`.
 #include <CLI/CLI.hpp>
 
+#include <cmath>
 #include <cstdio>
+#include <cstdlib>
+#include <thread>
 #include <exception>
 
 #include "cli/commands.hpp"
@@ -13,6 +16,27 @@ namespace {
 
 constexpr int exit_bad_input = 2;
 constexpr int exit_internal_failure = 1;
+/// Far beyond any transmitter this tool's users drive; above it distances lose meaning.
+constexpr double largest_transmit_power_w = 1e6;
+
+/// A forward power in watts: a finite number above zero, at most 1 MW (nan and 1e308 are
+/// not powers).
+const CLI::Validator transmit_power(
+    [](std::string& text) -> std::string {
+      char* end = nullptr;
+      const double w = std::strtod(text.c_str(), &end);
+      if (end == text.c_str() || *end != '\0' || !std::isfinite(w) || !(w > 0.0) || w > largest_transmit_power_w)
+        return "expected a power in watts above 0 and at most 1000000, got '" + text + "'";
+      return {};
+    },
+    "WATTS");
+
+/// Threads: at least one, at most the cores this process may use; more only slows the
+/// factorisation, and thousands fail to start.
+CLI::Range thread_range() {
+  const unsigned cores = std::max(1u, std::thread::hardware_concurrency());
+  return CLI::Range(1u, cores);
+}
 
 }  // namespace
 
@@ -30,9 +54,9 @@ int main(int argc, char** argv) {
   run_app->add_option("--band", run.band_options, "Also report a band: LOW:HIGH, e.g. 5.65GHz:5.95GHz (repeatable)")
       ->allow_extra_args(false);
   run_app->add_option("--tx-power", run.tx_power_w, "Transmitter forward power in W: print the reflected power")
-      ->check(CLI::PositiveNumber);
+      ->check(transmit_power);
   run_app->add_option("--threads", run.threads, "Threads for matrix fill and factorisation (default: all cores)")
-      ->check(CLI::Range(1, 1024));
+      ->check(thread_range());
 
   std::string check_path;
   std::vector<std::string> check_sets;
@@ -68,7 +92,7 @@ int main(int argc, char** argv) {
   compare_app->add_option("--band", compare.band_options, "A band to report: LOW:HIGH (repeatable; default: the overlap)")
       ->allow_extra_args(false);
   compare_app->add_option("--tx-power", compare.tx_power_w, "Transmitter forward power in W: the worst reflected power")
-      ->check(CLI::PositiveNumber);
+      ->check(transmit_power);
 
   lobe::cli::PlotOptions plot;
   auto* plot_app =
@@ -98,7 +122,7 @@ int main(int argc, char** argv) {
   sweep_app->add_option("--rank", sweep.rank, "Rank the cases: worst-vswr, mean-vswr, mean-mismatch-loss, share-under-vswr-2")
       ->check(CLI::IsMember(lobe::band_figure_names()));
   sweep_app->add_option("--band", sweep.band, "The band to rank over: LOW:HIGH (default: the model's first band)");
-  sweep_app->add_option("--threads", sweep.threads, "Threads (default: all cores)")->check(CLI::Range(1, 1024));
+  sweep_app->add_option("--threads", sweep.threads, "Threads (default: all cores)")->check(thread_range());
 
   lobe::cli::TuneOptions tune;
   auto* tune_app = app.add_subcommand("tune", "Search let values for the best match over a band; write the tuned model");
@@ -110,7 +134,7 @@ int main(int argc, char** argv) {
   tune_app->add_option("--band", tune.band, "The band to judge: LOW:HIGH (default: the model's first band)");
   tune_app->add_option("--evaluations", tune.evaluations, "Most models to solve (default 60)")->check(CLI::Range(2, 100000));
   tune_app->add_option("-o,--output", tune.output, "The tuned model (default: MODEL-STEM-tuned.lobe)");
-  tune_app->add_option("--threads", tune.threads, "Threads (default: all cores)")->check(CLI::Range(1, 1024));
+  tune_app->add_option("--threads", tune.threads, "Threads (default: all cores)")->check(thread_range());
 
   try {
     app.parse(argc, argv);

@@ -1,7 +1,10 @@
 #include "cli/model_loading.hpp"
 
+#include <algorithm>
 #include <fstream>
 #include <sstream>
+
+#include "core/number_text.hpp"
 
 namespace lobe::cli {
 
@@ -18,6 +21,22 @@ std::vector<Override> overrides_with(const std::vector<std::string>& set_options
   for (std::size_t v = 0; v < varied_names.size(); ++v)
     overrides.push_back({varied_names[v], values[v], {"--vary", static_cast<int>(v) + 1, static_cast<int>(varied_names[v].size()) + 2}});
   return overrides;
+}
+
+Band judged_band(const Model& model, const std::string& band_option) {
+  const auto [lowest, highest] = std::minmax_element(model.frequencies_hz.begin(), model.frequencies_hz.end());
+  Band band{"all computed frequencies", *lowest, *highest};
+  SourceLocation where{model.file, 1, 1};
+  if (!band_option.empty()) {
+    band = parse_band_option(band_option, 1);
+    where = {"--band", 1, 1};
+  } else if (!model.bands.empty()) {
+    band = model.bands.front();
+  }
+  if (band.high_hz < *lowest || band.low_hz > *highest)
+    throw InputError(where, "band '" + band.name + "' lies outside the model's frequencies (" + exact_text(*lowest / 1e6) +
+                                " to " + exact_text(*highest / 1e6) + " MHz); there is nothing to judge in it");
+  return band;
 }
 
 Model load_model(const std::string& path, const std::vector<Override>& overrides) {

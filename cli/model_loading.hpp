@@ -13,6 +13,11 @@ Model load_model(const std::string& path, const std::vector<std::string>& set_op
 /// The same with overrides already split (a sweep's or tune's varied names among them).
 Model load_model(const std::string& path, const std::vector<Override>& overrides);
 
+/// The band a sweep ranks or tune judges by: `band_option` (LOW:HIGH) if given, else the
+/// model's first band, else all computed frequencies. Refuses one that lies wholly outside
+/// the model's frequencies, where there is nothing to judge.
+Band judged_band(const Model& model, const std::string& band_option);
+
 /// The --set options followed by one override per varied name, located at its --vary.
 std::vector<Override> overrides_with(const std::vector<std::string>& set_options,
                                      const std::vector<std::string>& varied_names,

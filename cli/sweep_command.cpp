@@ -9,6 +9,7 @@
 #include "cli/commands.hpp"
 #include "cli/progress_line.hpp"
 #include "cli/model_loading.hpp"
+#include "core/formatted_text.hpp"
 #include "geometry/model_parser.hpp"
 #include "post/band_report.hpp"
 #include "post/hdf5_writer.hpp"
@@ -65,11 +66,15 @@ int sweep_command(const SweepOptions& options) {
   std::vector<VariedName> varied;
   for (std::size_t i = 0; i < options.vary_options.size(); ++i)
     varied.push_back(parse_vary_option(options.vary_options[i], static_cast<int>(i) + 1));
+  // Count the combinations before making them: a product of large lists must not be built
+  // only to be refused.
+  double count = 1.0;
+  for (const auto& v : varied) count *= static_cast<double>(v.values.size());
+  if (count > max_sweep_values)
+    throw InputError({"--vary", 1, 1}, "the sweep has " + formatted("%.3g", count) + " cases; at most " +
+                                           std::to_string(max_sweep_values) + " are allowed");
   const auto cases = combinations(varied, &VariedName::values);
   const auto labels = combinations(varied, &VariedName::labels);
-  if (cases.size() > static_cast<std::size_t>(max_sweep_values))
-    throw InputError({"--vary", 1, 1}, "the sweep has " + std::to_string(cases.size()) + " cases; at most " +
-                                           std::to_string(max_sweep_values) + " are allowed");
   std::vector<std::string> varied_names;
   for (const auto& v : varied) varied_names.push_back(v.name);
   auto overrides_of = [&](const std::vector<std::string>& values) {
@@ -79,8 +84,10 @@ int sweep_command(const SweepOptions& options) {
   // hours into the night.
   std::vector<std::vector<Real>> si;
   std::string model_text;
+  std::optional<Band> band;
   for (const auto& c : cases) {
     const Model model = load_model(options.model_path, overrides_of(c));
+    if (!options.rank.empty() && !band) band = judged_band(model, options.band);
     model_text = model.text;
     if (model.wave) throw InputError({options.model_path, 1, 1}, "sweeps solve antennas driven by ports, not plane waves");
     std::vector<Real> values;
@@ -159,22 +166,18 @@ int sweep_command(const SweepOptions& options) {
 
   // Rank by the chosen band figure of the first port.
   if (!options.rank.empty()) {
-    const Model model = load_model(options.model_path, overrides_of(cases.front()));
-    Band band{"all computed frequencies", model.frequencies_hz.front(), model.frequencies_hz.back()};
-    if (!options.band.empty()) band = parse_band_option(options.band, 1);
-    else if (!model.bands.empty()) band = model.bands.front();
     std::vector<std::pair<Real, std::size_t>> scores;
     for (std::size_t c = 0; c < cases.size(); ++c) {
       const NetworkData network = read_result_network(case_files[c]);
       ReflectionCurve curve{network.frequency_hz, {}};
       for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
-      const Real figure = band_figure(band_report(curve, band.low_hz, band.high_hz), options.rank);
+      const Real figure = band_figure(band_report(curve, band->low_hz, band->high_hz), options.rank);
       const Real score = larger_is_better(options.rank) ? -figure : figure;
       scores.emplace_back(score, c);
     }
     std::stable_sort(scores.begin(), scores.end());
-    std::printf("\nbest cases by %s over %s (%s to %s), first port:\n", options.rank.c_str(), band.name.c_str(),
-                frequency_text(band.low_hz).c_str(), frequency_text(band.high_hz).c_str());
+    std::printf("\nbest cases by %s over %s (%s to %s), first port:\n", options.rank.c_str(), band->name.c_str(),
+                frequency_text(band->low_hz).c_str(), frequency_text(band->high_hz).c_str());
     for (std::size_t k = 0; k < std::min<std::size_t>(10, scores.size()); ++k) {
       std::printf("  %2zu. %s  %-12.4g", k + 1, case_name(scores[k].second).c_str(),
                   larger_is_better(options.rank) ? -scores[k].first : scores[k].first);

@@ -48,8 +48,6 @@ struct Evaluator {
 
   Real goal(const std::vector<std::string>& values) {
     const Model model = load_model(options.model_path, overrides_with(options.set_options, names_of(tuned), values));
-    if (!band) band = model.bands.empty() ? Band{"all computed frequencies", model.frequencies_hz.front(), model.frequencies_hz.back()}
-                                          : model.bands.front();
     const AntennaProblem problem(model);
     ReflectionCurve curve;
     for (Real f : model.frequencies_hz) {
@@ -100,7 +98,6 @@ int tune_command(const TuneOptions& options) {
   for (std::size_t i = 0; i < options.vary_options.size(); ++i)
     tuned.push_back(parse_tune_option(options.vary_options[i], static_cast<int>(i) + 1));
   Evaluator evaluator{options, tuned, std::nullopt, 0, 1e300, {}, {}};
-  if (!options.band.empty()) evaluator.band = parse_band_option(options.band, 1);
   const std::string stem = std::filesystem::path(options.model_path).stem().string();
   const std::filesystem::path output(options.output.empty() ? stem + "-tuned.lobe" : options.output);
   const std::filesystem::path directory = output.has_parent_path() ? output.parent_path() : std::filesystem::path(".");
@@ -109,7 +106,8 @@ int tune_command(const TuneOptions& options) {
   for (double end : {0.0, 1.0}) {
     std::vector<std::string> values;
     for (const auto& t : tuned) values.push_back(exact_text(t.low + end * (t.high - t.low)) + t.unit);
-    load_model(options.model_path, overrides_with(options.set_options, names_of(tuned), values));
+    const Model model = load_model(options.model_path, overrides_with(options.set_options, names_of(tuned), values));
+    evaluator.band = judged_band(model, options.band);
   }
 
   // BOBYQA (Powell 2009): bounded, derivative-free, builds quadratic models; on the unit box.

@@ -119,6 +119,28 @@ TEST(BadInput, BadBandOption) {
   }
 }
 
+// Options are checked before any work, with the option's name in the message: a power that
+// is not a finite number of watts, more threads than cores, a band outside the model's
+// frequencies for sweep --rank and tune, and a --vary product too large to build.
+TEST(BadInput, OptionsAreCheckedBeforeAnyWork) {
+  const auto scratch = fresh_directory("bad-options");
+  const std::string model = "'" + std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe'";
+  const std::string out = " -o '" + (scratch / "out").string() + "'";
+  for (const auto& [args, expected] : std::vector<std::pair<std::string, std::string>>{
+           {"run " + model + out + " --tx-power nan", "--tx-power: "},
+           {"run " + model + out + " --tx-power 1e308", "--tx-power: "},
+           {"compare x.h5 y.s1p --tx-power inf", "--tx-power: "},
+           {"run " + model + out + " --threads 1024", "--threads: "},
+           {"sweep " + model + " --vary length=150mm,160mm --rank worst-vswr --band 2GHz:3GHz" + out, "--band:1:1: "},
+           {"tune " + model + " --vary length=150mm:160mm --band 2GHz:3GHz" + out, "--band:1:1: "},
+           {"sweep " + model + " --vary length=1mm:10000mm:1mm --vary rod=1mm:10000mm:1mm" + out, "--vary:1:1: "}}) {
+    const ProcessResult r = run_lobe(args, scratch);
+    EXPECT_EQ(r.exit_code, 2) << args;
+    EXPECT_EQ(r.err.rfind(expected, 0), 0u) << args << "\n" << r.err;
+    EXPECT_FALSE(std::filesystem::exists(scratch / "out")) << args;
+  }
+}
+
 TEST(BadInput, OutputDirectoryThatIsAFile) {
   const auto scratch = fresh_directory("bad-output");
   const auto file = scratch / "not-a-directory";
