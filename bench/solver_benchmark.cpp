@@ -18,6 +18,7 @@
 #include "solver/impedance_fill.hpp"
 #include "solver/surface_fill.hpp"
 #include "solver/threads.hpp"
+#include "solver/time_estimate.hpp"
 #include "solver/antenna_problem.hpp"
 
 namespace {
@@ -59,19 +60,6 @@ double peak_memory_mib() {
   return static_cast<double>(usage.ru_maxrss) / 1024.0;
 }
 
-/// Complex matrix multiply rate, GFLOP/s (8 n³ real flops): the machine's practical peak.
-double zgemm_rate(int n) {
-  lobe::ComplexMatrix a = lobe::ComplexMatrix::Random(n, n), b = lobe::ComplexMatrix::Random(n, n), c(n, n);
-  const lobe::Complex one(1.0), zero(0.0);
-  std::vector<double> times;
-  for (int r = 0; r < repetitions; ++r) {
-    const auto start = Clock::now();
-    cblas_zgemm(CblasColMajor, CblasNoTrans, CblasNoTrans, n, n, n, &one, a.data(), n, b.data(), n, &zero, c.data(), n);
-    times.push_back(seconds_since(start));
-  }
-  return 8.0 * n * n * static_cast<double>(n) / median(times) / 1e9;
-}
-
 /// LU of a complex matrix takes n³/3 complex multiply-adds of 8 real flops each:
 /// (8/3) n³ flops. GFLOP/s.
 double factor_rate(Eigen::Index n, double seconds) { return 8.0 / 3.0 * n * static_cast<double>(n) * n / seconds / 1e9; }
@@ -82,7 +70,7 @@ int main() {
   using namespace lobe;
   const int threads = thread_count();
   set_thread_count(threads);
-  const double peak = zgemm_rate(1500);
+  const double peak = lobe::measured_zgemm_gflops(1500);
   std::printf("lobe solver benchmark: %d threads; zgemm (n = 1500) runs at %.1f GFLOP/s (this machine's reference)\n",
               threads, peak);
   // First, and one matrix at a time, so that the peak memory is what one frequency needs.

@@ -6,11 +6,21 @@
 #include "core/constants.hpp"
 #include "solver/scattering_problem.hpp"
 #include "solver/antenna_problem.hpp"
+#include "solver/time_estimate.hpp"
+#include "cli/progress_line.hpp"
 
 namespace lobe::cli {
 
 void print_warnings(const std::vector<MeshWarning>& warnings) {
   for (const auto& w : warnings) std::fprintf(stderr, "%s\n", w.formatted().c_str());
+}
+
+void print_long_run_estimate(double unknowns, double frequencies, double cases) {
+  constexpr double long_run_seconds = 600.0;
+  const double seconds = estimated_solve_seconds(unknowns, frequencies * cases, long_run_seconds);
+  if (seconds <= long_run_seconds) return;
+  std::printf("estimated time: about %s in all, %s per frequency (from this machine's measured matrix-multiply rate)\n",
+              duration_text(seconds).c_str(), duration_text(seconds / (frequencies * cases)).c_str());
 }
 
 int check_command(const std::string& model_path, const std::vector<std::string>& set_options) {
@@ -47,6 +57,7 @@ int check_command(const std::string& model_path, const std::vector<std::string>&
   std::printf("%s from %s to %s; ground %s; %s\n", count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
               frequency_text(model.frequencies_hz.front()).c_str(), frequency_text(model.highest_frequency()).c_str(),
               model.ground_perfect ? "perfect" : "none", count_text(problem.mesh.warnings.size() + problem.surfaces.warnings.size(), "warning").c_str());
+  print_long_run_estimate(problem.unknowns(), static_cast<double>(model.frequencies_hz.size()));
   return 0;
 }
 

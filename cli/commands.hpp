@@ -37,6 +37,9 @@ int mesh_command(const std::string& model_path, const std::string& output, const
 
 /// Prints the mesher's warnings as FILE:LINE:COL: warning: ... on standard error.
 void print_warnings(const std::vector<MeshWarning>& warnings);
+/// Prints a time estimate when `frequencies` solves of `unknowns` (times `cases`) will take
+/// longer than about ten minutes here.
+void print_long_run_estimate(double unknowns, double frequencies, double cases = 1.0);
 
 struct ExportOptions {
   std::string result_path;

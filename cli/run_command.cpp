@@ -57,6 +57,7 @@ int run_command(const RunOptions& options) {
               count_text(thread_count(), "thread").c_str());
   for (const auto& v : model.values)
     if (v.overridden) std::printf("set %s = %.10g %s\n", v.name.c_str(), v.value, v.unit.c_str());
+  print_long_run_estimate(problem.unknowns(), static_cast<double>(model.frequencies_hz.size()));
   std::printf("\n");
 
   RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), options.command_line, options.tx_power_w}};

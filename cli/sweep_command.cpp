@@ -134,6 +134,9 @@ int sweep_command(const SweepOptions& options) {
     }
     const Model model = load_model(options.model_path, overrides_of(cases[c]));
     const AntennaProblem problem(model);
+    if (solved == 0)
+      print_long_run_estimate(problem.unknowns(), static_cast<double>(model.frequencies_hz.size()),
+                              static_cast<double>(cases.size() - c));
     for (const auto* list : {&problem.mesh.warnings, &problem.surfaces.warnings})
       for (const auto& w : *list)
         if (warned.insert(w.formatted()).second) std::fprintf(stderr, "\n%s (%s)\n", w.formatted().c_str(), case_name(c).c_str());

@@ -72,6 +72,21 @@ const Row& direction(const std::vector<Row>& rows, double frequency, double thet
   throw std::runtime_error("direction not in the pattern table");
 }
 
+// A run that will take more than about ten minutes says so before it starts; a short one
+// does not (the 1090 MHz demo solves in a second).
+TEST(DemoModels, CheckEstimatesTheTimeOfALongRun) {
+  const auto dir = fresh_directory("long-run");
+  const auto model = dir / "large_plate.lobe";
+  std::ofstream(model) << "units mm\nplate p rectangle corner (-300,-300,0) size (600, 600)\n"
+                          "wire w from (0,0,0) to (0,0,70) radius 0.5\nport f on w at start\n"
+                          "frequency 1 GHz to 2 GHz count 40\n";
+  const ProcessResult large = run_lobe("check '" + model.string() + "'", dir);
+  ASSERT_EQ(large.exit_code, 0) << large.err;
+  EXPECT_NE(large.out.find("estimated time: about "), std::string::npos) << large.out;
+  const ProcessResult small = run_lobe("check '" + std::string(LOBE_SOURCE_DIR) + "/models/monopole_plate_1090.lobe'", dir);
+  EXPECT_EQ(small.out.find("estimated time"), std::string::npos) << small.out;
+}
+
 TEST(DemoModels, CheckCountsWithoutSolving) {
   const auto dir = fresh_directory("check");
   const ProcessResult r = run_lobe("check '" + std::string(LOBE_SOURCE_DIR) + "/models/ground_plane_433.lobe'", dir);
