@@ -56,6 +56,9 @@ const std::vector<std::string_view>& function_names() {
 /// Nesting deeper than this is refused rather than risking the stack.
 constexpr int max_nesting = 200;
 
+/// Largest power of a base unit any intermediate value may carry.
+constexpr int max_unit_exponent = 64;
+
 class Evaluator {
  public:
   Evaluator(TokenCursor& cursor, const SymbolTable& symbols) : m_cursor(cursor), m_symbols(symbols) {}
@@ -258,8 +261,15 @@ class Evaluator {
                                      dimension_name(b.dim));
   }
 
+  /// Checked after every operation: a finite value, and unit exponents small enough that
+  /// the next operation cannot overflow them (repeated powers once wrapped m^(12^9) round to
+  /// a plain number).
   static void finite(const Quantity& q, const Token& at) {
     if (!std::isfinite(q.value)) throw InputError(at.where, "the value is not finite (overflow or undefined)");
+    for (int e : q.dim.exponent)
+      if (std::abs(e) > max_unit_exponent)
+        throw InputError(at.where, "a unit is raised beyond the " + std::to_string(max_unit_exponent) +
+                                       "th power; no quantity in a model needs that");
   }
 
   TokenCursor& m_cursor;

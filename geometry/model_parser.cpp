@@ -627,6 +627,12 @@ class ModelParser {
     } else {
       throw InputError(c.peek().where, "expected 'count N' or 'step DF' after the frequency range, found " + quoted(c.peek()));
     }
+    // The same frequency twice would be solved twice and break every curve drawn through it.
+    const auto& f = m_model.frequencies_hz;
+    for (std::size_t i = 1; i < f.size(); ++i)
+      if (f[i] - f[i - 1] <= 1e-12 * f[i])
+        throw InputError(stop_token.where, "this range gives frequency " + std::to_string(i + 1) +
+                                               " equal to the one before it; widen the range or give fewer frequencies");
   }
 
   void reference(TokenCursor& c) {
