@@ -1,10 +1,9 @@
 #include "cli/model_loading.hpp"
 
 #include <algorithm>
-#include <fstream>
-#include <sstream>
 
 #include "core/number_text.hpp"
+#include "core/text_file.hpp"
 
 namespace lobe::cli {
 
@@ -40,12 +39,7 @@ Band judged_band(const Model& model, const std::string& band_option) {
 }
 
 Model load_model(const std::string& path, const std::vector<Override>& overrides) {
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError({path, 1, 1}, "cannot open the model file");
-  std::ostringstream text;
-  text << in.rdbuf();
-  if (in.bad()) throw InputError({path, 1, 1}, "cannot read the model file");
-  return parse_model(text.str(), path, overrides);
+  return parse_model(read_text_file(path, max_model_bytes, "the model file"), path, overrides);
 }
 
 }  // namespace lobe::cli

@@ -17,7 +17,6 @@ constexpr int max_frequency_count = 10000;
 constexpr long max_pattern_points = 1000000;
 /// Far-field rows over all frequencies: beyond this the CSV alone passes several GB.
 constexpr double max_pattern_rows = 5e7;
-constexpr std::size_t max_model_bytes = 64u << 20;
 
 const std::set<std::string, std::less<>> statement_words = {
     "units", "let", "wire", "arc", "helix", "copy", "shift", "turn", "mirror", "port", "cut",

@@ -14,6 +14,9 @@ struct Override {
   SourceLocation where;
 };
 
+/// Largest model file read (far beyond any hand-written model).
+constexpr std::size_t max_model_bytes = 64u << 20;
+
 /// Parses a whole model. `file` is used in error locations only.
 Model parse_model(const std::string& text, const std::string& file,
                   const std::vector<Override>& overrides = {});

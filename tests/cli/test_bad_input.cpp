@@ -2,6 +2,8 @@
 // problem; nothing crashes or hangs, and no result file appears or is replaced.
 #include <gtest/gtest.h>
 
+#include <sys/stat.h>
+
 #include <regex>
 
 #include "cli/run_process.hpp"
@@ -19,6 +21,8 @@ std::string expected_message(const std::filesystem::path& file) {
   const std::string marker = "# expect: ";
   return first.rfind(marker, 0) == 0 ? first.substr(marker.size()) : "";
 }
+
+std::string quoted_path(const std::filesystem::path& path) { return "'" + path.string() + "'"; }
 
 /// Runs check and run on `model`; both must fail cleanly with `expected` in the message.
 void expect_clean_rejection(const std::filesystem::path& model, const std::string& expected) {
@@ -85,6 +89,21 @@ TEST(BadInput, EmptyFile) {
   expect_clean_rejection(model, "the model is empty");
 }
 
+// A model path that is no regular file is named for what it is, and nothing waits on it
+// (a FIFO with no writer, /dev/zero) or reads past the size limit (a sparse 70 MB file).
+TEST(BadInput, ModelPathThatIsNoModelFile) {
+  const auto dir = fresh_directory("generated-not-a-file");
+  expect_clean_rejection(dir, "the model file is a directory");
+  const auto fifo = dir / "pipe.lobe";
+  ASSERT_EQ(::mkfifo(fifo.c_str(), 0600), 0);
+  expect_clean_rejection(fifo, "is not a regular file");
+  expect_clean_rejection("/dev/zero", "is not a regular file");
+  const auto huge = dir / "huge.lobe";
+  std::ofstream{huge};
+  std::filesystem::resize_file(huge, 70u << 20);
+  expect_clean_rejection(huge, "larger than 64 MiB");
+}
+
 TEST(BadInput, MissingFile) {
   expect_clean_rejection(std::filesystem::temp_directory_path() / "lobe-no-such-model.lobe", "cannot open");
 }
@@ -124,8 +143,8 @@ TEST(BadInput, BadBandOption) {
 // frequencies for sweep --rank and tune, and a --vary product too large to build.
 TEST(BadInput, OptionsAreCheckedBeforeAnyWork) {
   const auto scratch = fresh_directory("bad-options");
-  const std::string model = "'" + std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe'";
-  const std::string out = " -o '" + (scratch / "out").string() + "'";
+  const std::string model = quoted_path(std::filesystem::path(LOBE_SOURCE_DIR) / "models" / "half_wave_dipole_ism.lobe");
+  const std::string out = " -o " + quoted_path(scratch / "out");
   for (const auto& [args, expected] : std::vector<std::pair<std::string, std::string>>{
            {"run " + model + out + " --tx-power nan", "--tx-power: "},
            {"run " + model + out + " --tx-power 1e308", "--tx-power: "},
