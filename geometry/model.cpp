@@ -19,22 +19,6 @@ std::vector<Real> inclusive_range(Real start, Real stop, Real step) {
 std::vector<Real> PatternGrid::thetas() const { return inclusive_range(theta_start, theta_stop, theta_step); }
 std::vector<Real> PatternGrid::phis() const { return inclusive_range(phi_start, phi_stop, phi_step); }
 
-const Wire* Model::find_wire(const std::string& name) const {
-  for (const auto& wire : wires)
-    if (wire.name == name) return &wire;
-  return nullptr;
-}
-
-const SurfaceShape* Model::find_surface(const std::string& name) const {
-  for (const auto& s : surfaces)
-    if (s.name == name) return &s;
-  return nullptr;
-}
-
-bool Model::has_object(const std::string& name) const {
-  return find_wire(name) || find_surface(name);
-}
-
 Real Model::highest_frequency() const {
   return frequencies_hz.empty() ? 0.0 : *std::max_element(frequencies_hz.begin(), frequencies_hz.end());
 }

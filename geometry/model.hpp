@@ -125,10 +125,6 @@ struct Model {
   PatternGrid pattern;
   std::vector<ResolvedValue> values;
 
-  const Wire* find_wire(const std::string& name) const;
-  const SurfaceShape* find_surface(const std::string& name) const;
-  /// True when a wire or surface already has this name.
-  bool has_object(const std::string& name) const;
   Real highest_frequency() const;
 };
 

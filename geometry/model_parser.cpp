@@ -6,6 +6,7 @@
 #include <map>
 #include <set>
 #include <sstream>
+#include <unordered_map>
 
 #include "core/constants.hpp"
 #include "geometry/expression.hpp"
@@ -42,6 +43,12 @@ std::string si_unit_text(const Dimension& d) {
 /// Bounds on every length in a model, m (see ModelParser::length and positive_length).
 constexpr Real largest_length = 1e5;
 constexpr Real smallest_length = 1e-7;
+
+/// Where a named object sits: in Model::wires or Model::surfaces, at `index`.
+struct ObjectIndex {
+  bool wire = true;
+  std::size_t index = 0;
+};
 
 class ModelParser {
  public:
@@ -245,7 +252,7 @@ class ModelParser {
 
   Wire new_wire(TokenCursor& c, const Token& keyword) {
     const Token& name = c.expect_name("a name for the " + keyword.text);
-    if (m_model.has_object(name.text)) throw InputError(name.where, "'" + name.text + "' is already the name of an object");
+    if (object(name.text)) throw InputError(name.where, "'" + name.text + "' is already the name of an object");
     Wire w;
     w.name = name.text;
     w.where = keyword.where;
@@ -277,22 +284,38 @@ class ModelParser {
 
   void add_wire(Wire w) {
     if (w.conductivity == 0.0) w.conductivity = m_conductivity_for_all;
+    m_objects.emplace(w.name, ObjectIndex{true, m_model.wires.size()});
     m_model.wires.push_back(std::move(w));
   }
 
+  void add_surface(SurfaceShape s) {
+    m_objects.emplace(s.name, ObjectIndex{false, m_model.surfaces.size()});
+    m_model.surfaces.push_back(std::move(s));
+  }
+
+  /// Names are looked up in a hash map: a model of 80,000 wires once took 43 s to parse
+  /// when every new name was compared with every old one.
+  const ObjectIndex* object(const std::string& name) const {
+    const auto found = m_objects.find(name);
+    return found == m_objects.end() ? nullptr : &found->second;
+  }
+
   Wire& existing_wire(const Token& name) {
-    for (auto& w : m_model.wires)
-      if (w.name == name.text) return w;
-    throw InputError(name.where, "there is no wire named '" + name.text + "'");
+    const ObjectIndex* o = object(name.text);
+    if (!o || !o->wire) throw InputError(name.where, "there is no wire named '" + name.text + "'");
+    return m_model.wires[o->index];
+  }
+
+  SurfaceShape* find_surface(const std::string& name) {
+    const ObjectIndex* o = object(name);
+    return o && !o->wire ? &m_model.surfaces[o->index] : nullptr;
   }
 
   /// The transform of a named wire or surface.
   Affine& object_transform(const Token& name) {
-    for (auto& w : m_model.wires)
-      if (w.name == name.text) return w.transform;
-    for (auto& s : m_model.surfaces)
-      if (s.name == name.text) return s.transform;
-    throw InputError(name.where, "there is no wire, plate or body named '" + name.text + "'");
+    const ObjectIndex* o = object(name.text);
+    if (!o) throw InputError(name.where, "there is no wire, plate or body named '" + name.text + "'");
+    return o->wire ? m_model.wires[o->index].transform : m_model.surfaces[o->index].transform;
   }
 
   void copy(TokenCursor& c) {
@@ -300,7 +323,7 @@ class ModelParser {
     object_transform(source);  // it must exist
     c.expect_word("as", "after the copied name");
     const Token& new_name = c.expect_name("the name of the copy");
-    if (m_model.has_object(new_name.text))
+    if (object(new_name.text))
       throw InputError(new_name.where, "'" + new_name.text + "' is already the name of an object");
     Affine transform = object_transform(source);
     while (!c.at_end()) {
@@ -308,23 +331,20 @@ class ModelParser {
       else if (c.accept_word("turn")) transform = rotation(c) * transform;
       else throw InputError(c.peek().where, "unexpected " + quoted(c.peek()) + "; copy takes 'shift V' and 'turn about AXIS by A'");
     }
-    if (const Wire* wire = m_model.find_wire(source.text)) {
-      Wire w = *wire;
+    const ObjectIndex o = *object(source.text);
+    if (o.wire) {
+      Wire w = m_model.wires[o.index];
       w.name = new_name.text;
       w.where = source.where;
       w.transform = transform;
       add_wire(std::move(w));
-      return;
+    } else {
+      SurfaceShape s = m_model.surfaces[o.index];
+      s.name = new_name.text;
+      s.where = source.where;
+      s.transform = transform;
+      add_surface(std::move(s));
     }
-    for (const auto& shape : m_model.surfaces)
-      if (shape.name == source.text) {
-        SurfaceShape s = shape;
-        s.name = new_name.text;
-        s.where = source.where;
-        s.transform = transform;
-        m_model.surfaces.push_back(std::move(s));
-        return;
-      }
   }
 
   void shift(TokenCursor& c) {
@@ -367,7 +387,7 @@ class ModelParser {
 
   SurfaceShape new_surface(TokenCursor& c, const Token& keyword) {
     const Token& name = c.expect_name("a name for the " + keyword.text);
-    if (m_model.has_object(name.text)) throw InputError(name.where, "'" + name.text + "' is already the name of an object");
+    if (object(name.text)) throw InputError(name.where, "'" + name.text + "' is already the name of an object");
     SurfaceShape s;
     s.name = name.text;
     s.where = keyword.where;
@@ -377,7 +397,7 @@ class ModelParser {
   void plate(TokenCursor& c, const Token& keyword) {
     SurfaceShape s = new_surface(c, keyword);
     outline(c, s, true);
-    m_model.surfaces.push_back(std::move(s));
+    add_surface(std::move(s));
   }
 
   /// A rectangle, polygon or disc outline; a plate states its own normal, a cut takes its
@@ -439,7 +459,7 @@ class ModelParser {
     s.corner = point(c);
     c.expect_word("diameter", "after the centre");
     s.diameter = positive_length(c, "a sphere diameter");
-    m_model.surfaces.push_back(std::move(s));
+    add_surface(std::move(s));
   }
 
   void box(TokenCursor& c, const Token& keyword) {
@@ -451,19 +471,16 @@ class ModelParser {
     const Token& at = c.peek();
     s.size = point(c);
     if (!(s.size.minCoeff() > 0.0)) throw InputError(at.where, "a box's sizes must all be above zero");
-    m_model.surfaces.push_back(std::move(s));
+    add_surface(std::move(s));
   }
 
   void mesh(TokenCursor& c) {
     const Token& name = c.expect_name("the name of a plate or body");
     c.expect_word("size", "after the name");
     const Real size = positive_length(c, "a mesh size");
-    for (auto& s : m_model.surfaces)
-      if (s.name == name.text) {
-        s.mesh_size = size;
-        return;
-      }
-    throw InputError(name.where, "there is no plate or body named '" + name.text + "'");
+    SurfaceShape* s = find_surface(name.text);
+    if (!s) throw InputError(name.where, "there is no plate or body named '" + name.text + "'");
+    s->mesh_size = size;
   }
 
   void wave(TokenCursor& c, const Token& keyword) {
@@ -809,14 +826,14 @@ class ModelParser {
                                             " far-field rows; at most " + number_text(max_pattern_rows) +
                                             " are allowed: use a coarser grid or fewer frequencies");
     auto check_position = [&](const WirePosition& p) {
-      if (!m_model.find_wire(p.wire)) throw InputError(p.wire_where, "there is no wire named '" + p.wire + "'");
+      if (const ObjectIndex* o = object(p.wire); !o || !o->wire) throw InputError(p.wire_where, "there is no wire named '" + p.wire + "'");
     };
     for (const auto& p : m_model.ports) {
       if (!p.line) {
         check_position(p.position);
         continue;
       }
-      const SurfaceShape* plate = m_model.find_surface(p.line->plate);
+      const SurfaceShape* plate = find_surface(p.line->plate);
       if (!plate) throw InputError(p.line->plate_where, "there is no plate named '" + p.line->plate + "'");
       if (plate->kind == SurfaceKind::sphere || plate->kind == SurfaceKind::box)
         throw InputError(p.line->plate_where, "'" + p.line->plate + "' is a closed body; a port line goes across a plate");
@@ -828,6 +845,7 @@ class ModelParser {
   Model m_model;
   SymbolTable m_symbols;
   std::map<std::string, Override> m_overrides;
+  std::unordered_map<std::string, ObjectIndex> m_objects;
   std::set<std::string> m_used_overrides;
   Real m_conductivity_for_all = 0.0;
   int m_last_line = 1;

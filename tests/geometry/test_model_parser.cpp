@@ -1,10 +1,14 @@
 #include <gtest/gtest.h>
 
+#include <algorithm>
+#include <chrono>
 #include <cmath>
+#include <cstdio>
 
 #include "core/constants.hpp"
 #include "core/number_text.hpp"
 #include "geometry/model_parser.hpp"
+#include "geometry/wire_mesh.hpp"
 
 namespace lobe {
 namespace {
@@ -146,6 +150,38 @@ TEST(ModelParser, VariedValuesAreShownInTheUnitsGiven) {
   const TunedName f = parse_tune_option("f0=2.40GHz:2.48GHz", 1);
   EXPECT_EQ(shown_text(f.low, f.shown), "2.4 GHz");
   EXPECT_EQ(shown_text(0.1613331647701374, parse_tune_option("l=150mm:175mm", 1).shown), "161.3331648 mm");
+}
+
+/// A grid of short vertical wires, `count` of them, 10 mm apart.
+std::string many_wires(int count) {
+  std::string text = "units mm\n";
+  for (int i = 0; i < count; ++i)
+    text += "wire w" + std::to_string(i) + " from (" + std::to_string(i % 400 * 10) + ", " + std::to_string(i / 400 * 10) +
+            ", 0) to (" + std::to_string(i % 400 * 10) + ", " + std::to_string(i / 400 * 10) + ", 5) radius 0.1 segments 1\n";
+  return text + "port p on w0 at middle\nfrequency 100 MHz\n";
+}
+
+double median_seconds_to_parse_and_mesh(const std::string& text) {
+  std::vector<double> seconds;
+  for (int r = 0; r < 3; ++r) {
+    const auto start = std::chrono::steady_clock::now();
+    const Model m = parse_model(text, "m");
+    mesh_wires(m);
+    seconds.push_back(std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count());
+  }
+  std::sort(seconds.begin(), seconds.end());
+  return seconds[1];
+}
+
+// Reading and meshing grow about linearly with the number of wires: 80,000 wires once took
+// 43 s because every new name was compared with every earlier one. A ratio of times on one
+// machine in one run, not an absolute time: four times the wires must cost well under the
+// sixteen times a quadratic step would (linear gives about four).
+TEST(ModelParser, ParsingAndMeshingGrowNearlyLinearly) {
+  const double small = median_seconds_to_parse_and_mesh(many_wires(5000));
+  const double large = median_seconds_to_parse_and_mesh(many_wires(20000));
+  std::printf("5,000 wires: %.3f s, 20,000 wires: %.3f s, ratio %.1f\n", small, large, large / small);
+  EXPECT_LT(large / small, 8.0);
 }
 
 }  // namespace
