@@ -68,10 +68,12 @@ class ModelParser {
     if (text.size() > max_model_bytes)
       throw InputError({m_file, 1, 1}, "the model file is larger than 64 MiB; it cannot be a model");
     int line_number = 0;
-    std::size_t start = 0;
+    // A UTF-8 byte-order mark, as some Windows editors write, is not part of the model.
+    std::size_t start = text.rfind("\xEF\xBB\xBF", 0) == 0 ? 3 : 0;
     bool any_statement = false;
     while (start <= text.size()) {
-      std::size_t end = text.find('\n', start);
+      // Lines end in LF, CR LF or a lone CR (old Mac editors).
+      std::size_t end = text.find_first_of("\r\n", start);
       if (end == std::string::npos) end = text.size();
       ++line_number;
       const auto tokens = tokenize_line(std::string_view(text).substr(start, end - start), m_file, line_number);
@@ -82,7 +84,7 @@ class ModelParser {
       }
       m_last_line = line_number;
       if (end == text.size()) break;
-      start = end + 1;
+      start = end + (text.compare(end, 2, "\r\n") == 0 ? 2 : 1);
     }
     if (!any_statement) throw InputError({m_file, 1, 1}, "the model is empty: it has no statements");
     finish();
@@ -419,6 +421,8 @@ class ModelParser {
       s.kind = SurfaceKind::polygon;
       s.polygon.clear();
       while (c.peek_symbol('(')) s.polygon.push_back(point(c));
+      // Closing the outline by repeating the first corner is a common way to write it.
+      if (s.polygon.size() > 3 && s.polygon.back() == s.polygon.front()) s.polygon.pop_back();
       if (s.polygon.size() < 3) throw InputError(c.peek().where, "a polygon needs at least three corners");
     } else if (kind.text == "disc") {
       s.kind = SurfaceKind::disc;

@@ -152,6 +152,20 @@ TEST(ModelParser, VariedValuesAreShownInTheUnitsGiven) {
   EXPECT_EQ(shown_text(0.1613331647701374, parse_tune_option("l=150mm:175mm", 1).shown), "161.3331648 mm");
 }
 
+// What editors write: a UTF-8 byte-order mark is skipped, lines may end in CR LF or a lone
+// CR (errors still name the right line), and a polygon may repeat its first corner to close.
+TEST(ModelParser, ReadsWhatEditorsWrite) {
+  const Model bom = parse_model("\xEF\xBB\xBF" + base, "m");
+  EXPECT_EQ(bom.wires.size(), 1u);
+  std::string cr = base, crlf;
+  std::replace(cr.begin(), cr.end(), '\n', '\r');
+  EXPECT_EQ(parse_model(cr, "m").ports.size(), 1u);
+  for (char ch : base + "x\n") crlf += ch == '\n' ? std::string("\r\n") : std::string(1, ch);
+  EXPECT_EQ(error_of(crlf).rfind("m.lobe:4:1: unknown statement 'x'", 0), 0u) << error_of(crlf);
+  const Model closed = parse_model("plate p polygon (0,0,0) (1,0,0) (1,1,0) (0,1,0) (0,0,0)\n" + base, "m");
+  EXPECT_EQ(closed.surfaces.front().polygon.size(), 4u);
+}
+
 /// A grid of short vertical wires, `count` of them, 10 mm apart.
 std::string many_wires(int count) {
   std::string text = "units mm\n";
