@@ -47,6 +47,7 @@ struct ExportOptions {
   std::string format = "ri";  ///< ri, ma or db
   std::string unit = "GHz";   ///< Hz, kHz, MHz or GHz
   int version = 1;            ///< Touchstone 1 or 2
+  std::string case_name;      ///< for a sweep file: the case to export ("case-000003")
 };
 
 /// Writes a result file's port S-parameters as Touchstone.
@@ -58,7 +59,13 @@ struct CompareOptions {
   std::string port;                       ///< empty: the first port
   std::vector<std::string> band_options;  ///< LOW:HIGH; none: the overlap of the two curves
   std::optional<double> tx_power_w;       ///< forward power for reflected-power figures
+  std::string case_name;                  ///< for a sweep file: the case to compare
 };
+
+/// The group of `path` to read results from: "" for a run's file, "/case-NNNNNN" for the
+/// case `case_option` of a sweep file. Refuses a sweep file without --case (saying how to
+/// pick one) and --case on a single result.
+std::string result_group(const std::string& path, const std::string& case_option);
 
 /// Compares a result's reflection with a measured one (Touchstone or CSV) and prints dips,
 /// differences, the best frequency-scale factor and band reports side by side.

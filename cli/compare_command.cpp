@@ -42,8 +42,9 @@ std::string band_line(const char* label, const PortBandReport& r) {
 }  // namespace
 
 int compare_command(const CompareOptions& options) {
-  const NetworkData network = read_result_network(options.result_path);
-  const std::vector<std::string> names = read_result_port_names(options.result_path);
+  const std::string group = result_group(options.result_path, options.case_name);
+  const NetworkData network = read_result_network(options.result_path, group);
+  const std::vector<std::string> names = read_result_port_names(options.result_path, group);
   int port = 0;
   if (!options.port.empty()) {
     const auto found = std::find(names.begin(), names.end(), options.port);

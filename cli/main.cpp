@@ -81,6 +81,7 @@ int main(int argc, char** argv) {
       ->check(CLI::IsMember({"ri", "ma", "db"}));
   export_app->add_option("--unit", export_options.unit, "Frequency unit: Hz, kHz, MHz or GHz (default GHz)")
       ->check(CLI::IsMember({"Hz", "kHz", "MHz", "GHz"}));
+  export_app->add_option("--case", export_options.case_name, "For a sweep file: the case to export, e.g. case-000003");
   export_app->add_option("--touchstone-version", export_options.version, "Touchstone version 1 or 2 (default 1)")
       ->check(CLI::IsMember({1, 2}));
 
@@ -91,6 +92,7 @@ int main(int argc, char** argv) {
   compare_app->add_option("--port", compare.port, "The result's port to compare (default: the first)");
   compare_app->add_option("--band", compare.band_options, "A band to report: LOW:HIGH (repeatable; default: the overlap)")
       ->allow_extra_args(false);
+  compare_app->add_option("--case", compare.case_name, "For a sweep file: the case to compare, e.g. case-000003");
   compare_app->add_option("--tx-power", compare.tx_power_w, "Transmitter forward power in W: the worst reflected power")
       ->check(transmit_power);
 

@@ -14,6 +14,7 @@
 #include "cli/run_process.hpp"
 #include "post/band_report.hpp"
 #include "post/result_reader.hpp"
+#include "post/touchstone.hpp"
 #include "support/xml_check.hpp"
 
 namespace lobe::testing {
@@ -168,6 +169,29 @@ TEST(Sweep, ShowsTheMeshWarningsOfItsCases) {
   const auto first = r.err.find("radii long");
   ASSERT_NE(first, std::string::npos) << r.err;
   EXPECT_EQ(r.err.find("radii long", first + 1), std::string::npos) << r.err;
+}
+
+// A sweep file given to export or compare is named as such, with how to pick a case; with
+// --case the case is exported like a single result, and -o may name a directory.
+TEST(Sweep, ExportAndCompareTakeACaseOfASweepFile) {
+  const auto dir = fresh_directory("sweep-case");
+  const auto sweep = dir / "s.h5";
+  ASSERT_EQ(run_lobe("sweep '" + models + "half_wave_dipole_ism.lobe' --vary rod=0.5,2 -o '" + sweep.string() + "'", dir).exit_code, 0);
+  const std::string measured = " '" + models + "ground_plane_433_measured.csv'";
+  for (const std::string& command : {"export '" + sweep.string() + "' --touchstone", "compare '" + sweep.string() + "'" + measured}) {
+    const ProcessResult r = run_lobe(command, dir);
+    EXPECT_EQ(r.exit_code, 2) << command;
+    EXPECT_NE(r.err.find("this is a sweep file of 2 cases; pick one with --case case-000001"), std::string::npos) << r.err;
+  }
+  std::filesystem::create_directories(dir / "out");
+  const ProcessResult exported =
+      run_lobe("export '" + sweep.string() + "' --touchstone --case case-000002 -o '" + (dir / "out").string() + "'", dir);
+  ASSERT_EQ(exported.exit_code, 0) << exported.err;
+  const NetworkData written = read_touchstone(dir / "out" / "s_case-000002.s1p");
+  const NetworkData second = read_result_network(sweep, "/case-000002");
+  ASSERT_EQ(written.s.size(), second.s.size());
+  EXPECT_EQ(written.s.back()(0, 0), second.s.back()(0, 0));  // written to full precision
+  EXPECT_EQ(run_lobe("export '" + sweep.string() + "' --touchstone --case case-000009", dir).exit_code, 2);
 }
 
 // plot on a sweep file maps the band figure of every case, each recomputed here from the
