@@ -53,7 +53,7 @@ std::string exposure_text(const RunRecord& run, Real forward_w) {
       "  far-field power density S = P G / (4 pi r^2) in free space, P all the forward power, G the peak gain in any "
       "direction;\n  limits for the general public, whole body, averaged over 30 minutes\n",
       forward_w, driven, driven == 1 ? "" : "s");
-  Real nearest = 1e300, nearest_start = 0.0;
+  bool any_near = false;
   for (const auto& band : bands) {
     out += "  " + band.name + " (" + frequency_text(band.low_hz) + " to " + frequency_text(band.high_hz) + "):\n";
     for (std::size_t rule = 0; rule < 2; ++rule) {
@@ -73,16 +73,20 @@ std::string exposure_text(const RunRecord& run, Real forward_w) {
       out += formatted("    %-14s limit %6.3g W/m^2 at %s; EIRP %.3g W (peak gain %.2f dBi): under it beyond %.2f m\n",
                        worst_figure.rule.c_str(), *worst_figure.limit_w_m2, frequency_text(worst->frequency_hz).c_str(),
                        eirp, worst->peak_gain_dbi, *worst_figure.distance_m);
+      // Every distance inside its near-field bound is flagged, not only the nearest one.
       const Real start = far_field_start_m(size, worst->frequency_hz);
-      if (*worst_figure.distance_m < start && *worst_figure.distance_m < nearest)
-        nearest = *worst_figure.distance_m, nearest_start = start;
+      if (*worst_figure.distance_m < start) {
+        any_near = true;
+        out += formatted("      ! %.2f m is inside this antenna's near field, where the formula does not hold: the limit "
+                         "may not be met closer than %.2f m\n",
+                         *worst_figure.distance_m, start);
+      }
     }
   }
-  if (nearest < 1e300)
-    out += formatted("  ! %.2f m is inside this antenna's near field (the far-field formula needs max(2 D^2 / lambda, lambda) "
-                     "= %.2f m, D = %.2f m):\n    the far-field formula does not hold there, so this estimate cannot tell whether "
-                     "the limits are met closer than %.2f m\n",
-                     nearest, nearest_start, size, nearest_start);
+  if (any_near)
+    out += formatted("  ! marks a distance inside the near field: the far-field formula needs r >= max(2 D^2 / lambda, lambda), "
+                     "D = %.2f m\n",
+                     size);
   out += "  Cautions for this estimate:\n"
          "    - ground or nearby metal reflecting in phase can double the field (four times the density): twice these "
          "distances\n"

@@ -339,6 +339,20 @@ TEST(DemoModels, ExposureDistanceFollowsThePeakGain) {
   EXPECT_NE(r.out.find("local regulations and licensed practice decide"), std::string::npos);
 }
 
+// At 1 W both rule sets' distances (about 0.17 and 0.15 m) lie inside the dipole's near-field
+// bound max(2 D^2 / lambda, lambda) = 0.345 m: each is flagged, not only the nearest.
+TEST(DemoModels, ExposureFlagsEveryDistanceInsideTheNearField) {
+  const auto dir = fresh_directory("exposure-near");
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
+  const ProcessResult r = run_lobe("run '" + model + "' -o '" + (dir / "out").string() + "' --tx-power 1", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  std::size_t flagged = 0;
+  for (auto at = r.out.find("is inside this antenna's near field"); at != std::string::npos;
+       at = r.out.find("is inside this antenna's near field", at + 1))
+    ++flagged;
+  EXPECT_EQ(flagged, 2u) << r.out;
+}
+
 // plot writes its six figures as well-formed SVG with the model's band shaded and the
 // measured curve overlaid.
 TEST(DemoModels, PlotWritesWellFormedFigures) {
