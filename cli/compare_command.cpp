@@ -4,6 +4,7 @@
 #include <filesystem>
 
 #include "cli/commands.hpp"
+#include "core/formatted_text.hpp"
 #include "geometry/model_parser.hpp"
 #include "post/curve_comparison.hpp"
 #include "post/measured_csv.hpp"
@@ -32,11 +33,9 @@ MeasuredCurve read_measured(const std::string& path, Real reference_ohm) {
 namespace {
 
 std::string band_line(const char* label, const PortBandReport& r) {
-  char text[256];
-  std::snprintf(text, sizeof text, "  %-10s VSWR best %.3g at %s, mean %.3g, worst %.3g at %s; VSWR <= 2 over %.0f%%\n",
-                label, r.lowest_vswr.value, frequency_text(r.lowest_vswr.frequency_hz).c_str(), r.mean_vswr,
-                r.highest_vswr.value, frequency_text(r.highest_vswr.frequency_hz).c_str(), 100 * r.fraction_within);
-  return text;
+  return formatted("  %-10s VSWR best %.3g at %s, mean %.3g, worst %.3g at %s; %s\n", label, r.lowest_vswr.value,
+                   frequency_text(r.lowest_vswr.frequency_hz).c_str(), r.mean_vswr, r.highest_vswr.value,
+                   frequency_text(r.highest_vswr.frequency_hz).c_str(), share_within_text(r).c_str());
 }
 
 }  // namespace

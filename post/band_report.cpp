@@ -43,6 +43,7 @@ PortBandReport band_report(const ReflectionCurve& curve, Real low_hz, Real high_
   report.covered_high_hz = std::min(high_hz, f.back());
   if (report.covered_low_hz > report.covered_high_hz)
     throw std::invalid_argument("the band lies outside the frequencies of the curve");
+  if (high_hz > low_hz) report.covered_share = (report.covered_high_hz - report.covered_low_hz) / (high_hz - low_hz);
   const LinearMagnitude magnitude{curve};
   const Real threshold = (vswr_threshold - 1) / (vswr_threshold + 1);
 

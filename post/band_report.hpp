@@ -26,6 +26,7 @@ struct AtFrequency {
 /// does not weight any part of the band more than another.
 struct PortBandReport {
   Real covered_low_hz = 0.0, covered_high_hz = 0.0;  ///< the part of the band the samples cover
+  Real covered_share = 1.0;  ///< of the band's width (1 when the samples cover all of it)
   AtFrequency lowest_vswr, highest_vswr;
   Real mean_vswr = 0.0;
   Real mean_mismatch_loss_db = 0.0;

@@ -51,7 +51,7 @@ std::string band_text(const RunRecord& run, const Band& band) {
                          model.ports[p].name.c_str(), b.lowest_vswr.value, frequency_text(b.lowest_vswr.frequency_hz).c_str(),
                          b.mean_vswr, b.highest_vswr.value, frequency_text(b.highest_vswr.frequency_hz).c_str(),
                          b.mean_mismatch_loss_db);
-    out += formatted("  %-15s VSWR <= %.3g over %.0f%% of the band; ", "", b.vswr_threshold, 100 * b.fraction_within);
+    out += formatted("  %-15s %s; ", "", share_within_text(b).c_str());
     if (const auto& s = b.return_loss_10db)
       out += formatted("return loss >= 10 dB from %s%s to %s%s\n", s->open_low ? "below " : "",
                            frequency_text(s->low_hz).c_str(), frequency_text(s->high_hz).c_str(),
@@ -166,6 +166,14 @@ std::string run_summary(const RunRecord& run) {
          "  - Which bands and powers you may transmit with depends on your licence and country.\n"
          "    Local regulations and licensed practice take precedence over anything this tool prints.\n";
   return out;
+}
+
+std::string share_within_text(const PortBandReport& r) {
+  if (r.covered_share >= 1.0 - 1e-12)
+    return formatted("VSWR <= %.3g over %.0f%% of the band", r.vswr_threshold, 100 * r.fraction_within);
+  return formatted("VSWR <= %.3g over %.0f%% of the covered %.0f%% of the band (%s to %s; the rest is not computed)",
+                   r.vswr_threshold, 100 * r.fraction_within, 100 * r.covered_share,
+                   frequency_text(r.covered_low_hz).c_str(), frequency_text(r.covered_high_hz).c_str());
 }
 
 }  // namespace lobe

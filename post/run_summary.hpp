@@ -2,6 +2,7 @@
 /// The compact text summary printed after a run.
 #include <string>
 
+#include "post/band_report.hpp"
 #include "post/run_record.hpp"
 
 namespace lobe {
@@ -17,6 +18,12 @@ constexpr Real ill_conditioned_rcond = 1e-10;
 
 /// "868.000 MHz", "1.5754 GHz": a frequency with a unit that suits it.
 std::string frequency_text(Real hz);
+
+/// "VSWR <= 2 over 80% of the band", or, when the samples cover only part of it, the share
+/// of that part and how much of the band it is: "... over 100% of the covered 60% of the
+/// band (433.050 to 434.000 MHz)", so that a half-computed band never reads as wholly good.
+std::string share_within_text(const PortBandReport& report);
+
 
 /// "1 port", "3 ports"; `plural` when adding "s" is wrong.
 std::string count_text(std::size_t count, const std::string& noun, const std::string& plural = "");

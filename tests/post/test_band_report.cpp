@@ -6,6 +6,7 @@
 #include "core/constants.hpp"
 #include "post/band_report.hpp"
 #include "post/port_quantities.hpp"
+#include "post/run_summary.hpp"
 
 namespace lobe {
 namespace {
@@ -83,6 +84,11 @@ TEST(BandReport, UnevenSamplesAndPartialCover) {
   const PortBandReport partial = band_report(curve, 1.05e9, 1.2e9);
   EXPECT_DOUBLE_EQ(partial.covered_low_hz, 1.05e9);
   EXPECT_DOUBLE_EQ(partial.covered_high_hz, 1.1e9);
+  // The share under VSWR 2 is of the covered third and says so on its line, never "of the band".
+  EXPECT_NEAR(partial.covered_share, 1.0 / 3.0, 1e-12);
+  const std::string share = share_within_text(partial);
+  EXPECT_NE(share.find("of the covered 33% of the band"), std::string::npos) << share;
+  EXPECT_EQ(share_within_text(r).find("covered"), std::string::npos) << share_within_text(r);
   EXPECT_THROW(band_report(curve, 1.2e9, 1.3e9), std::invalid_argument);
   // Sampled only where the return loss exceeds 10 dB: the stretch is open at both ends.
   const PortBandReport narrow = band_report(sampled(0.999e9, 1.001e9, 10), 0.9995e9, 1.0005e9);
