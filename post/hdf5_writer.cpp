@@ -8,6 +8,7 @@
 
 #include "core/constants.hpp"
 #include "post/hdf5_handle.hpp"
+#include "post/run_summary.hpp"
 #include "post/scattering_result.hpp"
 
 namespace lobe {
@@ -96,6 +97,7 @@ void write_model(hid_t file, const RunRecord& run) {
   std::vector<std::string> warnings;
   for (const auto* list : {&run.problem.mesh.warnings, &run.problem.surfaces.warnings})
     for (const auto& w : *list) warnings.push_back(w.formatted());
+  for (const auto& w : power_balance_warnings(run)) warnings.push_back("warning: " + w);
   write_strings(g, "warnings", warnings);
   write_strings(g, "value_names", names);
   write_reals(g, "values", {values.size()}, values, "SI, per value_units");
@@ -158,6 +160,7 @@ void write_power(hid_t file, const RunRecord& run) {
   power("conductor_loss_w", "W", [](const PowerBudget& p) { return p.conductor_loss; });
   power("load_loss_w", "W", [](const PowerBudget& p) { return p.load_loss; });
   power("efficiency", "1", [](const PowerBudget& p) { return p.efficiency(); });
+  power("balance_miss", "1", [](const PowerBudget& p) { return p.imbalance(); });
 }
 
 void write_pattern(hid_t file, const RunRecord& run) {

@@ -130,10 +130,11 @@ std::string run_summary(const RunRecord& run) {
                        "efficiency");
   for (const auto& r : run.results) {
     const std::string direction = formatted("%.0f/%.0f deg", r.peak_theta * 180 / pi, r.peak_phi * 180 / pi);
-    out += formatted("%-14s %11.2f %15s %12.2f %7s %9.1f%%\n", frequency_text(r.frequency_hz).c_str(),
+    out += formatted("%-14s %11.2f %15s %12.2f %7s %9.1f%%%s\n", frequency_text(r.frequency_hz).c_str(),
                          r.peak_gain_dbi, direction.c_str(), r.peak_axial_ratio_db, hand_name(r.peak_hand),
-                         100.0 * r.power.efficiency());
+                         100.0 * r.power.efficiency(), std::abs(r.power.imbalance()) > power_balance_warning ? " !" : "");
   }
+  for (const std::string& w : power_balance_warnings(run)) out += "! " + w + "\n";
 
   for (const auto& band : model.bands) out += band_text(run, band);
 
@@ -166,6 +167,20 @@ std::string run_summary(const RunRecord& run) {
          "  - Which bands and powers you may transmit with depends on your licence and country.\n"
          "    Local regulations and licensed practice take precedence over anything this tool prints.\n";
   return out;
+}
+
+std::vector<std::string> power_balance_warnings(const RunRecord& run) {
+  std::vector<std::string> warnings;
+  for (const auto& r : run.results) {
+    const Real miss = r.power.imbalance();
+    if (std::abs(miss) <= power_balance_warning) continue;
+    warnings.push_back(formatted("power balance at %s misses by %.2g%%: radiated and lost power %s the accepted power, so "
+                                 "efficiency (%.1f%%) and gain are uncertain by about that much; refine the mesh near "
+                                 "feeds and junctions",
+                                 frequency_text(r.frequency_hz).c_str(), 100 * std::abs(miss),
+                                 miss < 0 ? "exceed" : "fall short of", 100 * r.power.efficiency()));
+  }
+  return warnings;
 }
 
 std::string share_within_text(const PortBandReport& r) {

@@ -16,6 +16,14 @@ constexpr Real vswr_caution_threshold = 2.0;
 /// reach 1e9 without harm, since the EFIE's condition grows as the mesh refines.
 constexpr Real ill_conditioned_rcond = 1e-10;
 
+/// How far the power balance ½Re(V I*) = radiated + lost may miss before the summary and the
+/// result file warn: the tolerance every reference case holds to.
+constexpr Real power_balance_warning = 1e-3;
+
+/// One warning per frequency whose power balance misses by more than power_balance_warning
+/// (an efficiency above 100 % among them), for the summary and the result file.
+std::vector<std::string> power_balance_warnings(const RunRecord& run);
+
 /// "868.000 MHz", "1.5754 GHz": a frequency with a unit that suits it.
 std::string frequency_text(Real hz);
 
