@@ -255,10 +255,16 @@ class Evaluator {
     return result;
   }
 
+  /// Sums need one dimension. A bare number is read in the model's units only where a
+  /// length is expected as a whole, never inside arithmetic, so the message says how to
+  /// write it.
   static void require_same(const Quantity& a, const Quantity& b, const Token& op, const char* verb) {
-    if (a.dim != b.dim)
-      throw InputError(op.where, std::string("cannot ") + verb + " " + dimension_name(a.dim) + " and " +
-                                     dimension_name(b.dim));
+    if (a.dim == b.dim) return;
+    std::string message = std::string("cannot ") + verb + " " + dimension_name(a.dim) + " and " + dimension_name(b.dim);
+    if (a.dim.is_none() || b.dim.is_none())
+      message += ": inside arithmetic a bare number has no unit; give it one where it is written (0.6 mm) or where "
+                 "it is defined (let s = 0.6 mm)";
+    throw InputError(op.where, message);
   }
 
   /// Checked after every operation: a finite value, and unit exponents small enough that
