@@ -1,5 +1,6 @@
 #include "post/result_reader.hpp"
 
+#include <cmath>
 #include <vector>
 
 #include "core/input_error.hpp"
@@ -7,12 +8,30 @@
 
 namespace lobe {
 
+namespace {
+
+/// Refuses NaN and infinite values: copied on into a Touchstone file or a chart they would
+/// pass for results.
+void require_finite(const std::vector<Real>& values, const std::string& name, const SourceLocation& where) {
+  for (Real v : values)
+    if (!std::isfinite(v)) throw InputError(where, "'" + name + "' holds a value that is not a finite number");
+}
+
+}  // namespace
+
 std::vector<std::string> read_result_port_names(const std::filesystem::path& path, const std::string& group) {
+  const SourceLocation where{path.string(), 1, 1};
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
   if (!hdf5_exists(file, group + "/ports/names"))
-    throw InputError({path.string(), 1, 1}, "this is not a lobe antenna result (it has no /ports/names)");
-  std::vector<hsize_t> dims;
-  return read_strings(file, group + "/ports/names", dims);
+    throw InputError(where, "this is not a lobe antenna result (it has no /ports/names)");
+  std::vector<hsize_t> dims, s_dims;
+  std::vector<std::string> names = read_strings(file, group + "/ports/names", dims);
+  read_reals(file, group + "/ports/s_matrix_re", s_dims);
+  if (names.empty() || dims.size() != 1 || (s_dims.size() == 3 && s_dims[1] != names.size()))
+    throw InputError(where, "the port names of this result do not match its ports");
+  for (const std::string& name : names)
+    if (name.empty()) throw InputError(where, "a port of this result has an empty name");
+  return names;
 }
 
 PatternData read_result_pattern(const std::filesystem::path& path) {
@@ -28,8 +47,13 @@ PatternData read_result_pattern(const std::filesystem::path& path) {
   d.rhcp_dbi = read_reals(file, "/pattern/rhcp_dbi", dims);
   d.lhcp_dbi = read_reals(file, "/pattern/lhcp_dbi", dims);
   d.axial_ratio_db = read_reals(file, "/pattern/axial_ratio_db", dims);
-  if (d.gain_dbi.size() != d.frequency_hz.size() * d.theta_deg.size() * d.phi_deg.size())
-    throw InputError({path.string(), 1, 1}, "the pattern arrays of this result do not fit its grid");
+  const SourceLocation where{path.string(), 1, 1};
+  const std::size_t points = d.frequency_hz.size() * d.theta_deg.size() * d.phi_deg.size();
+  if (points == 0 || d.gain_dbi.size() != points || d.rhcp_dbi.size() != points || d.lhcp_dbi.size() != points ||
+      d.axial_ratio_db.size() != points)
+    throw InputError(where, "the pattern arrays of this result are empty or do not fit its grid");
+  for (const auto* values : {&d.frequency_hz, &d.theta_deg, &d.phi_deg, &d.gain_dbi, &d.rhcp_dbi, &d.lhcp_dbi, &d.axial_ratio_db})
+    require_finite(*values, "/pattern", where);
   return d;
 }
 
@@ -41,7 +65,8 @@ std::vector<Band> read_result_bands(const std::filesystem::path& path, const std
   const std::vector<Real> edges = read_reals(file, group + "/model/band_edges_hz", dims);
   std::vector<Band> bands;
   for (std::size_t b = 0; b < names.size() && 2 * b + 1 < edges.size(); ++b)
-    bands.push_back({names[b], edges[2 * b], edges[2 * b + 1]});
+    if (std::isfinite(edges[2 * b]) && std::isfinite(edges[2 * b + 1]) && edges[2 * b] > 0.0 && edges[2 * b] <= edges[2 * b + 1])
+      bands.push_back({names[b], edges[2 * b], edges[2 * b + 1]});
   return bands;
 }
 
@@ -55,8 +80,16 @@ NetworkData read_result_network(const std::filesystem::path& path, const std::st
   const std::vector<Real> im = read_reals(file, group + "/ports/s_matrix_im", im_dims);
   const std::vector<Real> reference = read_reals(file, group + "/model/reference_ohm", r_dims);
   if (frequencies.empty() || re.empty() || re_dims.size() != 3 || re_dims != im_dims || re_dims[0] != frequencies.size() ||
-      re_dims[1] != re_dims[2] || reference.size() != 1)
+      re_dims[1] == 0 || re_dims[1] != re_dims[2] || reference.size() != 1)
     throw InputError(where, "this is not a lobe antenna result (it lacks /ports/s_matrix_re and its companions)");
+  require_finite(frequencies, "/frequency_hz", where);
+  require_finite(re, "/ports/s_matrix_re", where);
+  require_finite(im, "/ports/s_matrix_im", where);
+  for (std::size_t k = 0; k < frequencies.size(); ++k)
+    if (!(frequencies[k] > 0.0) || (k > 0 && !(frequencies[k] > frequencies[k - 1])))
+      throw InputError(where, "the frequencies of this result are not positive and ascending");
+  if (!(std::isfinite(reference.front()) && reference.front() > 0.0))
+    throw InputError(where, "the reference impedance of this result is not a positive number");
   NetworkData data;
   data.reference_ohm = reference.front();
   data.frequency_hz = frequencies;
