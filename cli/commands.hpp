@@ -56,6 +56,7 @@ int export_command(const ExportOptions& options);
 struct CompareOptions {
   std::string result_path;
   std::string measured_path;
+  std::string measured_format = "auto";  ///< auto (by extension), touchstone or csv
   std::string port;                       ///< empty: the first port
   std::vector<std::string> band_options;  ///< LOW:HIGH; none: the overlap of the two curves
   std::optional<double> tx_power_w;       ///< forward power for reflected-power figures
@@ -75,6 +76,7 @@ struct PlotOptions {
   std::string result_path;
   std::string output_directory;           ///< empty: beside the result
   std::string measured_path;              ///< optional measured curve to overlay
+  std::string measured_format = "auto";   ///< auto (by extension), touchstone or csv
   std::vector<std::string> band_options;  ///< LOW:HIGH; shaded, and for a sweep the band of its map
   std::string figure;                     ///< a sweep map's band figure; empty: worst-vswr
   std::vector<std::string> axes;          ///< a sweep map's varied names; default the first two
@@ -89,9 +91,10 @@ int plot_command(const PlotOptions& options);
 /// the other names held at the best case's values; prints the best case.
 int plot_sweep(const PlotOptions& options);
 
-/// The measured curve from Touchstone (by extension .sNp or .ts; its first port, referred
-/// to `reference_ohm`) or from a CSV table.
-MeasuredCurve read_measured(const std::string& path, Real reference_ohm);
+/// The measured curve from Touchstone (its first port, referred to `reference_ohm`) or from a
+/// CSV table. `format` is "auto" (Touchstone by the extension .sNp or .ts, else CSV),
+/// "touchstone" (for analysers' .txt exports; one port unless the file says otherwise) or "csv".
+MeasuredCurve read_measured(const std::string& path, Real reference_ohm, const std::string& format = "auto");
 
 struct SweepOptions {
   std::string model_path;

@@ -15,12 +15,12 @@
 
 namespace lobe::cli {
 
-MeasuredCurve read_measured(const std::string& path, Real reference_ohm) {
+MeasuredCurve read_measured(const std::string& path, Real reference_ohm, const std::string& format) {
   const std::string extension = std::filesystem::path(path).extension().string();
-  const bool touchstone = extension == ".ts" || (extension.size() >= 4 && (extension[1] == 's' || extension[1] == 'S') &&
-                                                 (extension.back() == 'p' || extension.back() == 'P'));
-  if (!touchstone) return read_measured_csv(path, reference_ohm);
-  const NetworkData network = read_touchstone(path);
+  const bool touchstone_name = extension == ".ts" || (extension.size() >= 4 && (extension[1] == 's' || extension[1] == 'S') &&
+                                                      (extension.back() == 'p' || extension.back() == 'P'));
+  if (format == "csv" || (format == "auto" && !touchstone_name)) return read_measured_csv(path, reference_ohm);
+  const NetworkData network = read_touchstone(path, 1);
   MeasuredCurve measured{{network.frequency_hz, {}}, true, "complex S11 (Touchstone)"};
   for (const auto& s : network.s) {
     // Referred to the result's reference impedance, so that both curves mean the same.
@@ -52,7 +52,7 @@ int compare_command(const CompareOptions& options) {
   }
   ReflectionCurve simulated{network.frequency_hz, {}};
   for (const auto& s : network.s) simulated.reflection.push_back(s(port, port));
-  const MeasuredCurve measured = read_measured(options.measured_path, network.reference_ohm);
+  const MeasuredCurve measured = read_measured(options.measured_path, network.reference_ohm, options.measured_format);
   const Real low = std::max(simulated.frequency_hz.front(), measured.curve.frequency_hz.front());
   const Real high = std::min(simulated.frequency_hz.back(), measured.curve.frequency_hz.back());
   if (!(low < high))

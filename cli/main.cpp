@@ -89,6 +89,9 @@ int main(int argc, char** argv) {
   auto* compare_app = app.add_subcommand("compare", "Compare a result's reflection with a measured curve");
   compare_app->add_option("RESULT", compare.result_path, "Result file written by run (.h5)")->required();
   compare_app->add_option("MEASURED", compare.measured_path, "Measured data: Touchstone (.s1p, .ts) or CSV")->required();
+  compare_app->add_option("--measured-format", compare.measured_format,
+                          "How to read MEASURED: auto (by extension), touchstone (e.g. an analyser's .txt) or csv")
+      ->check(CLI::IsMember({"auto", "touchstone", "csv"}));
   compare_app->add_option("--port", compare.port, "The result's port to compare (default: the first)");
   compare_app->add_option("--band", compare.band_options, "A band to report: LOW:HIGH (repeatable; default: the overlap)")
       ->allow_extra_args(false);
@@ -102,6 +105,9 @@ int main(int argc, char** argv) {
   plot_app->add_option("RESULT", plot.result_path, "Result file written by run or sweep (.h5)")->required();
   plot_app->add_option("-o,--output", plot.output_directory, "Directory for the figures (default: beside the result)");
   plot_app->add_option("--measured", plot.measured_path, "A measured curve to overlay: Touchstone or CSV");
+  plot_app->add_option("--measured-format", plot.measured_format,
+                       "How to read --measured: auto (by extension), touchstone (e.g. an analyser's .txt) or csv")
+      ->check(CLI::IsMember({"auto", "touchstone", "csv"}));
   plot_app->add_option("--band", plot.band_options, "A band to shade, and a sweep map's band: LOW:HIGH (repeatable)")
       ->allow_extra_args(false);
   plot_app->add_option("--figure", plot.figure, "A sweep map's figure: worst-vswr (default), mean-vswr, mean-mismatch-loss, share-under-vswr-2")

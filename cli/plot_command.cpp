@@ -64,7 +64,7 @@ int plot_command(const PlotOptions& options) {
   for (std::size_t b = 0; b < options.band_options.size(); ++b)
     bands.push_back(parse_band_option(options.band_options[b], static_cast<int>(b) + 1));
   std::optional<MeasuredCurve> measured;
-  if (!options.measured_path.empty()) measured = read_measured(options.measured_path, network.reference_ohm);
+  if (!options.measured_path.empty()) measured = read_measured(options.measured_path, network.reference_ohm, options.measured_format);
   std::filesystem::path directory = options.output_directory.empty()
                                         ? std::filesystem::path(options.result_path).parent_path()
                                         : std::filesystem::path(options.output_directory);

@@ -10,7 +10,9 @@
 
 #include "core/constants.hpp"
 #include "core/input_error.hpp"
+#include "core/formatted_text.hpp"
 #include "core/number_text.hpp"
+#include "core/text_file.hpp"
 
 namespace lobe {
 namespace {
@@ -20,10 +22,22 @@ std::string lower(std::string text) {
   return text;
 }
 
+/// A number of the data section and where it stood (line and column only: a copy of the
+/// file name per number once made a 92 MB file take 1.25 GB).
 struct Number {
   Real value;
-  SourceLocation where;
+  int line, column;
 };
+
+/// Most ports a file may have: far beyond any antenna measurement, and small enough that
+/// an extension such as .s40000p cannot demand gigabytes.
+constexpr int max_ports = 64;
+/// Far beyond any analyser export (a 64-port file of 1,001 points is about 150 MB; such
+/// files are not antenna measurements).
+constexpr std::size_t max_touchstone_bytes = 64u << 20;
+/// How far above 1 a port's own reflection may lie: a passive antenna reflects at most what
+/// it receives, and calibration noise stays far below this.
+constexpr Real passive_tolerance = 1e-6;
 
 enum class Parameter { s, y, z };
 enum class Layout { full, lower, upper };
@@ -40,6 +54,8 @@ struct Parsed {
   Layout layout = Layout::full;
   std::vector<Number> numbers;
   SourceLocation end_of_file;
+  std::string file;
+  SourceLocation where(const Number& n) const { return {file, n.line, n.column}; }
 };
 
 Real parse_number(const std::string& token, const SourceLocation& where) {
@@ -136,18 +152,20 @@ bool read_keyword(const std::string& line, const SourceLocation& at, Parsed& p, 
   return true;  // [Number of Frequencies] and informational keywords need nothing
 }
 
-Parsed parse(const std::filesystem::path& path) {
-  std::ifstream in(path, std::ios::binary);
+Parsed parse(const std::filesystem::path& path, int default_ports) {
   const std::string file = path.string();
-  if (!in) throw InputError({file, 1, 1}, "cannot open the Touchstone file");
+  std::istringstream in(read_text_file(file, max_touchstone_bytes, "the Touchstone file"));
   Parsed p;
+  p.file = file;
+  p.ports = default_ports;
   const std::string extension = lower(path.extension().string());
   if (extension.size() >= 4 && extension[1] == 's' && extension.back() == 'p') {
-    try {
-      p.ports = std::stoi(extension.substr(2, extension.size() - 3));
-    } catch (...) {
-      p.ports = 0;
-    }
+    const std::string digits = extension.substr(2, extension.size() - 3);
+    if (!digits.empty() && digits.find_first_not_of("0123456789") == std::string::npos)
+      p.ports = digits.size() <= 3 ? std::stoi(digits) : max_ports + 1;
+    if (p.ports > max_ports)
+      throw InputError({file, 1, 1}, "the extension says " + digits + " ports; lobe reads Touchstone files of at most " +
+                                         std::to_string(max_ports));
   }
   bool options_seen = false, in_data = false;
   std::string line;
@@ -174,7 +192,8 @@ Parsed parse(const std::filesystem::path& path) {
       in_data = true;  // version 1 without an option line: defaults apply
     }
     for (const auto& [token, column] : tokens_of(line))
-      p.numbers.push_back({parse_number(token, {file, number, static_cast<int>(first) + column}), {file, number, static_cast<int>(first) + column}});
+      p.numbers.push_back({parse_number(token, {file, number, static_cast<int>(first) + column}), number,
+                           static_cast<int>(first) + column});
   }
   p.end_of_file = {file, std::max(number, 1), 1};
   if (p.ports < 1) throw InputError({file, 1, 1}, "the number of ports is unknown: name the file .sNp or give [Number of Ports]");
@@ -217,8 +236,8 @@ ComplexMatrix to_scattering(const Parsed& p, const ComplexMatrix& m) {
 
 }  // namespace
 
-NetworkData read_touchstone(const std::filesystem::path& path) {
-  const Parsed p = parse(path);
+NetworkData read_touchstone(const std::filesystem::path& path, int default_ports) {
+  const Parsed p = parse(path, default_ports);
   const auto order = entry_order(p);
   const std::size_t record = 1 + 2 * order.size();
   NetworkData data;
@@ -229,12 +248,12 @@ NetworkData read_touchstone(const std::filesystem::path& path) {
     // Version 1 two-port files may append noise data: its frequencies start over.
     if (!data.frequency_hz.empty() && f <= data.frequency_hz.back()) {
       if (p.version == 1 && p.ports == 2) break;
-      throw InputError(p.numbers[k].where, "frequencies must increase");
+      throw InputError(p.where(p.numbers[k]), "frequencies must increase");
     }
     if (k + record > p.numbers.size())
-      throw InputError(p.numbers[k].where, "this frequency's record is incomplete: " + std::to_string(record) +
-                                               " numbers expected for " + std::to_string(p.ports) + " ports");
-    if (!(f >= 0.0)) throw InputError(p.numbers[k].where, "frequencies cannot be negative");
+      throw InputError(p.where(p.numbers[k]), "this frequency's record is incomplete: " + std::to_string(record) +
+                                                  " numbers expected for " + std::to_string(p.ports) + " ports");
+    if (!(f > 0.0)) throw InputError(p.where(p.numbers[k]), "a frequency must be above zero");
     ComplexMatrix m = ComplexMatrix::Zero(p.ports, p.ports);
     for (std::size_t e = 0; e < order.size(); ++e) {
       const Complex v = pair_value(p, p.numbers[k + 1 + 2 * e].value, p.numbers[k + 2 + 2 * e].value);
@@ -242,8 +261,15 @@ NetworkData read_touchstone(const std::filesystem::path& path) {
       m(i, j) = v;
       if (p.layout != Layout::full) m(j, i) = v;
     }
+    const ComplexMatrix s = to_scattering(p, m);
+    for (int i = 0; i < p.ports; ++i)
+      if (!(std::abs(s(i, i)) <= 1.0 + passive_tolerance))
+        throw InputError(p.where(p.numbers[k]),
+                         formatted("|S%d%d| is %.4g here: a passive antenna cannot reflect more than it receives (a "
+                                   "positive S11 in dB, or a file in another format or normalisation)",
+                                   i + 1, i + 1, std::abs(s(i, i))));
     data.frequency_hz.push_back(f);
-    data.s.push_back(to_scattering(p, m));
+    data.s.push_back(s);
     k += record;
   }
   if (data.frequency_hz.empty()) throw InputError(p.end_of_file, "the file holds no network data");

@@ -31,7 +31,11 @@ struct TouchstoneStyle {
 /// Version 1 takes the port count from the extension. Z and Y data are converted to S
 /// (normalised to R in version 1, in ohms and siemens in version 2). Throws InputError at
 /// FILE:LINE:COL for anything it cannot read faithfully (H and G data, per-port references).
-NetworkData read_touchstone(const std::filesystem::path& path);
+/// `default_ports` stands in for the extension's count when the file is named otherwise (an
+/// analyser's .txt); 0 requires the extension or [Number of Ports]. Refuses more than 64
+/// ports, frequencies that are not positive and ascending, and a port reflecting more than
+/// it receives (|S_ii| > 1).
+NetworkData read_touchstone(const std::filesystem::path& path, int default_ports = 0);
 
 /// Writes S-parameters in the given style, full precision, with a comment header.
 void write_touchstone(const std::filesystem::path& path, const NetworkData& data, const TouchstoneStyle& style,

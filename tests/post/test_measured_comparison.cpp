@@ -81,6 +81,32 @@ TEST(MeasuredCsv, FaultsAreLocated) {
   EXPECT_NE(message("frequency_hz,vswr\n1e9,x\n2e9,2\n").find(":2:5: expected a number"), std::string::npos);
 }
 
+// What analysers write: RFC 4180 quoting (a quoted decimal comma is a decimal comma, not a
+// separator: "820,5" was once read as 820), semicolon tables with decimal commas, an SWR
+// column; and what no passive antenna gives is refused (+6 dB S11 was once read as −6 dB).
+TEST(MeasuredCsv, ReadsWhatAnalysersWriteAndRefusesTheImpossible) {
+  const MeasuredCurve quoted = read_measured_csv(written("quoted.csv", "\"Frequency (MHz)\",\"S11 (dB)\"\n"
+                                                                       "\"820,5\",\"-12,5\"\n\"821,5\",-13\n"), 50.0);
+  EXPECT_DOUBLE_EQ(quoted.curve.frequency_hz[0], 820.5e6);
+  EXPECT_NEAR(std::abs(quoted.curve.reflection[0]), std::pow(10.0, -12.5 / 20), 1e-15);
+  const MeasuredCurve semicolon =
+      read_measured_csv(written("semicolon.csv", "Frequency (MHz);SWR\r\n433,05;1,25\r\n434,79;1,5\r\n"), 50.0);
+  EXPECT_DOUBLE_EQ(semicolon.curve.frequency_hz[1], 434.79e6);
+  EXPECT_NEAR(std::abs(semicolon.curve.reflection[0]), 0.25 / 2.25, 1e-15);  // (s − 1)/(s + 1)
+  auto message = [](const std::string& text) {
+    try {
+      read_measured_csv(written("bad.csv", text), 50.0);
+    } catch (const InputError& e) {
+      return e.formatted();
+    }
+    return std::string("no error");
+  };
+  EXPECT_NE(message("frequency_hz,s11_db\n1e9,6\n2e9,-6\n").find(":2:5: a passive antenna cannot reflect more"),
+            std::string::npos) << message("frequency_hz,s11_db\n1e9,6\n2e9,-6\n");
+  EXPECT_NE(message("frequency_hz,vswr\n0,2\n1e9,2\n").find("a frequency must be above zero"), std::string::npos);
+  EXPECT_NE(message("frequency_hz,vswr\n1e9,\"1,2,3\"\n2e9,2\n").find("expected a number"), std::string::npos);
+}
+
 // A build that resonates 3 % high: the dips, the scale factor and the residual after
 // scaling come out as constructed.
 TEST(CurveComparison, RecoversAFrequencyShift) {

@@ -96,12 +96,12 @@ TEST(Touchstone, VersionTwoKeywordsAndSpreadRecords) {
                                                 "! invented\n[Version] 2.0\n# Hz S RI R 50\n[Number of Ports] 2\n"
                                                 "[Two-Port Data Order] 12_21\n[Number of Frequencies] 2\n"
                                                 "[Reference] 50 50\n[Network Data]\n"
-                                                "1e9 0.1 0.2 ! S11\n    0.3 0.4   0.5 0.6\n    0.7 0.8\n"
+                                                "1e9 0.1 0.2 ! S11\n    0.3 0.4   0.5 0.6\n    0.6 0.7\n"
                                                 "2e9 0.1 0 0.2 0 0.3 0 0.4 0\n[End]\n"));
   ASSERT_EQ(d.frequency_hz.size(), 2u);
   EXPECT_EQ(d.s[0](0, 1), Complex(0.3, 0.4));
   EXPECT_EQ(d.s[0](1, 0), Complex(0.5, 0.6));
-  EXPECT_EQ(d.s[0](1, 1), Complex(0.7, 0.8));
+  EXPECT_EQ(d.s[0](1, 1), Complex(0.6, 0.7));
   const NetworkData lower = read_touchstone(written("lower.ts",
                                                     "[Version] 2.0\n# GHz S RI R 50\n[Number of Ports] 3\n"
                                                     "[Matrix Format] Lower\n[Network Data]\n"
@@ -135,6 +135,29 @@ TEST(Touchstone, FaultsAreLocated) {
   EXPECT_NE(message("h.s2p", "# GHz H RI\n").find(":1:7: hybrid"), std::string::npos);
   EXPECT_NE(message("word.s1p", "# GHz S RI\n1 0.1 oops\n").find(":2:7: expected a number"), std::string::npos);
   EXPECT_NE(message("noports.txt", "1 0.1 0\n").find("number of ports is unknown"), std::string::npos);
+}
+
+// Limits and physics: the port count from the extension is capped, frequencies must be
+// positive, a port may not reflect more than it receives (|S11| > 1, or a positive S11 in
+// dB); an analyser's .txt reads with a default port count.
+TEST(Touchstone, RefusesWhatNoMeasurementGives) {
+  auto message = [](const std::string& name, const std::string& text) {
+    try {
+      read_touchstone(written(name, text));
+    } catch (const InputError& e) {
+      return e.formatted();
+    }
+    return std::string("no error");
+  };
+  EXPECT_NE(message("many.s40000p", "# GHz S MA R 50\n1 0.5 0\n").find("at most 64"), std::string::npos);
+  EXPECT_NE(message("big.s1p", "# GHz S MA R 50\n1 1.3 0\n2 0.5 0\n").find("|S11| is 1.3"), std::string::npos);
+  EXPECT_NE(message("gain.s1p", "# GHz S DB R 50\n1 6 0\n").find("cannot reflect more"), std::string::npos);
+  EXPECT_NE(message("zero.s1p", "# GHz S MA R 50\n0 0.5 0\n1 0.5 0\n").find("above zero"), std::string::npos);
+  EXPECT_NE(message("negative.s1p", "# GHz S MA R 50\n-1 0.5 0\n").find("above zero"), std::string::npos);
+  EXPECT_NE(message("analyser.txt", "# MHz S DB R 50\n433 -20 10\n").find("number of ports is unknown"), std::string::npos);
+  const NetworkData txt = read_touchstone(written("analyser.txt", "# MHz S DB R 50\n433 -20 10\n435 -18 5\n"), 1);
+  EXPECT_EQ(txt.ports(), 1);
+  EXPECT_NEAR(std::abs(txt.s[1](0, 0)), std::pow(10.0, -18.0 / 20), 1e-15);
 }
 
 }  // namespace
