@@ -9,6 +9,7 @@
 
 #include "cli/commands.hpp"
 #include "core/input_error.hpp"
+#include "core/output_error.hpp"
 #include "post/band_report.hpp"
 #include "solver/system_matrix.hpp"
 
@@ -163,6 +164,9 @@ int main(int argc, char** argv) {
   } catch (const lobe::InputError& e) {
     std::fprintf(stderr, "%s\n", e.formatted().c_str());
     return exit_bad_input;
+  } catch (const lobe::OutputError& e) {
+    std::fprintf(stderr, "\nlobe: %s; earlier results were left as they were\n", e.what());
+    return exit_internal_failure;
   } catch (const lobe::NumericalError& e) {
     std::fprintf(stderr, "lobe: numerical failure: %s; no results were written\n", e.what());
     return exit_internal_failure;

@@ -8,6 +8,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/progress_line.hpp"
+#include "core/output_error.hpp"
 #include "cli/model_loading.hpp"
 #include "core/formatted_text.hpp"
 #include "geometry/model_parser.hpp"
@@ -148,9 +149,15 @@ int sweep_command(const SweepOptions& options) {
       run.results.push_back(evaluate_frequency(problem, solve_frequency(problem, f)));
     }
     if (interrupted) break;
-    OutputFiles files(case_directory);
-    write_hdf5(files.staging_path(case_name(c) + ".h5"), run);
-    files.commit();
+    try {
+      OutputFiles files(case_directory);
+      write_hdf5(files.staging_path(case_name(c) + ".h5"), run);
+      files.commit();
+    } catch (const OutputError& e) {
+      progress.reset();
+      throw OutputError(std::string(e.what()) + "; the " + std::to_string(solved + skipped) + " finished cases are kept in " +
+                        case_directory.string() + ": make room and run the same command again to go on");
+    }
     ++solved;
     progress->update(c + 1, solved);
   }
@@ -162,9 +169,14 @@ int sweep_command(const SweepOptions& options) {
   }
   SweepTable table{{}, cases, labels, si};
   for (const auto& v : varied) table.names.push_back(v.name);
-  OutputFiles files(directory);
-  write_sweep_hdf5(files.staging_path(output.filename().string()), table, case_files);
-  files.commit();
+  try {
+    OutputFiles files(directory);
+    write_sweep_hdf5(files.staging_path(output.filename().string()), table, case_files);
+    files.commit();
+  } catch (const OutputError& e) {
+    throw OutputError(std::string(e.what()) + "; all " + std::to_string(cases.size()) + " cases are kept in " +
+                      case_directory.string() + ": make room and run the same command again to assemble them");
+  }
   std::printf("%zu cases (%zu solved now, %zu from before) in %s\n", cases.size(), solved, skipped, output.string().c_str());
 
   // Rank by the chosen band figure of the first port.

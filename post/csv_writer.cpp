@@ -6,6 +6,7 @@
 #include <stdexcept>
 
 #include "core/constants.hpp"
+#include "core/output_error.hpp"
 
 namespace lobe {
 namespace {
@@ -13,14 +14,15 @@ namespace {
 using File = std::unique_ptr<std::FILE, int (*)(std::FILE*)>;
 
 File open_for_writing(const std::filesystem::path& path) {
+  errno = 0;
   File file(std::fopen(path.c_str(), "w"), &std::fclose);
-  if (!file) throw std::runtime_error("cannot write " + path.string());
+  if (!file) throw output_error(path.string());
   return file;
 }
 
 void finish(File& file, const std::filesystem::path& path) {
-  const bool failed = std::ferror(file.get()) != 0;
-  if (std::fclose(file.release()) != 0 || failed) throw std::runtime_error("writing " + path.string() + " failed");
+  const bool failed = std::fflush(file.get()) != 0 || std::ferror(file.get()) != 0;
+  if (std::fclose(file.release()) != 0 || failed) throw output_error(path.string());
 }
 
 constexpr Real degrees = 180.0 / pi;

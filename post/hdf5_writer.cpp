@@ -8,6 +8,7 @@
 
 #include "core/constants.hpp"
 #include "post/hdf5_handle.hpp"
+#include "post/hdf5_memory_file.hpp"
 #include "post/run_summary.hpp"
 #include "post/scattering_result.hpp"
 
@@ -256,7 +257,7 @@ void write_run_attributes(hid_t file, const RunInfo& info) {
 }  // namespace
 
 void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
-  Handle file(H5Fcreate(path.c_str(), H5F_ACC_TRUNC, H5P_DEFAULT, H5P_DEFAULT), H5Fclose);
+  Hdf5MemoryFile file;
   write_run_attributes(file, run.info);
   const std::vector<hsize_t> nf{run.results.size()};
   write_reals(file, "frequency_hz", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.frequency_hz; }), "Hz");
@@ -270,11 +271,11 @@ void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
   write_reals(solver, "relative_residual", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.report.relative_residual; }), "1");
   int_attribute(solver, "unknowns", run.problem.unknowns());
   int_attribute(solver, "segments", static_cast<long>(run.problem.mesh.segments.size()));
-  check(H5Fflush(file, H5F_SCOPE_GLOBAL));
+  file.save(path);
 }
 
 void write_scattering_hdf5(const std::filesystem::path& path, const ScatteringRun& run) {
-  Handle file(H5Fcreate(path.c_str(), H5F_ACC_TRUNC, H5P_DEFAULT, H5P_DEFAULT), H5Fclose);
+  Hdf5MemoryFile file;
   write_run_attributes(file, run.info);
   const std::size_t nf = run.results.size();
   std::vector<Real> frequencies, monostatic, rcs, rcond, residual;
@@ -317,7 +318,7 @@ void write_scattering_hdf5(const std::filesystem::path& path, const ScatteringRu
   write_reals(solver, "reciprocal_condition", {nf}, rcond, "1");
   write_reals(solver, "relative_residual", {nf}, residual, "1");
   int_attribute(solver, "unknowns", run.problem.basis.size());
-  check(H5Fflush(file, H5F_SCOPE_GLOBAL));
+  file.save(path);
 }
 
 }  // namespace lobe

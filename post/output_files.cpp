@@ -6,6 +6,8 @@
 #include <fstream>
 #include <stdexcept>
 
+#include "core/output_error.hpp"
+
 namespace lobe {
 
 OutputFiles::OutputFiles(std::filesystem::path directory) : m_directory(std::move(directory)) {
@@ -28,9 +30,10 @@ std::filesystem::path OutputFiles::staging_path(const std::string& name) {
 void OutputFiles::stage_text(const std::string& name, const std::string& text) {
   const auto path = staging_path(name);
   std::ofstream out(path, std::ios::binary);
+  errno = 0;
   out << text;
   out.close();
-  if (!out) throw std::runtime_error("writing " + path.string() + " failed");
+  if (!out) throw output_error(path.string());
 }
 
 namespace {
@@ -39,10 +42,10 @@ namespace {
 /// survives a power loss together with the data.
 void flush_to_disk(const std::filesystem::path& path) {
   const int fd = ::open(path.c_str(), O_RDONLY);
-  if (fd < 0) throw std::runtime_error("cannot open " + path.string() + " to flush it");
+  if (fd < 0) throw output_error(path.string());
   const int status = ::fsync(fd);
   ::close(fd);
-  if (status != 0) throw std::runtime_error("cannot flush " + path.string() + " to disk");
+  if (status != 0) throw output_error(path.string());
 }
 
 }  // namespace

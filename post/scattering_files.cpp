@@ -4,6 +4,7 @@
 #include <stdexcept>
 
 #include "core/constants.hpp"
+#include "core/output_error.hpp"
 #include "post/hdf5_writer.hpp"
 #include "post/run_summary.hpp"
 #include "post/scattering_result.hpp"
@@ -21,8 +22,8 @@ void write_scattering_csv(const std::filesystem::path& path, const ScatteringRun
         std::fprintf(file.get(), "%.10g,%.6g,%.6g,%.9g,%.6f\n", r.frequency_hz, r.thetas[i] * 180 / pi,
                      r.phis[j] * 180 / pi, sigma, to_dbsm(sigma));
       }
-  const bool failed = std::ferror(file.get()) != 0;
-  if (std::fclose(file.release()) != 0 || failed) throw std::runtime_error("writing " + path.string() + " failed");
+  const bool failed = std::fflush(file.get()) != 0 || std::ferror(file.get()) != 0;
+  if (std::fclose(file.release()) != 0 || failed) throw output_error(path.string());
 }
 
 std::string scattering_summary(const ScatteringRun& run) {

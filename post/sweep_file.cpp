@@ -4,6 +4,7 @@
 #include <stdexcept>
 
 #include "core/input_error.hpp"
+#include "post/hdf5_memory_file.hpp"
 #include "post/hdf5_reading.hpp"
 
 namespace lobe {
@@ -36,7 +37,7 @@ std::string case_group(std::size_t index) { return std::string("/").append(case_
 
 void write_sweep_hdf5(const std::filesystem::path& path, const SweepTable& table,
                       const std::vector<std::filesystem::path>& case_files) {
-  Hdf5Handle file(H5Fcreate(path.c_str(), H5F_ACC_TRUNC, H5P_DEFAULT, H5P_DEFAULT), H5Fclose);
+  Hdf5MemoryFile file;
   {
     Hdf5Handle cases(H5Gcreate2(file, "cases", H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT), H5Gclose);
     const hsize_t rows = table.values.size(), columns = table.names.size();
@@ -59,7 +60,7 @@ void write_sweep_hdf5(const std::filesystem::path& path, const SweepTable& table
     Hdf5Handle source(H5Fopen(case_files[c].c_str(), H5F_ACC_RDONLY, H5P_DEFAULT), H5Fclose);
     check(H5Ocopy(source, "/", file, case_name(c).c_str(), H5P_DEFAULT, H5P_DEFAULT), "copy a case");
   }
-  check(H5Fflush(file, H5F_SCOPE_GLOBAL), "flush");
+  file.save(path);
 }
 
 bool is_sweep_file(const std::filesystem::path& path) {

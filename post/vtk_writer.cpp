@@ -6,14 +6,17 @@
 #include <stdexcept>
 #include <vector>
 
+#include "core/output_error.hpp"
+
 namespace lobe {
 namespace {
 
 /// The parts every unstructured grid shares; `cell_data` is written inside <CellData>.
 void write_grid(const std::filesystem::path& path, const std::vector<Vec3>& points,
                 const std::vector<std::vector<int>>& cells, const std::string& cell_data) {
+  errno = 0;
   std::ofstream out(path);
-  if (!out) throw std::runtime_error("cannot write " + path.string());
+  if (!out) throw output_error(path.string());
   out.precision(12);
   out << "<?xml version=\"1.0\"?>\n"
       << "<VTKFile type=\"UnstructuredGrid\" version=\"0.1\" byte_order=\"LittleEndian\">\n"
@@ -37,7 +40,7 @@ void write_grid(const std::filesystem::path& path, const std::vector<Vec3>& poin
   out << "        </DataArray>\n      </Cells>\n      <CellData>\n"
       << cell_data << "      </CellData>\n    </Piece>\n  </UnstructuredGrid>\n</VTKFile>\n";
   out.close();
-  if (!out) throw std::runtime_error("writing " + path.string() + " failed");
+  if (!out) throw output_error(path.string());
 }
 
 template <class Values>

@@ -160,6 +160,31 @@ TEST(BadInput, OptionsAreCheckedBeforeAnyWork) {
   }
 }
 
+// A write that fails (here a file-size limit, as on a full disk) gives one line naming the
+// file and the system's reason, exit 1, no crash and no HDF5 diagnostics; an earlier result
+// set stays as it was. Before, HDF5 printed 140 lines and the process died of SIGSEGV at exit.
+TEST(BadInput, FailedWritesAreOneLineAndKeepEarlierResults) {
+  const auto scratch = fresh_directory("write-fails");
+  const std::string model = quoted_path(std::filesystem::path(LOBE_SOURCE_DIR) / "models" / "half_wave_dipole_ism.lobe");
+  const auto out = scratch / "out";
+  ASSERT_EQ(run_lobe("run " + model + " -o " + quoted_path(out), scratch).exit_code, 0);
+  const std::string earlier = read_text(out / "half_wave_dipole_ism_ports.csv");
+  const ProcessResult r = run_lobe("run " + model + " -o " + quoted_path(out) + " --set rod=0.8", scratch, 100);
+  EXPECT_EQ(r.exit_code, 1) << r.err;
+  EXPECT_NE(r.err.find("lobe: cannot write " + (out / "half_wave_dipole_ism.h5").string() + ": File too large"),
+            std::string::npos) << r.err;
+  EXPECT_EQ(r.err.find("HDF5"), std::string::npos) << r.err;
+  EXPECT_EQ(read_text(out / "half_wave_dipole_ism_ports.csv"), earlier);
+  std::size_t leftovers = 0;
+  for (const auto& e : std::filesystem::directory_iterator(out)) leftovers += e.path().filename().string()[0] == '.';
+  EXPECT_EQ(leftovers, 0u);
+  // A sweep whose cases fit but whose assembled file does not keeps its cases and says so.
+  const ProcessResult sweep = run_lobe("sweep " + model + " --vary rod=0.8,1.2 -o " + quoted_path(scratch / "s.h5"), scratch, 300);
+  EXPECT_EQ(sweep.exit_code, 1) << sweep.err;
+  EXPECT_NE(sweep.err.find("all 2 cases are kept in"), std::string::npos) << sweep.err;
+  EXPECT_TRUE(std::filesystem::exists(scratch / "s.h5.cases" / "case-000002.h5"));
+}
+
 TEST(BadInput, OutputDirectoryThatIsAFile) {
   const auto scratch = fresh_directory("bad-output");
   const auto file = scratch / "not-a-directory";
