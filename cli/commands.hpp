@@ -23,6 +23,8 @@ struct RunOptions {
 
 /// Refuses, before any solving, an output directory that could not be created or written.
 void check_output_directory(const std::filesystem::path& directory);
+/// The same for a file to write: not an existing directory, and its directory writable.
+void check_output_file(const std::filesystem::path& file);
 /// The directory results go to: -o, or MODEL-STEM-results.
 std::filesystem::path output_directory(const RunOptions& options);
 

@@ -100,8 +100,9 @@ int sweep_command(const SweepOptions& options) {
   const std::string stem = std::filesystem::path(options.model_path).stem().string();
   const std::filesystem::path output(options.output.empty() ? stem + "-sweep.h5" : options.output);
   const std::filesystem::path directory = output.has_parent_path() ? output.parent_path() : std::filesystem::path(".");
-  check_output_directory(directory);
+  check_output_file(output);
   const std::filesystem::path case_directory = output.string() + ".cases";
+  check_output_directory(case_directory);
   const std::string expected = manifest(model_text, options, varied, cases);
   std::filesystem::create_directories(case_directory);
   const auto manifest_path = case_directory / "manifest.txt";

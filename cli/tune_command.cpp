@@ -101,7 +101,7 @@ int tune_command(const TuneOptions& options) {
   const std::string stem = std::filesystem::path(options.model_path).stem().string();
   const std::filesystem::path output(options.output.empty() ? stem + "-tuned.lobe" : options.output);
   const std::filesystem::path directory = output.has_parent_path() ? output.parent_path() : std::filesystem::path(".");
-  check_output_directory(directory);
+  check_output_file(output);
   // Both ends must load before the search starts: a bad range fails now, not mid-search.
   for (double end : {0.0, 1.0}) {
     std::vector<std::string> values;

@@ -185,6 +185,28 @@ TEST(BadInput, FailedWritesAreOneLineAndKeepEarlierResults) {
   EXPECT_TRUE(std::filesystem::exists(scratch / "s.h5.cases" / "case-000002.h5"));
 }
 
+// Output paths are checked before any solving: an existing directory where a file goes, a
+// place nothing can be written (/proc), a case folder that is a file.
+TEST(BadInput, OutputPathsAreCheckedBeforeSolving) {
+  const auto scratch = fresh_directory("bad-output-paths");
+  const std::string model = quoted_path(std::filesystem::path(LOBE_SOURCE_DIR) / "models" / "half_wave_dipole_ism.lobe");
+  std::filesystem::create_directories(scratch / "a-directory");
+  std::ofstream(scratch / "blocked.h5.cases") << "a file where the case folder goes";
+  for (const auto& [args, expected] : std::vector<std::pair<std::string, std::string>>{
+           {"sweep " + model + " --vary rod=1,2 -o " + quoted_path(scratch / "a-directory"), "is a directory"},
+           {"sweep " + model + " --vary rod=1,2 -o /proc/lobe-sweep.h5", "cannot write results under '/proc'"},
+           {"sweep " + model + " --vary rod=1,2 -o " + quoted_path(scratch / "blocked.h5"), "exists and is not a directory"},
+           {"tune " + model + " --vary length=150mm:160mm -o " + quoted_path(scratch / "a-directory"), "is a directory"},
+           {"tune " + model + " --vary length=150mm:160mm -o /proc/lobe-tuned.lobe", "cannot write results under '/proc'"},
+           {"run " + model + " -o /proc/lobe-results", "cannot write results under '/proc'"}}) {
+    const ProcessResult r = run_lobe(args, scratch);
+    EXPECT_EQ(r.exit_code, 2) << args << "\n" << r.err;
+    EXPECT_EQ(r.err.rfind("--output:1:1: ", 0), 0u) << r.err;
+    EXPECT_NE(r.err.find(expected), std::string::npos) << r.err;
+    EXPECT_EQ(r.err.find("case 1/"), std::string::npos) << "solved before refusing: " << r.err;
+  }
+}
+
 TEST(BadInput, OutputDirectoryThatIsAFile) {
   const auto scratch = fresh_directory("bad-output");
   const auto file = scratch / "not-a-directory";
