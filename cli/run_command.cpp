@@ -66,6 +66,7 @@ int run_command(const RunOptions& options) {
       options.output_directory.empty() ? std::filesystem::path(stem + "-results") : std::filesystem::path(options.output_directory);
 
   check_output_directory(directory);
+  remove_dead_temporaries(directory);  // left by a run that was killed
 
   std::printf("lobe %s: %s\n", LOBE_VERSION, options.model_path.c_str());
   std::printf("configuration: %s, %s, %s, %s, %s, ground %s, reference %.6g ohm, %s, %s\n",

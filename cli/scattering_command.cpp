@@ -17,6 +17,7 @@ int run_scattering(const RunOptions& options, const Model& model) {
   const std::string stem = std::filesystem::path(options.model_path).stem().string();
   const std::filesystem::path directory = output_directory(options);
   check_output_directory(directory);
+  remove_dead_temporaries(directory);  // left by a run that was killed
   const ScatteringProblem problem(model);
   print_warnings(problem.surfaces.warnings);
   std::printf("lobe %s: %s\n", LOBE_VERSION, options.model_path.c_str());

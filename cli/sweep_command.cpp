@@ -105,6 +105,10 @@ int sweep_command(const SweepOptions& options) {
   check_output_directory(case_directory);
   const std::string expected = manifest(model_text, options, varied, cases);
   std::filesystem::create_directories(case_directory);
+  const DirectoryLock lock(case_directory);
+  if (!lock.held())
+    throw InputError({output.string(), 1, 1}, "another sweep is writing into '" + case_directory.string() +
+                                                  "' now; wait for it to finish or choose another -o");
   const auto manifest_path = case_directory / "manifest.txt";
   if (std::filesystem::exists(manifest_path)) {
     std::ifstream in(manifest_path, std::ios::binary);
@@ -118,9 +122,9 @@ int sweep_command(const SweepOptions& options) {
     files.stage_text("manifest.txt", expected);
     files.commit();
   }
-  // Half-written cases of a run that was killed: never published, safe to remove.
-  for (const auto& entry : std::filesystem::directory_iterator(case_directory))
-    if (entry.path().filename().string().find(".partial-") != std::string::npos) std::filesystem::remove(entry.path());
+  // Half-written cases of a sweep that was killed: never published, safe to remove.
+  remove_dead_temporaries(case_directory);
+  remove_dead_temporaries(directory);
 
   std::signal(SIGINT, on_interrupt);
   std::signal(SIGTERM, on_interrupt);

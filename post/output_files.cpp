@@ -1,8 +1,11 @@
 #include "post/output_files.hpp"
 
 #include <fcntl.h>
+#include <signal.h>
+#include <sys/file.h>
 #include <unistd.h>
 
+#include <cerrno>
 #include <fstream>
 #include <stdexcept>
 
@@ -60,6 +63,39 @@ std::vector<std::filesystem::path> OutputFiles::commit() {
   flush_to_disk(m_directory);
   m_committed = true;
   return written;
+}
+
+std::size_t remove_dead_temporaries(const std::filesystem::path& directory) {
+  std::size_t removed = 0;
+  std::error_code error;
+  for (const auto& entry : std::filesystem::directory_iterator(directory, error)) {
+    const std::string name = entry.path().filename().string();
+    const auto at = name.rfind(".partial-");
+    if (name.empty() || name[0] != '.' || at == std::string::npos) continue;
+    const std::string digits = name.substr(at + 9);
+    if (digits.empty() || digits.size() > 9 || digits.find_first_not_of("0123456789") != std::string::npos) continue;
+    const pid_t pid = static_cast<pid_t>(std::stol(digits));
+    // kill(pid, 0) sends nothing; ESRCH says no such process exists.
+    if (pid == ::getpid() || ::kill(pid, 0) == 0 || errno != ESRCH) continue;
+    std::error_code ignored;
+    removed += std::filesystem::remove(entry.path(), ignored) ? 1 : 0;
+  }
+  return removed;
+}
+
+DirectoryLock::DirectoryLock(const std::filesystem::path& directory) {
+  const auto path = directory / ".lock";
+  const int fd = ::open(path.c_str(), O_RDWR | O_CREAT | O_CLOEXEC, 0644);
+  if (fd < 0) throw output_error(path.string());
+  if (::flock(fd, LOCK_EX | LOCK_NB) != 0) {
+    ::close(fd);
+    return;
+  }
+  m_fd = fd;
+}
+
+DirectoryLock::~DirectoryLock() {
+  if (m_fd >= 0) ::close(m_fd);  // closing releases the lock
 }
 
 }  // namespace lobe

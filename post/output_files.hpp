@@ -30,4 +30,25 @@ class OutputFiles {
   bool m_committed = false;
 };
 
+/// Removes the temporaries (.NAME.partial-PID) in `directory` left by processes that no
+/// longer run (killed, or the machine lost power); those of running processes stay.
+/// Returns how many it removed.
+std::size_t remove_dead_temporaries(const std::filesystem::path& directory);
+
+/// An exclusive advisory lock (flock) on a file in `directory`, held while the object
+/// lives: two sweeps writing the same cases would delete each other's work.
+class DirectoryLock {
+ public:
+  /// Throws std::runtime_error naming the holder when another process holds the lock.
+  explicit DirectoryLock(const std::filesystem::path& directory);
+  ~DirectoryLock();
+  DirectoryLock(const DirectoryLock&) = delete;
+  DirectoryLock& operator=(const DirectoryLock&) = delete;
+  /// False when another process holds the lock (nothing is held then).
+  bool held() const { return m_fd >= 0; }
+
+ private:
+  int m_fd = -1;
+};
+
 }  // namespace lobe

@@ -2,7 +2,9 @@
 // random moments and resumed ends with the same file as one that ran straight through.
 #include <gtest/gtest.h>
 
+#include <fcntl.h>
 #include <signal.h>
+#include <sys/file.h>
 #include <sys/wait.h>
 #include <unistd.h>
 
@@ -192,6 +194,37 @@ TEST(Sweep, ExportAndCompareTakeACaseOfASweepFile) {
   ASSERT_EQ(written.s.size(), second.s.size());
   EXPECT_EQ(written.s.back()(0, 0), second.s.back()(0, 0));  // written to full precision
   EXPECT_EQ(run_lobe("export '" + sweep.string() + "' --touchstone --case case-000009", dir).exit_code, 2);
+}
+
+// Two sweeps on one output: the second is refused while the first holds the case folder's
+// lock (it once deleted the first's case in flight). Temporaries of processes that are gone
+// are removed at start, those of a running process are left alone; run cleans its own.
+TEST(Sweep, OneSweepPerOutputAndOnlyDeadTemporariesRemoved) {
+  const auto dir = fresh_directory("sweep-lock");
+  const std::string model = "'" + models + "half_wave_dipole_ism.lobe'";
+  const auto cases = dir / "s.h5.cases";
+  std::filesystem::create_directories(cases);
+  {
+    const int fd = ::open((cases / ".lock").c_str(), O_RDWR | O_CREAT, 0644);
+    ASSERT_GE(fd, 0);
+    ASSERT_EQ(::flock(fd, LOCK_EX), 0);  // as a running sweep holds it
+    const ProcessResult r = run_lobe("sweep " + model + " --vary rod=1,2 -o '" + (dir / "s.h5").string() + "'", dir);
+    EXPECT_EQ(r.exit_code, 2) << r.err;
+    EXPECT_NE(r.err.find("another sweep is writing into"), std::string::npos) << r.err;
+    ::close(fd);
+  }
+  const pid_t gone = 4194303;  // above any pid_max here: no such process
+  const std::string live = std::to_string(::getpid());
+  for (const std::string& name : {".case-000001.h5.partial-" + std::to_string(gone), ".case-000009.h5.partial-" + live})
+    std::ofstream(cases / name) << "half-written";
+  ASSERT_EQ(run_lobe("sweep " + model + " --vary rod=1,2 -o '" + (dir / "s.h5").string() + "'", dir).exit_code, 0);
+  EXPECT_FALSE(std::filesystem::exists(cases / (".case-000001.h5.partial-" + std::to_string(gone))));
+  EXPECT_TRUE(std::filesystem::exists(cases / (".case-000009.h5.partial-" + live)));
+  const auto out = dir / "run";
+  std::filesystem::create_directories(out);
+  std::ofstream(out / (".half_wave_dipole_ism.h5.partial-" + std::to_string(gone))) << std::string(1000, 'x');
+  ASSERT_EQ(run_lobe("run " + model + " -o '" + out.string() + "'", dir).exit_code, 0);
+  EXPECT_FALSE(std::filesystem::exists(out / (".half_wave_dipole_ism.h5.partial-" + std::to_string(gone))));
 }
 
 // plot on a sweep file maps the band figure of every case, each recomputed here from the
