@@ -1,8 +1,11 @@
 // Reference checks that this solver is known to fail, kept at the tolerance and
-// run on every build. ctest inverts their result (WILL_FAIL): they show as passing while
-// the disagreement stands, and as failing the day the solver agrees, so that the
-// explanation beside each is revisited rather than silently outdated.
+// run on every build. Each asserts that the disagreement still stands, so it fails the day
+// the solver agrees (and the explanation beside it must be revisited) and, unlike an
+// inverted result, also when the computation itself fails or throws.
 #include <gtest/gtest.h>
+
+#include <cmath>
+#include <cstdio>
 
 #include "reference/helix_case.hpp"
 
@@ -15,7 +18,10 @@ namespace {
 TEST(KnownDeviation, HelixBeamwidthAgainstKrausFormula) {
   const Solved solved = solve_helix();
   const Real reference = kraus_beamwidth_deg();
-  EXPECT_NEAR(helix_beamwidth_deg(solved.result.pattern), reference, 0.2 * reference);
+  const Real beamwidth = helix_beamwidth_deg(solved.result.pattern);
+  ASSERT_TRUE(std::isfinite(beamwidth));
+  std::printf("helix beamwidth %.1f deg, Kraus's formula %.1f deg\n", beamwidth, reference);
+  EXPECT_GT(std::abs(beamwidth - reference), 0.2 * reference) << "the known deviation is gone: revisit DEVELOPERS.md";
 }
 
 }  // namespace
