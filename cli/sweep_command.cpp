@@ -135,8 +135,16 @@ int sweep_command(const SweepOptions& options) {
   for (std::size_t c = 0; c < cases.size(); ++c) {
     case_files.push_back(case_directory / (case_name(c) + ".h5"));
     if (std::filesystem::exists(case_files.back())) {
-      ++skipped;
-      continue;
+      // Published whole by rename, a case file can still be damaged afterwards (a disk
+      // error, a copy cut short): a file that does not read is named and solved again.
+      try {
+        read_result_network(case_files.back());
+        ++skipped;
+        continue;
+      } catch (const InputError& e) {
+        std::fprintf(stderr, "\n%s is damaged (%s); solving it again\n", case_files.back().string().c_str(), e.what());
+        std::filesystem::remove(case_files.back());
+      }
     }
     const Model model = load_model(options.model_path, overrides_of(cases[c]));
     const AntennaProblem problem(model);

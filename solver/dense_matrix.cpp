@@ -6,27 +6,32 @@
 #include <cstdio>
 
 #include "core/check.hpp"
+#include "solver/memory_limit.hpp"
 
 namespace lobe {
 
 std::uint64_t dense_matrix_bytes(std::uint64_t n) { return 2 * n * n * sizeof(Complex); }
 
 namespace {
-/// Share of the machine's memory the dense matrices may take.
-constexpr double usable_memory_share = 0.8;
+/// Share of the memory this process can have that the dense matrices may take; the rest is
+/// for the meshes, far fields and results.
+constexpr double usable_memory_share = 0.9;
 }  // namespace
 
 void require_dense_memory(const Model& model, double unknowns, bool estimated) {
-  const double available = static_cast<double>(sysconf(_SC_PHYS_PAGES)) * static_cast<double>(sysconf(_SC_PAGE_SIZE));
+  // What the process can really have: free memory, its control group's limit and its
+  // address-space limit, not the machine's total (80 % of which once let a run start that
+  // the out-of-memory killer then ended).
+  const MemoryBudget budget = usable_memory();
   // The same count as dense_matrix_bytes, in floating point: an estimate may overflow integers.
   const double needed = static_cast<double>(dense_matrix_bytes(1)) * unknowns * unknowns;
-  if (needed > usable_memory_share * available) {
-    char message[320];
+  if (needed > usable_memory_share * budget.bytes) {
+    char message[400];
     std::snprintf(message, sizeof message,
-                  "the model has %s%.0f unknowns%s; its matrices need %.3g GiB but this machine has %.1f GiB; "
-                  "use fewer segments or a coarser mesh",
+                  "the model has %s%.0f unknowns%s; its matrices need %.3g GiB but this process can have %.2g GiB "
+                  "(%s); use fewer segments or a coarser mesh",
                   estimated ? "about " : "", unknowns, estimated ? " (estimated before meshing)" : "",
-                  needed / (1 << 30), available / (1 << 30));
+                  needed / (1 << 30), budget.bytes / (1 << 30), budget.source.c_str());
     throw InputError({model.file, 1, 1}, message);
   }
 }

@@ -207,6 +207,24 @@ TEST(BadInput, OutputPathsAreCheckedBeforeSolving) {
   }
 }
 
+// The memory check counts what the process may really have: under an address-space limit
+// (ulimit -v) of 1 GB, a model whose matrices need 1.5 GB is refused before meshing, naming
+// the limit (it once counted 80 % of the machine's memory and let the run start).
+TEST(BadInput, MemoryCheckHonoursTheProcessLimits) {
+  const auto scratch = fresh_directory("memory-limit");
+  const auto model = scratch / "large.lobe";
+  std::ofstream(model) << "units mm\nplate p rectangle corner (-300,-300,0) size (600, 600)\nmesh p size 12\n"
+                          "wire w from (0,0,0) to (0,0,70) radius 0.5\nport f on w at start\nfrequency 1 GHz\n";
+  const ProcessResult free_run = run_lobe("check " + quoted_path(model), scratch);
+  ASSERT_EQ(free_run.exit_code, 0) << free_run.err;
+  const auto out = scratch / "out.txt", err = scratch / "err.txt";
+  const std::string command = "ulimit -v 1000000; " + std::string(LOBE_EXECUTABLE) + " check " + quoted_path(model) +
+                              " > " + quoted_path(out) + " 2> " + quoted_path(err);
+  const int status = std::system(command.c_str());
+  EXPECT_EQ(WEXITSTATUS(status), 2) << read_text(err);
+  EXPECT_NE(read_text(err).find("the address-space limit (ulimit -v)"), std::string::npos) << read_text(err);
+}
+
 TEST(BadInput, OutputDirectoryThatIsAFile) {
   const auto scratch = fresh_directory("bad-output");
   const auto file = scratch / "not-a-directory";

@@ -227,6 +227,23 @@ TEST(Sweep, OneSweepPerOutputAndOnlyDeadTemporariesRemoved) {
   EXPECT_FALSE(std::filesystem::exists(out / (".half_wave_dipole_ism.h5.partial-" + std::to_string(gone))));
 }
 
+// A case file damaged after it was published (truncated here) is named on resume and solved
+// again, and the sweep ends as an undamaged one would.
+TEST(Sweep, DamagedCaseFileIsSolvedAgainOnResume) {
+  const auto dir = fresh_directory("sweep-damaged");
+  const std::string command = "sweep '" + models + "half_wave_dipole_ism.lobe' --vary rod=1,2 -o '" + (dir / "s.h5").string() +
+                              "' --threads 1";
+  ASSERT_EQ(run_lobe(command, dir).exit_code, 0);
+  const auto damaged = dir / "s.h5.cases" / "case-000002.h5";
+  const NetworkData before = read_result_network(damaged);
+  std::filesystem::resize_file(damaged, std::filesystem::file_size(damaged) / 3);
+  const ProcessResult r = run_lobe(command, dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_NE(r.err.find("case-000002.h5 is damaged"), std::string::npos) << r.err;
+  EXPECT_NE(r.out.find("(1 solved now, 1 from before)"), std::string::npos) << r.out;
+  EXPECT_EQ(read_result_network(damaged).s.back()(0, 0), before.s.back()(0, 0));
+}
+
 // plot on a sweep file maps the band figure of every case, each recomputed here from the
 // case's own S11, and names the best case.
 TEST(Sweep, PlotMapsTheBandFigureOfEveryCase) {
