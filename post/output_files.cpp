@@ -55,6 +55,13 @@ void flush_to_disk(const std::filesystem::path& path) {
 
 std::vector<std::filesystem::path> OutputFiles::commit() {
   std::vector<std::filesystem::path> written;
+  // Everything that could stop the renames halfway is checked before the first: a
+  // directory standing where a file goes once left new and old files mixed.
+  for (const auto& [staging, final_path] : m_staged) {
+    std::error_code error;
+    if (std::filesystem::is_directory(final_path, error))
+      throw OutputError("cannot write " + final_path.string() + ": a directory stands where the file goes");
+  }
   for (const auto& [staging, final_path] : m_staged) flush_to_disk(staging);
   for (const auto& [staging, final_path] : m_staged) {
     std::filesystem::rename(staging, final_path);

@@ -6,6 +6,7 @@
 #include <filesystem>
 #include <fstream>
 
+#include "core/output_error.hpp"
 #include "post/csv_writer.hpp"
 #include "post/hdf5_writer.hpp"
 #include "post/output_files.hpp"
@@ -87,6 +88,27 @@ TEST(ResultFiles, PowerBalanceMissIsAWarningInTheSummaryAndTheFile) {
   EXPECT_GE(set, 0);
   H5Dclose(set);
   H5Fclose(file);
+}
+
+// A directory where one of the set's files goes stops the commit before the first rename:
+// the earlier set stays whole instead of new and old files mixed.
+TEST(ResultFiles, ADirectoryInTheWayStopsTheWholeSetBeforeAnyRename) {
+  const auto dir = scratch("in-the-way");
+  std::ofstream(dir / "a.txt") << "old a";
+  std::filesystem::create_directories(dir / "b.txt");
+  {
+    OutputFiles files(dir);
+    files.stage_text("a.txt", "new a");
+    files.stage_text("b.txt", "new b");
+    EXPECT_THROW(files.commit(), OutputError);
+  }
+  std::ifstream in(dir / "a.txt");
+  std::string text;
+  std::getline(in, text);
+  EXPECT_EQ(text, "old a");
+  std::size_t entries = 0;
+  for ([[maybe_unused]] const auto& e : std::filesystem::directory_iterator(dir)) ++entries;
+  EXPECT_EQ(entries, 2u);  // a.txt and the directory b.txt, no temporaries left
 }
 
 TEST(ResultFiles, PortsCsvHasTheDocumentedHeader) {
