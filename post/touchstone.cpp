@@ -122,8 +122,11 @@ bool read_keyword(const std::string& line, const SourceLocation& at, Parsed& p, 
   if (key == "version") {
     p.version = parse_number(first_value(), value_at) >= 2.0 ? 2 : 1;
   } else if (key == "number of ports") {
-    p.ports = static_cast<int>(parse_number(first_value(), value_at));
-    if (p.ports < 1 || p.ports > 64) throw InputError(value_at, "the number of ports must be from 1 to 64");
+    // Checked as a number before it becomes an int: 3e9 ports once overflowed the cast.
+    const Real ports = parse_number(first_value(), value_at);
+    if (!(ports >= 1 && ports <= max_ports) || ports != std::floor(ports))
+      throw InputError(value_at, "the number of ports must be a whole number from 1 to " + std::to_string(max_ports));
+    p.ports = static_cast<int>(ports);
   } else if (key == "two-port data order") {
     const std::string order = first_value();
     if (order == "12_21") p.two_port_21_12 = false;

@@ -150,6 +150,9 @@ TEST(Touchstone, RefusesWhatNoMeasurementGives) {
     return std::string("no error");
   };
   EXPECT_NE(message("many.s40000p", "# GHz S MA R 50\n1 0.5 0\n").find("at most 64"), std::string::npos);
+  // Found by fuzzing: 3e9 ports overflowed the conversion to int (undefined behaviour).
+  EXPECT_NE(message("huge.ts", "[Version] 2.0\n# Hz S MA R 50\n[Number of Ports] 3e9\n").find("from 1 to 64"),
+            std::string::npos);
   EXPECT_NE(message("big.s1p", "# GHz S MA R 50\n1 1.3 0\n2 0.5 0\n").find("|S11| is 1.3"), std::string::npos);
   EXPECT_NE(message("gain.s1p", "# GHz S DB R 50\n1 6 0\n").find("cannot reflect more"), std::string::npos);
   EXPECT_NE(message("zero.s1p", "# GHz S MA R 50\n0 0.5 0\n1 0.5 0\n").find("above zero"), std::string::npos);
