@@ -3,6 +3,7 @@
 #include <limits>
 
 #include "core/input_error.hpp"
+#include "post/output_files.hpp"
 
 namespace lobe {
 namespace {
@@ -69,6 +70,9 @@ hid_t open_hdf5_for_reading(const std::filesystem::path& path) {
   std::error_code error;
   if (std::filesystem::is_directory(path, error)) throw InputError(where, "this is a directory, not a result file");
   if (H5Fis_hdf5(path.c_str()) <= 0) throw InputError(where, "cannot open this as an HDF5 result file");
+  if (const auto marker = publishing_marker_for(path))
+    throw InputError(where, "this result set was interrupted while it was being written (" + marker->filename().string() +
+                                " names it): its files may be part new, part old; run it again");
   const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
   if (file < 0) throw InputError(where, "cannot open this HDF5 file: it is truncated or damaged");
   return file;

@@ -9,6 +9,7 @@
 #include "core/constants.hpp"
 #include "core/input_error.hpp"
 #include "core/text_file.hpp"
+#include "post/output_files.hpp"
 #include "post/port_quantities.hpp"
 
 namespace lobe {
@@ -101,6 +102,8 @@ std::optional<Real> number_in(std::string text) {
 
 MeasuredCurve read_measured_csv(const std::filesystem::path& path, Real reference_ohm) {
   const std::string file = path.string();
+  if (const auto marker = publishing_marker_for(path))
+    throw InputError({file, 1, 1}, "this table belongs to a result set that was interrupted while it was being written");
   std::istringstream in(read_text_file(file, max_measured_bytes, "the measured file"));
   std::string line;
   int number = 0;

@@ -7,6 +7,7 @@
 
 #include <cerrno>
 #include <fstream>
+#include <optional>
 #include <stdexcept>
 
 #include "core/output_error.hpp"
@@ -41,6 +42,11 @@ void OutputFiles::stage_text(const std::string& name, const std::string& text) {
 
 namespace {
 
+/// The marker that stands beside `file` while the set it belongs to is published.
+std::filesystem::path marker_of(const std::filesystem::path& file) {
+  return file.parent_path() / ("." + file.filename().string() + ".publishing");
+}
+
 /// Flushes a file or directory to the disk, so that a rename that follows (or preceded)
 /// survives a power loss together with the data.
 void flush_to_disk(const std::filesystem::path& path) {
@@ -63,13 +69,42 @@ std::vector<std::filesystem::path> OutputFiles::commit() {
       throw OutputError("cannot write " + final_path.string() + ": a directory stands where the file goes");
   }
   for (const auto& [staging, final_path] : m_staged) flush_to_disk(staging);
+  // A set of more than one file cannot appear in one rename. Beside each of its files a
+  // marker (.NAME.publishing) is on disk before the first rename and gone after the last:
+  // a process killed in between leaves them behind, and the readers refuse the files they
+  // stand beside (publishing_marker_for, one look-up per file read).
+  const bool several = m_staged.size() > 1;
+  if (several) {
+    std::string names;
+    for (const auto& [staging, final_path] : m_staged) names += final_path.filename().string() + "\n";
+    for (const auto& [staging, final_path] : m_staged) {
+      const auto marker = marker_of(final_path);
+      errno = 0;
+      std::ofstream out(marker, std::ios::binary);
+      out << "published together, interrupted if this file remains:\n" << names;
+      out.close();
+      if (!out) throw output_error(marker.string());
+    }
+    flush_to_disk(m_directory);
+  }
   for (const auto& [staging, final_path] : m_staged) {
     std::filesystem::rename(staging, final_path);
     written.push_back(final_path);
   }
   flush_to_disk(m_directory);
+  if (several) {
+    for (const auto& path : written) std::filesystem::remove(marker_of(path));
+    flush_to_disk(m_directory);
+  }
   m_committed = true;
   return written;
+}
+
+std::optional<std::filesystem::path> publishing_marker_for(const std::filesystem::path& file) {
+  std::error_code error;
+  const auto marker = marker_of(file);
+  if (std::filesystem::exists(marker, error)) return marker;
+  return std::nullopt;
 }
 
 std::size_t remove_dead_temporaries(const std::filesystem::path& directory) {

@@ -1,6 +1,7 @@
 #pragma once
 /// Result files that appear all together or not at all.
 #include <filesystem>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -8,7 +9,9 @@ namespace lobe {
 
 /// Hands out temporary names beside the final ones; commit() renames them into place.
 /// Destroyed uncommitted (an error on the way), it removes the temporaries, so a user's
-/// earlier results are never replaced by a half-written set.
+/// earlier results are never replaced by a half-written set. A set of several files is
+/// published under markers (.NAME.publishing beside each) that a killed process leaves
+/// behind and the readers check.
 class OutputFiles {
  public:
   explicit OutputFiles(std::filesystem::path directory);
@@ -29,6 +32,10 @@ class OutputFiles {
   std::vector<std::pair<std::filesystem::path, std::filesystem::path>> m_staged;
   bool m_committed = false;
 };
+
+/// The marker of an interrupted publication that names `file`, if one stands in its
+/// directory: the set `file` belongs to may be part new, part old, and is not to be read.
+std::optional<std::filesystem::path> publishing_marker_for(const std::filesystem::path& file);
 
 /// Removes the temporaries (.NAME.partial-PID) in `directory` left by processes that no
 /// longer run (killed, or the machine lost power); those of running processes stay.

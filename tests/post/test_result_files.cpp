@@ -10,6 +10,7 @@
 #include "post/csv_writer.hpp"
 #include "post/hdf5_writer.hpp"
 #include "post/output_files.hpp"
+#include "post/result_reader.hpp"
 #include "post/run_summary.hpp"
 #include "support/solve_text.hpp"
 
@@ -109,6 +110,35 @@ TEST(ResultFiles, ADirectoryInTheWayStopsTheWholeSetBeforeAnyRename) {
   std::size_t entries = 0;
   for ([[maybe_unused]] const auto& e : std::filesystem::directory_iterator(dir)) ++entries;
   EXPECT_EQ(entries, 2u);  // a.txt and the directory b.txt, no temporaries left
+}
+
+// A set of files cannot appear in one rename: a marker naming the set stands while it is
+// published. One left by a killed process (simulated here) makes the readers refuse the
+// files it names; publishing them again removes it.
+TEST(ResultFiles, AnInterruptedPublicationIsRefusedUntilTheSetIsWrittenAgain) {
+  const Solved s = solve_text(dipole_text(0.5, 1e-4, 20));
+  RunRecord run{*s.problem, {s.result}, {"test", 1, "lobe run test", std::nullopt}};
+  const auto dir = scratch("interrupted");
+  auto publish = [&] {
+    OutputFiles files(dir);
+    write_hdf5(files.staging_path("run.h5"), run);
+    write_ports_csv(files.staging_path("run_ports.csv"), run);
+    files.commit();
+  };
+  publish();
+  for (const auto& e : std::filesystem::directory_iterator(dir))
+    EXPECT_EQ(e.path().filename().string().find(".publishing"), std::string::npos) << "a marker outlived its commit";
+  EXPECT_NO_THROW(read_result_network(dir / "run.h5"));
+  std::ofstream(dir / ".run.h5.publishing") << "run.h5\nrun_ports.csv\n";  // killed between the renames
+  try {
+    read_result_network(dir / "run.h5");
+    ADD_FAILURE() << "an interrupted set was read";
+  } catch (const InputError& e) {
+    EXPECT_NE(std::string(e.what()).find("interrupted while it was being written"), std::string::npos) << e.what();
+  }
+  publish();
+  EXPECT_FALSE(std::filesystem::exists(dir / ".run.h5.publishing"));
+  EXPECT_NO_THROW(read_result_network(dir / "run.h5"));
 }
 
 TEST(ResultFiles, PortsCsvHasTheDocumentedHeader) {
