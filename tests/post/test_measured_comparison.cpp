@@ -65,15 +65,17 @@ TEST(MeasuredCsv, EveryAcceptedQuantity) {
   }
 }
 
+/// The one-line message reading `text` as a measured table gives, or "no error".
+std::string message(const std::string& text) {
+  try {
+    read_measured_csv(written("bad.csv", text), 50.0);
+  } catch (const InputError& e) {
+    return e.formatted();
+  }
+  return "no error";
+}
+
 TEST(MeasuredCsv, FaultsAreLocated) {
-  auto message = [](const std::string& text) {
-    try {
-      read_measured_csv(written("bad.csv", text), 50.0);
-    } catch (const InputError& e) {
-      return e.formatted();
-    }
-    return std::string("no error");
-  };
   EXPECT_NE(message("f,vswr\n1,2\n").find(":1:1: no frequency column"), std::string::npos);
   EXPECT_NE(message("frequency_hz,phase\n1,2\n").find("no measured quantity"), std::string::npos);
   EXPECT_NE(message("frequency_hz,vswr\n1e9,0.5\n2e9,2\n").find(":2:5: a VSWR cannot be below 1"), std::string::npos);
@@ -93,14 +95,6 @@ TEST(MeasuredCsv, ReadsWhatAnalysersWriteAndRefusesTheImpossible) {
       read_measured_csv(written("semicolon.csv", "Frequency (MHz);SWR\r\n433,05;1,25\r\n434,79;1,5\r\n"), 50.0);
   EXPECT_DOUBLE_EQ(semicolon.curve.frequency_hz[1], 434.79e6);
   EXPECT_NEAR(std::abs(semicolon.curve.reflection[0]), 0.25 / 2.25, 1e-15);  // (s − 1)/(s + 1)
-  auto message = [](const std::string& text) {
-    try {
-      read_measured_csv(written("bad.csv", text), 50.0);
-    } catch (const InputError& e) {
-      return e.formatted();
-    }
-    return std::string("no error");
-  };
   EXPECT_NE(message("frequency_hz,s11_db\n1e9,6\n2e9,-6\n").find(":2:5: a passive antenna cannot reflect more"),
             std::string::npos) << message("frequency_hz,s11_db\n1e9,6\n2e9,-6\n");
   EXPECT_NE(message("frequency_hz,vswr\n0,2\n1e9,2\n").find("a frequency must be above zero"), std::string::npos);

@@ -119,15 +119,17 @@ TEST(Touchstone, ImpedanceDataBecomesScattering) {
   EXPECT_NEAR(std::abs(v2.s[0](0, 0) - 1.0 / 3.0), 0.0, 1e-15);
 }
 
+/// The one-line message reading `text` as file `name` gives, or "no error".
+std::string message(const std::string& name, const std::string& text) {
+  try {
+    read_touchstone(written(name, text));
+  } catch (const InputError& e) {
+    return e.formatted();
+  }
+  return "no error";
+}
+
 TEST(Touchstone, FaultsAreLocated) {
-  auto message = [](const std::string& name, const std::string& text) {
-    try {
-      read_touchstone(written(name, text));
-    } catch (const InputError& e) {
-      return e.formatted();
-    }
-    return std::string("no error");
-  };
   EXPECT_NE(message("short.s2p", "# GHz S RI\n1 0.1 0 0.2 0\n").find(":2:1: this frequency's record is incomplete"),
             std::string::npos);
   EXPECT_NE(message("down.s1p", "# GHz S RI\n2 0.1 0\n1 0.1 0\n").find(":3:1: frequencies must increase"),
@@ -141,14 +143,6 @@ TEST(Touchstone, FaultsAreLocated) {
 // positive, a port may not reflect more than it receives (|S11| > 1, or a positive S11 in
 // dB); an analyser's .txt reads with a default port count.
 TEST(Touchstone, RefusesWhatNoMeasurementGives) {
-  auto message = [](const std::string& name, const std::string& text) {
-    try {
-      read_touchstone(written(name, text));
-    } catch (const InputError& e) {
-      return e.formatted();
-    }
-    return std::string("no error");
-  };
   EXPECT_NE(message("many.s40000p", "# GHz S MA R 50\n1 0.5 0\n").find("at most 64"), std::string::npos);
   // Found by fuzzing: 3e9 ports overflowed the conversion to int (undefined behaviour).
   EXPECT_NE(message("huge.ts", "[Version] 2.0\n# Hz S MA R 50\n[Number of Ports] 3e9\n").find("from 1 to 64"),
