@@ -2,7 +2,7 @@
 // an InputError; nothing else may escape, crash or hang.
 // Build: CC=clang CXX=clang++ cmake -S . -B build-fuzz -DLOBE_FUZZ=ON -DLOBE_OPENMP=OFF -DLOBE_BENCH=OFF
 //        cmake --build build-fuzz --target fuzz_model_parser
-// Run:   build-fuzz/tests/fuzz_model_parser -max_total_time=600 /tmp/corpus tests/fuzz/corpus/model models tests/bad_models
+// Run:   build-fuzz/tests/fuzz_model_parser -max_total_time=600 /tmp/corpus tests/fuzz/corpus/model_parser models tests/bad_models
 #include <cstddef>
 #include <cstdint>
 #include <string>
