@@ -6,6 +6,7 @@
 #include "core/formatted_text.hpp"
 #include "post/exposure_estimate.hpp"
 #include "post/run_summary.hpp"
+#include "solver/frequency_limits.hpp"
 
 namespace lobe {
 namespace {
@@ -27,17 +28,7 @@ std::vector<const FrequencyResult*> results_for(const RunRecord& run, const Band
 }  // namespace
 
 Real antenna_largest_size_m(const AntennaProblem& problem) {
-  Vec3 low = Vec3::Constant(1e300), high = Vec3::Constant(-1e300);
-  auto include = [&](const Vec3& p) {
-    low = low.cwiseMin(p), high = high.cwiseMax(p);
-    if (problem.model.ground_perfect) {
-      const Vec3 image(p.x(), p.y(), -p.z());
-      low = low.cwiseMin(image), high = high.cwiseMax(image);
-    }
-  };
-  for (const auto& s : problem.mesh.segments) include(s.start), include(s.end);
-  for (const auto& v : problem.surfaces.mesh.vertices) include(v);
-  return (high - low).norm();
+  return structure_extent_m(problem.mesh, problem.surfaces.mesh, problem.model.ground_perfect);
 }
 
 std::string exposure_text(const RunRecord& run, Real forward_w) {

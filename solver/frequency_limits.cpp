@@ -28,30 +28,31 @@ std::string hz_text(Real f) {
 
 }  // namespace
 
-std::vector<MeshWarning> check_frequency_limits(const Model& model, const WireMesh& wires, const SurfaceMesh& surfaces) {
-  std::vector<MeshWarning> warnings;
-  if (model.frequencies_hz.empty() || (wires.segments.empty() && surfaces.triangles.empty())) return warnings;
-  const SourceLocation& where = model.frequency_where;
+Real structure_extent_m(const WireMesh& wires, const SurfaceMesh& surfaces, bool ground_perfect) {
   Vec3 low = Vec3::Constant(INFINITY), high = Vec3::Constant(-INFINITY);
-  Real longest = 0.0;
   auto include = [&](const Vec3& p) {
     low = low.cwiseMin(p);
     high = high.cwiseMax(p);
-    if (model.ground_perfect) {  // and its image
+    if (ground_perfect) {  // and its image
       low.z() = std::min(low.z(), -p.z());
       high.z() = std::max(high.z(), -p.z());
     }
   };
-  for (const Segment& s : wires.segments) {
-    include(s.start);
-    include(s.end);
-    longest = std::max(longest, s.length());
-  }
+  for (const Segment& s : wires.segments) include(s.start), include(s.end);
   for (const Vec3& v : surfaces.vertices) include(v);
+  return (high - low).norm();
+}
+
+std::vector<MeshWarning> check_frequency_limits(const Model& model, const WireMesh& wires, const SurfaceMesh& surfaces) {
+  std::vector<MeshWarning> warnings;
+  if (model.frequencies_hz.empty() || (wires.segments.empty() && surfaces.triangles.empty())) return warnings;
+  const SourceLocation& where = model.frequency_where;
+  Real longest = 0.0;
+  for (const Segment& s : wires.segments) longest = std::max(longest, s.length());
   for (std::size_t t = 0; t < surfaces.triangles.size(); ++t)
     for (int k = 0; k < 3; ++k)
       longest = std::max(longest, (surfaces.corner(static_cast<int>(t), k) - surfaces.corner(static_cast<int>(t), (k + 1) % 3)).norm());
-  const Real extent = (high - low).norm();
+  const Real extent = structure_extent_m(wires, surfaces, model.ground_perfect);
   const auto [lowest, highest] = std::minmax_element(model.frequencies_hz.begin(), model.frequencies_hz.end());
   const Real k_low = 2 * pi * *lowest / speed_of_light, k_high = 2 * pi * *highest / speed_of_light;
 

@@ -9,6 +9,10 @@
 
 namespace lobe {
 
+/// The diagonal of the box around every segment end and surface vertex (and their images
+/// over a perfect ground), m: the structure's largest extent D.
+Real structure_extent_m(const WireMesh& wires, const SurfaceMesh& surfaces, bool ground_perfect);
+
 /// Checks the model's lowest and highest frequencies against the meshes. Throws InputError,
 /// located at the frequency statement, where the method cannot work:
 /// - below k·D = 1e-5 (D the structure's largest extent) the EFIE's scalar-potential term
