@@ -13,10 +13,8 @@
 #include <vector>
 
 #include "geometry/model_parser.hpp"
+#include "solver/assembly.hpp"
 #include "solver/dense_matrix.hpp"
-#include "solver/coupling_fill.hpp"
-#include "solver/impedance_fill.hpp"
-#include "solver/surface_fill.hpp"
 #include "solver/threads.hpp"
 #include "solver/time_estimate.hpp"
 #include "solver/antenna_problem.hpp"
@@ -87,10 +85,7 @@ int main() {
     DenseMatrix matrix(n);
     const Real f = model.frequencies_hz[0];
     auto start = Clock::now();
-    add_wire_impedance(problem.mesh, problem.basis, false, f, matrix.entries());
-    add_surface_impedance(problem.surfaces.mesh, problem.rwg, false, f, matrix.entries());
-    add_coupling_impedance(problem.mesh, problem.basis, problem.surfaces.mesh, problem.rwg, problem.stars, false, f,
-                           matrix.entries());
+    assemble_system(problem, f, matrix);
     fill.push_back(seconds_since(start));
     start = Clock::now();
     matrix.factor();
@@ -100,7 +95,7 @@ int main() {
   std::printf("%9ld %10.3f %10.3f %12.1f %11.0f%% %14.3f %12.0f MiB\n", static_cast<long>(n), median(fill),
               median(factor), rate, 100 * rate / peak, median(fill) + median(factor), peak_memory_mib());
   std::printf("(the dense matrix and its kept copy take %.0f MiB of that)\n",
-              static_cast<double>(dense_matrix_bytes(static_cast<std::uint64_t>(n))) / (1 << 20));
+              static_cast<double>(system_matrix_bytes(static_cast<std::uint64_t>(n))) / (1 << 20));
   std::printf("\nwires (broadside curtains of half-wave dipoles), %d repetitions:\n", repetitions);
   std::printf("%9s %10s %10s %12s %12s %14s\n", "unknowns", "fill (s)", "factor (s)", "factor GF/s", "of zgemm", "total (s)");
   for (int dipoles : {20, 40}) {
@@ -114,7 +109,7 @@ int main() {
     for (int r = 0; r < repetitions; ++r) {
       matrices.emplace_back(n);
       const auto start = Clock::now();
-      add_wire_impedance(problem.mesh, problem.basis, false, model.frequencies_hz[0], matrices.back().entries());
+      assemble_system(problem, model.frequencies_hz[0], matrices.back());
       fill.push_back(seconds_since(start));
     }
     for (auto& matrix : matrices) {

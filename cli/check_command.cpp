@@ -4,7 +4,6 @@
 #include "cli/model_loading.hpp"
 #include "post/run_summary.hpp"
 #include "core/constants.hpp"
-#include "solver/scattering_problem.hpp"
 #include "solver/antenna_problem.hpp"
 #include "solver/time_estimate.hpp"
 #include "cli/progress_line.hpp"
@@ -25,17 +24,6 @@ void print_long_run_estimate(double unknowns, double frequencies, double cases) 
 
 int check_command(const std::string& model_path, const std::vector<std::string>& set_options) {
   const Model model = load_model(model_path, set_options);
-  if (model.wave) {
-    const ScatteringProblem problem(model);
-    print_warnings(problem.surfaces.warnings);
-    std::printf("%s: %s, %s, %s (RWG edges), smallest triangle angle %.1f deg\n", model_path.c_str(),
-                count_text(model.surfaces.size(), "plate or body", "plates and bodies").c_str(),
-                count_text(problem.surfaces.mesh.triangles.size(), "triangle").c_str(),
-                count_text(problem.basis.size(), "unknown").c_str(), problem.surfaces.smallest_angle * 180 / pi);
-    std::printf("dense matrices: %.3g MiB per frequency\n",
-                static_cast<double>(dense_matrix_bytes(static_cast<std::uint64_t>(problem.basis.size()))) / (1 << 20));
-    return 0;
-  }
   const AntennaProblem problem(model);
   print_warnings(problem.mesh.warnings);
   print_warnings(problem.surfaces.warnings);
@@ -43,7 +31,7 @@ int check_command(const std::string& model_path, const std::vector<std::string>&
               count_text(problem.mesh.segments.size(), "segment").c_str(),
               count_text(problem.mesh.nodes.size(), "node").c_str(),
               count_text(problem.mesh.junction_count, "junction").c_str(),
-              count_text(problem.unknowns(), "unknown").c_str(), count_text(model.ports.size(), "port").c_str(),
+              count_text(problem.unknowns(), "unknown").c_str(), model.wave ? "lit by a plane wave" : count_text(model.ports.size(), "port").c_str(),
               count_text(model.loads.size(), "load").c_str());
   if (!model.surfaces.empty())
     std::printf("surfaces: %s, %s, %s, %s, smallest triangle angle %.1f deg\n",
@@ -52,8 +40,9 @@ int check_command(const std::string& model_path, const std::vector<std::string>&
                 count_text(problem.rwg.size(), "RWG edge").c_str(),
                 count_text(problem.stars.size(), "wire-to-surface junction").c_str(),
                 problem.surfaces.smallest_angle * 180 / pi);
+  require_solvable(problem);
   std::printf("dense matrices: %.3g MiB per frequency\n",
-              static_cast<double>(dense_matrix_bytes(static_cast<std::uint64_t>(problem.unknowns()))) / (1 << 20));
+              static_cast<double>(system_matrix_bytes(static_cast<std::uint64_t>(problem.unknowns()))) / (1 << 20));
   std::printf("%s from %s to %s; ground %s; %s\n", count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
               frequency_text(model.frequencies_hz.front()).c_str(), frequency_text(model.highest_frequency()).c_str(),
               model.ground_perfect ? "perfect" : "none", count_text(problem.mesh.warnings.size() + problem.surfaces.warnings.size(), "warning").c_str());

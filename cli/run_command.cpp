@@ -58,6 +58,7 @@ int run_command(const RunOptions& options) {
     model.bands.push_back(parse_band_option(options.band_options[i], static_cast<int>(i) + 1));
   if (model.wave) return run_scattering(options, model);
   const AntennaProblem problem(model);
+  require_solvable(problem);
   print_warnings(problem.mesh.warnings);
   print_warnings(problem.surfaces.warnings);
   const std::filesystem::path model_path(options.model_path);

@@ -816,10 +816,6 @@ class ModelParser {
                        "plates and bodies are perfect conductors for now; 'conductor all' cannot apply to them");
     if (m_model.wave && !m_model.ports.empty())
       throw InputError(m_model.wave->where, "a model is either lit by a plane wave or driven by ports, not both");
-    if (m_model.wave && !m_model.wires.empty())
-      throw InputError(m_model.wave->where, "a plane wave lights plates and bodies only; drive wires with ports");
-    if (m_model.wave && m_model.ground_perfect)
-      throw InputError(m_model.wave->where, "plane waves over a ground plane are not supported; use 'ground none'");
     if (!m_model.wave && m_model.ports.empty())
       throw InputError(end_of_file, "the model has no port; add one such as 'port feed on WIRE at middle' or "
                                     "'port feed on PLATE along (x, y, z) to (x, y, z)', or light plates with a 'wave'");

@@ -3,59 +3,29 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "solver/basis_samples.hpp"
 #include "solver/gauss_legendre.hpp"
+#include "solver/green_function.hpp"
 #include "solver/phase_factor.hpp"
-#include "solver/triangle_rules.hpp"
 
 namespace lobe {
-namespace {
-
-/// Points per segment; exact to rounding for the linear current times the phase
-/// e^{jk r̂·r'} over segments up to about a quarter wavelength.
-constexpr int points_per_segment = 6;
-/// Duffy points per direction on each junction-star triangle (smooth in those coordinates).
-constexpr int points_per_star_direction = 6;
-
-}  // namespace
 
 FarField::FarField(const AntennaProblem& problem, const FrequencySolution& solution)
-    : m_k(2 * pi * solution.frequency_hz / speed_of_light), m_omega(2 * pi * solution.frequency_hz),
-      m_ground(problem.model.ground_perfect) {
+    : m_k(problem.medium.wavenumber(solution.frequency_hz)), m_omega(2 * pi * solution.frequency_hz),
+      m_images(problem.medium.images()), m_ground(problem.medium.has_ground()) {
   const WireMesh& mesh = problem.mesh;
   const SurfaceMesh& surface = problem.surfaces.mesh;
   for (const auto& s : mesh.segments) m_centre += s.midpoint();
   for (std::size_t t = 0; t < surface.triangles.size(); ++t) m_centre += surface.centroid(static_cast<int>(t));
   const std::size_t elements = mesh.segments.size() + surface.triangles.size();
   if (elements > 0) m_centre /= static_cast<Real>(elements);
-  if (m_ground) m_centre.z() = 0.0;  // images make the source symmetric about z = 0
+  // Images make the source symmetric about each mirror plane (all through the origin).
+  for (const ImageSource& image : m_images) m_centre = 0.5 * (m_centre + image.point(m_centre));
 
-  const QuadratureRule& rule = gauss_legendre(points_per_segment);
-  for (std::size_t s = 0; s < mesh.segments.size(); ++s) {
-    const Segment& seg = mesh.segments[s];
-    const auto& c = solution.segment_currents[s];
-    const Vec3 u = seg.direction();
-    for (int q = 0; q < points_per_segment; ++q) {
-      const Real xi = rule.nodes[q];
-      const Complex current = c[0] * (1.0 - xi) + c[1] * xi;
-      add_source(seg.start + xi * (seg.end - seg.start) - m_centre, (current * (rule.weights[q] * seg.length())) * u.cast<Complex>());
-    }
-  }
-  const TriangleRule& area_rule = triangle_rule_degree5();
-  for (std::size_t t = 0; t < surface.triangles.size(); ++t) {
-    const int ti = static_cast<int>(t);
-    for (std::size_t q = 0; q < area_rule.points.size(); ++q) {
-      const auto& b = area_rule.points[q];
-      const Vec3 r = b[0] * surface.corner(ti, 0) + b[1] * surface.corner(ti, 1) + b[2] * surface.corner(ti, 2);
-      if (!problem.rwg.pieces_on(ti).empty())
-        add_source(r - m_centre, current_density(surface, problem.rwg, solution.coefficients, ti, r) *
-                                     (area_rule.weights[q] * surface.area(ti)));
-    }
-  }
-  for (const JunctionStar& star : problem.stars) {
-    Complex current = 0.0;
-    for (int b : star.bases) current += solution.coefficients[b];
-    for (const StarSample& sample : star_samples(star, points_per_star_direction))
-      add_source(sample.r - m_centre, current * sample.current.cast<Complex>());
+  for (const BasisSample& sample : basis_samples(problem)) {
+    Eigen::Vector3cd moment = Eigen::Vector3cd::Zero();
+    for (const BasisWeight& w : sample.weights) moment += solution.coefficients[w.basis] * w.moment.cast<Complex>();
+    add_source(sample.r, moment);
   }
 }
 
@@ -70,11 +40,10 @@ void FarField::add_point(const Vec3& x, const Eigen::Vector3cd& moment) {
   m_extent = std::max(m_extent, x.norm());
 }
 
-void FarField::add_source(const Vec3& x, const Eigen::Vector3cd& moment) {
-  add_point(x, moment);
-  // Image of a current element over a perfect conductor (m_centre lies on it): mirrored
-  // position, horizontal components reversed, vertical kept.
-  if (m_ground) add_point({x.x(), x.y(), -x.z()}, Eigen::Vector3cd(-moment[0], -moment[1], moment[2]));
+void FarField::add_source(const Vec3& r, const Eigen::Vector3cd& moment) {
+  add_point(r - m_centre, moment);
+  // The medium's images of the current element (m_centre lies on each mirror plane).
+  for (const ImageSource& image : m_images) add_point(image.point(r) - m_centre, image.current(moment));
 }
 
 FarFieldSample FarField::at(Real theta, Real phi) const {
@@ -103,7 +72,7 @@ FarFieldSample FarField::at(Real theta, Real phi) const {
     n[c] = Complex(sum_re, sum_im);
   }
   const Vec3 theta_hat(ct * cp, ct * sp, -st), phi_hat(-sp, cp, 0.0);
-  const Complex factor = -j_unit * m_omega * mu0 / (4 * pi);
+  const Complex factor = far_zone_factor(m_omega);
   return {factor * theta_hat.cast<Complex>().dot(n), factor * phi_hat.cast<Complex>().dot(n)};
 }
 

@@ -14,14 +14,18 @@ struct FarFieldSample {
   Complex e_phi;
 };
 
-/// Radiation from the current on every segment, triangle and junction star (and their
-/// images over a perfect ground, where the field below z = 0 is zero). Precomputes
-/// quadrature points once; then each direction costs O(S + T).
+/// Radiation from the current on every segment, triangle and junction star at the points of
+/// solver/basis_samples, and from their images in the problem's medium (over a perfect
+/// ground the field below z = 0 is zero). Antennas and scatterers alike. Precomputes the
+/// points once; then each direction costs O(S + T).
 class FarField {
  public:
   FarField(const AntennaProblem& problem, const FrequencySolution& solution);
   /// θ from +z, φ from +x toward +y, radians.
   FarFieldSample at(Real theta, Real phi) const;
+  /// The point the far-field phase is referred to, m: at(θ, φ) is e^{−jk r̂·centre} times
+  /// the field referred to the origin.
+  const Vec3& phase_centre() const { return m_centre; }
   /// Radiation intensity U = r²|E|²/(2η0), W/sr.
   Real intensity(Real theta, Real phi) const;
   /// ∮ U dΩ by Gauss–Legendre in cos θ and the trapezoidal rule in φ, with orders chosen
@@ -31,6 +35,7 @@ class FarField {
  private:
   Real m_k = 0.0;
   Real m_omega = 0.0;
+  std::vector<ImageSource> m_images;
   bool m_ground = false;
   Vec3 m_centre = Vec3::Zero();
   Real m_extent = 0.0;
@@ -41,8 +46,8 @@ class FarField {
 
   /// A current moment (A·m) at x, relative to m_centre.
   void add_point(const Vec3& x, const Eigen::Vector3cd& moment);
-  /// The same and, over a ground, its image.
-  void add_source(const Vec3& x, const Eigen::Vector3cd& moment);
+  /// A current moment at r (absolute) and its images in the medium.
+  void add_source(const Vec3& r, const Eigen::Vector3cd& moment);
 };
 
 }  // namespace lobe

@@ -214,9 +214,13 @@ void write_surface_currents(hid_t g, const SurfaceMeshReport& surfaces,
   }
 }
 
-void write_currents(hid_t file, const RunRecord& run) {
+/// The segments and triangles with, per frequency, the current at each segment's ends and
+/// the surface density at each triangle's centroid.
+void write_currents(hid_t file, const AntennaProblem& problem,
+                    const std::vector<const std::vector<std::array<Complex, 2>>*>& segment_currents,
+                    const std::vector<const std::vector<Eigen::Vector3cd>*>& densities) {
   Handle g = group(file, "currents");
-  const auto& segments = run.problem.mesh.segments;
+  const auto& segments = problem.mesh.segments;
   const std::size_t ns = segments.size();
   std::vector<Real> starts, ends, radii;
   std::vector<int> wires;
@@ -230,18 +234,26 @@ void write_currents(hid_t file, const RunRecord& run) {
   write_reals(g, "segment_end_m", {ns, 3}, ends, "m");
   write_reals(g, "radius_m", {ns}, radii, "m");
   write_ints(g, "wire", {ns}, wires);
-  const std::vector<hsize_t> dims{run.results.size(), ns};
+  const std::vector<hsize_t> dims{segment_currents.size(), ns};
   for (int end = 0; end < 2; ++end)
     for (int part = 0; part < 2; ++part) {
       const std::string name = std::string(end ? "end" : "start") + (part ? "_im_a" : "_re_a");
-      write_reals(g, name.c_str(), dims, per_frequency(run, ns, [&](const FrequencyResult& r, std::size_t s) {
-                    const Complex c = r.segment_currents[s][end];
-                    return part ? c.imag() : c.real();
-                  }), "A (along the segment)");
+      std::vector<Real> values;
+      for (const auto* currents : segment_currents)
+        for (const auto& c : *currents) values.push_back(part ? c[end].imag() : c[end].real());
+      write_reals(g, name.c_str(), dims, values, "A (along the segment)");
     }
+  write_surface_currents(g, problem.surfaces, densities);
+}
+
+void write_currents(hid_t file, const RunRecord& run) {
+  std::vector<const std::vector<std::array<Complex, 2>>*> segment_currents;
   std::vector<const std::vector<Eigen::Vector3cd>*> densities;
-  for (const auto& r : run.results) densities.push_back(&r.surface_currents);
-  write_surface_currents(g, run.problem.surfaces, densities);
+  for (const auto& r : run.results) {
+    segment_currents.push_back(&r.segment_currents);
+    densities.push_back(&r.surface_currents);
+  }
+  write_currents(file, run.problem, segment_currents, densities);
 }
 
 /// What made the file and the conventions its numbers follow, as root attributes.
@@ -309,15 +321,18 @@ void write_scattering_hdf5(const std::filesystem::path& path, const ScatteringRu
     write_reals(g, "monostatic_m2", {nf}, monostatic, "m2");
   }
   {
-    Handle g = group(file, "currents");
+    std::vector<const std::vector<std::array<Complex, 2>>*> segment_currents;
     std::vector<const std::vector<Eigen::Vector3cd>*> densities;
-    for (const auto& r : run.results) densities.push_back(&r.surface_currents);
-    write_surface_currents(g, run.problem.surfaces, densities);
+    for (const auto& r : run.results) {
+      segment_currents.push_back(&r.segment_currents);
+      densities.push_back(&r.surface_currents);
+    }
+    write_currents(file, run.problem, segment_currents, densities);
   }
   Handle solver = group(file, "solver");
   write_reals(solver, "reciprocal_condition", {nf}, rcond, "1");
   write_reals(solver, "relative_residual", {nf}, residual, "1");
-  int_attribute(solver, "unknowns", run.problem.basis.size());
+  int_attribute(solver, "unknowns", run.problem.unknowns());
   file.save(path);
 }
 

@@ -1,7 +1,6 @@
 #include "post/power_budget.hpp"
 
-#include "solver/impedance_fill.hpp"
-#include "solver/lumped_load.hpp"
+#include "solver/stamps.hpp"
 
 namespace lobe {
 

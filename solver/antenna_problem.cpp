@@ -6,12 +6,9 @@
 
 #include "core/check.hpp"
 #include "geometry/surface_contact.hpp"
-#include "solver/coupling_fill.hpp"
+#include "solver/assembly.hpp"
+#include "solver/excitation.hpp"
 #include "solver/frequency_limits.hpp"
-#include "solver/dense_matrix.hpp"
-#include "solver/impedance_fill.hpp"
-#include "solver/lumped_load.hpp"
-#include "solver/surface_fill.hpp"
 
 namespace lobe {
 namespace {
@@ -166,8 +163,27 @@ namespace {
 
 /// Refuses, before meshing the surfaces, a model whose matrices could never fit in memory.
 const WireMesh& checked_before_meshing(const Model& model, const WireMesh& wires) {
-  require_dense_memory(model, static_cast<double>(wires.segments.size()) + estimated_surface_functions(model), true);
+  require_system_memory(model, static_cast<double>(wires.segments.size()) + estimated_surface_functions(model), true);
   return wires;
+}
+
+/// One star per wire node attached to a surface, each refused where the surface is not flat.
+std::vector<JunctionStar> stars_of(const Model& model, const WireMesh& mesh, const SurfaceMeshReport& surfaces,
+                                   const std::vector<int>& node_vertex, const WireBasis& basis) {
+  std::vector<JunctionStar> stars;
+  for (std::size_t n = 0; n < mesh.nodes.size(); ++n) {
+    if (node_vertex[n] < 0) continue;
+    stars.push_back(junction_star(surfaces.mesh, node_vertex[n]));
+    require_flat_attachment(model, mesh, surfaces, stars.back(), static_cast<int>(n));
+    stars.back().bases = basis.functions_into_surface(static_cast<int>(n));
+  }
+  return stars;
+}
+
+/// The surface mesh, refused where it touches or dips below a ground.
+const SurfaceMeshReport& checked_above_ground(const Model& model, const SurfaceMeshReport& surfaces) {
+  check_surfaces_above_ground(model, surfaces);
+  return surfaces;
 }
 
 }  // namespace
@@ -179,20 +195,15 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
     : model(m),
       mesh(std::move(wires)),
       surfaces(std::move(meshed_surfaces)),
-      node_vertex(attachment_vertices(m, mesh, surfaces)),
+      node_vertex(attachment_vertices(m, mesh, checked_above_ground(m, surfaces))),
       basis(mesh, attached(node_vertex)),
-      rwg(surfaces.mesh, basis.size()) {
-  check_surfaces_above_ground(m, surfaces);
+      rwg(surfaces.mesh, basis.size()),
+      stars(stars_of(m, mesh, surfaces, node_vertex, basis)),
+      medium(Medium::of(m)),
+      geometry(mesh, surfaces.mesh, stars, medium) {
   for (MeshWarning& w : check_frequency_limits(m, mesh, surfaces.mesh)) mesh.warnings.push_back(std::move(w));
   require_current_at_gaps(mesh, attached(node_vertex));
-  for (std::size_t n = 0; n < mesh.nodes.size(); ++n) {
-    if (node_vertex[n] < 0) continue;
-    stars.push_back(junction_star(surfaces.mesh, node_vertex[n]));
-    require_flat_attachment(m, mesh, surfaces, stars.back(), static_cast<int>(n));
-    stars.back().bases = basis.functions_into_surface(static_cast<int>(n));
-  }
   if (unknowns() == 0) throw InputError({m.file, 1, 1}, "the model has no place for current to flow (no unknowns)");
-  require_dense_memory(m, unknowns());
   port_vectors.resize(unknowns(), static_cast<Eigen::Index>(m.ports.size()));
   std::size_t line = 0, gap = 0;
   for (std::size_t p = 0; p < m.ports.size(); ++p) {
@@ -205,8 +216,7 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
   }
   // Ports whose couplings are dependent (two at one place, or one on every wire of a
   // junction) have no port impedance matrix: refuse them here rather than divide by zero.
-  const Eigen::FullPivLU<Eigen::MatrixXd> ports_lu(port_vectors);
-  if (ports_lu.rank() < port_vectors.cols()) {
+  if (port_vectors.cols() > 0 && Eigen::FullPivLU<Eigen::MatrixXd>(port_vectors).rank() < port_vectors.cols()) {
     for (Eigen::Index p = 1; p < port_vectors.cols(); ++p)
       if (Eigen::FullPivLU<Eigen::MatrixXd>(port_vectors.leftCols(p + 1)).rank() < p + 1)
         throw InputError(m.ports[p].where, "port '" + m.ports[p].name +
@@ -218,39 +228,35 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
     load_vectors.col(l).head(basis.size()) = basis.gap_vector(mesh.load_gaps[l]);
 }
 
-FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_hz) {
-  const Eigen::Index n = problem.unknowns();
-  DenseMatrix matrix(n);
-  ComplexMatrix& z = matrix.entries();
-  const bool ground = problem.model.ground_perfect;
-  add_wire_impedance(problem.mesh, problem.basis, ground, frequency_hz, z);
-  add_conductor_impedance(problem.mesh, problem.basis, frequency_hz, z);
-  if (problem.rwg.size() > 0 || !problem.stars.empty()) {
-    add_surface_impedance(problem.surfaces.mesh, problem.rwg, ground, frequency_hz, z);
-    add_coupling_impedance(problem.mesh, problem.basis, problem.surfaces.mesh, problem.rwg, problem.stars, ground,
-                           frequency_hz, z);
-  }
-  for (std::size_t l = 0; l < problem.model.loads.size(); ++l) {
-    // Z += z_load p pᵀ over the few non-zero couplings of the load's gap.
-    const auto p = problem.load_vectors.col(static_cast<Eigen::Index>(l));
-    const Complex z_load = load_impedance(problem.model.loads[l], frequency_hz);
-    for (Eigen::Index i = 0; i < n; ++i)
-      if (p[i] != 0.0)
-        for (Eigen::Index j = 0; j < n; ++j)
-          if (p[j] != 0.0) z(i, j) += z_load * p[i] * p[j];
-  }
-  matrix.factor();
+void require_solvable(const AntennaProblem& problem) {
+  require_system_memory(problem.model, static_cast<double>(problem.unknowns()));
+}
 
+FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_hz) {
+  const std::unique_ptr<SystemMatrix> matrix = make_system_matrix(problem.model, problem.unknowns());
+  assemble_system(problem, frequency_hz, *matrix);
+  matrix->factor();
+
+  // One solve for every port's unit drive and the wave.
+  const auto ports = static_cast<Eigen::Index>(problem.model.ports.size());
+  const bool lit = problem.model.wave.has_value();
+  ComplexMatrix rhs(problem.unknowns(), ports + (lit ? 1 : 0));
+  rhs.leftCols(ports) = problem.port_vectors.cast<Complex>();
+  if (lit) rhs.col(ports) = plane_wave_vector(problem, incident_wave(*problem.model.wave), frequency_hz);
   FrequencySolution solution;
   solution.frequency_hz = frequency_hz;
-  const ComplexMatrix drives = problem.port_vectors.cast<Complex>();
-  const ComplexMatrix unit_responses = matrix.solve(drives, solution.report);
+  const ComplexMatrix responses = matrix->solve(rhs, solution.report);
+  const ComplexMatrix drives = rhs.leftCols(ports);
+  const auto unit_responses = responses.leftCols(ports);
   solution.port_admittance = drives.transpose() * unit_responses;
-  const auto ports = problem.model.ports.size();
-  solution.port_voltages.resize(static_cast<Eigen::Index>(ports));
-  for (std::size_t p = 0; p < ports; ++p) solution.port_voltages[p] = problem.model.ports[p].voltage;
+  solution.port_voltages.resize(ports);
+  for (Eigen::Index p = 0; p < ports; ++p) solution.port_voltages[p] = problem.model.ports[p].voltage;
   solution.coefficients = unit_responses * solution.port_voltages;
   solution.port_currents = solution.port_admittance * solution.port_voltages;
+  if (lit) {
+    solution.coefficients += responses.col(ports);
+    solution.received_currents = drives.transpose() * responses.col(ports);
+  }
 
   solution.segment_currents.assign(problem.mesh.segments.size(), {Complex(0.0), Complex(0.0)});
   for (std::size_t s = 0; s < problem.mesh.segments.size(); ++s)

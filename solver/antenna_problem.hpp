@@ -6,16 +6,19 @@
 #include "geometry/model.hpp"
 #include "geometry/surface_mesher.hpp"
 #include "geometry/wire_mesh.hpp"
+#include "solver/fill_geometry.hpp"
 #include "solver/junction_star.hpp"
+#include "solver/medium.hpp"
 #include "solver/rwg_basis.hpp"
 #include "solver/system_matrix.hpp"
 #include "solver/wire_basis.hpp"
 
 namespace lobe {
 
-/// Everything that does not change with frequency: meshes, bases, port and load couplings.
-/// Unknowns are the wire functions (junction functions among them) first, then the RWG
-/// functions of the surfaces.
+/// Everything that does not change with frequency: the medium, meshes, bases, the fill's
+/// geometry, port and load couplings. Unknowns are the wire functions (junction functions
+/// among them) first, then the RWG functions of the surfaces. An antenna (driven at its
+/// ports) and a scatterer (lit by the model's wave) are the same problem.
 struct AntennaProblem {
   explicit AntennaProblem(const Model& model);
   /// From meshes already made for this model (with the constraints the model implies:
@@ -28,6 +31,8 @@ struct AntennaProblem {
   WireBasis basis;
   RwgBasis rwg;
   std::vector<JunctionStar> stars;  ///< one per wire node attached to a surface
+  Medium medium;
+  FillGeometry geometry;
   Eigen::MatrixXd port_vectors;     ///< N × ports: column p couples basis currents to port p
   Eigen::MatrixXd load_vectors;     ///< N × loads
 
@@ -37,6 +42,10 @@ struct AntennaProblem {
   AntennaProblem(const Model& model, const WireMesh& wires);
 };
 
+/// Throws InputError when the system matrix of the problem could not be held in memory:
+/// call before the first solve, so that a run is refused before any work.
+void require_solvable(const AntennaProblem& problem);
+
 /// The solved currents at one frequency.
 struct FrequencySolution {
   Real frequency_hz = 0.0;
@@ -44,14 +53,18 @@ struct FrequencySolution {
   ComplexMatrix port_admittance;
   ComplexVector port_voltages;   ///< as the model drives them, V
   ComplexVector port_currents;   ///< resulting port currents, A
-  ComplexVector coefficients;    ///< every basis function's current for the model's drive, A
+  /// Under the model's wave: the current the wave drives through each port while every
+  /// port is shorted, A (empty without a wave). The open-circuit voltages are Y⁻¹ times it.
+  ComplexVector received_currents;
+  ComplexVector coefficients;    ///< every basis function's current for the model's drive and wave, A
   /// Current at the start and end of each segment, along the segment direction, A.
   std::vector<std::array<Complex, 2>> segment_currents;
   SolveReport report;
 };
 
-/// Fills, factors and solves once for all ports. Throws NumericalError on a singular
-/// matrix or non-finite results. Cost: O((S + T)²) fill, O(N³/3) factorisation.
+/// Fills (solver/assembly.hpp), factors and solves once for all ports and the model's wave.
+/// Throws NumericalError on a singular matrix or non-finite results. Cost: O((S + T)²)
+/// fill, O(N³/3) factorisation.
 FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_hz);
 
 /// The surface current density at the centroid of every triangle, A/m (junction stars

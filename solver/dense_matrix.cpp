@@ -10,7 +10,7 @@
 
 namespace lobe {
 
-std::uint64_t dense_matrix_bytes(std::uint64_t n) { return 2 * n * n * sizeof(Complex); }
+std::uint64_t system_matrix_bytes(std::uint64_t n) { return 2 * n * n * sizeof(Complex); }
 
 namespace {
 /// Share of the memory this process can have that the dense matrices may take; the rest is
@@ -18,13 +18,13 @@ namespace {
 constexpr double usable_memory_share = 0.9;
 }  // namespace
 
-void require_dense_memory(const Model& model, double unknowns, bool estimated) {
+void require_system_memory(const Model& model, double unknowns, bool estimated) {
   // What the process can really have: free memory, its control group's limit and its
   // address-space limit, not the machine's total (80 % of which once let a run start that
   // the out-of-memory killer then ended).
   const MemoryBudget budget = usable_memory();
-  // The same count as dense_matrix_bytes, in floating point: an estimate may overflow integers.
-  const double needed = static_cast<double>(dense_matrix_bytes(1)) * unknowns * unknowns;
+  // The same count as system_matrix_bytes, in floating point: an estimate may overflow integers.
+  const double needed = static_cast<double>(system_matrix_bytes(1)) * unknowns * unknowns;
   if (needed > usable_memory_share * budget.bytes) {
     char message[400];
     std::snprintf(message, sizeof message,
@@ -45,6 +45,19 @@ DenseMatrix::DenseMatrix(Eigen::Index n) : m_entries(n, n), m_original(n, n) {
     m_entries.col(c).setZero();
     m_original.col(c).setZero();
   }
+}
+
+void DenseMatrix::add(std::span<const MatrixContribution> terms) {
+  for (const MatrixContribution& c : terms) {
+    LOBE_ASSERT(c.row < size() && c.column < size());
+    m_entries(c.row, c.column) += c.value;
+    if (c.mirror) m_entries(c.column, c.row) += c.value;
+  }
+}
+
+std::unique_ptr<SystemMatrix> make_system_matrix(const Model& model, Eigen::Index n) {
+  require_system_memory(model, static_cast<double>(n));
+  return std::make_unique<DenseMatrix>(n);
 }
 
 void DenseMatrix::factor() {

@@ -18,6 +18,8 @@ class DenseMatrix final : public SystemMatrix {
   Eigen::Index size() const override { return m_entries.rows(); }
   /// The entries to fill (full square; both triangles must hold the same values).
   ComplexMatrix& entries() { return m_entries; }
+  const ComplexMatrix& entries() const { return m_entries; }
+  void add(std::span<const MatrixContribution> terms) override;
   void factor() override;
   ComplexMatrix solve(const ComplexMatrix& rhs, SolveReport& report) const override;
 

@@ -8,7 +8,7 @@
 
 #include "core/constants.hpp"
 #include "solver/gauss_legendre.hpp"
-#include "solver/smooth_kernel.hpp"
+#include "solver/green_function.hpp"
 
 namespace lobe {
 namespace {
@@ -18,8 +18,6 @@ constexpr Real far_in_radii = 4.0;
 constexpr int far_order = 4;
 constexpr int near_t_order = 8;
 constexpr int near_s_order = 4;
-
-inline Vec3 mirrored_point(const Vec3& p) { return {p.x(), p.y(), -p.z()}; }
 
 /// ∫_0^1 s^n ds/R for n = 0, 1, 2, R = |w − s d|: the static kernel along the ray from v
 /// (w = r − v) in closed form, stable on the ray's extension (log form, with the
@@ -44,7 +42,7 @@ void add_near_range(const JunctionStar& star, const StarTriangle& tri, const Vec
   const QuadratureRule& t_rule = gauss_legendre(near_t_order);
   const QuadratureRule& s_rule = gauss_legendre(near_s_order);
   const Vec3 w = r - star.vertex;
-  const Real factor = 2 * tri.area * star.scale / (4 * pi);
+  const Real factor = 2 * tri.area * star.scale * green_scale;
   for (int i = 0; i < near_t_order; ++i) {
     const Real t = t_low + (t_high - t_low) * t_rule.nodes[i];
     const Real wt = (t_high - t_low) * t_rule.weights[i];
@@ -54,7 +52,7 @@ void add_near_range(const JunctionStar& star, const StarTriangle& tri, const Vec
     Complex charge = ramp, current = flat - square;  // ∫ s G, ∫ (1 − s²) G along the ray
     for (int j = 0; j < near_s_order; ++j) {
       const Real s = s_rule.nodes[j];
-      const Complex g = s_rule.weights[j] * smooth_kernel(k, (w - s * d).norm());
+      const Complex g = s_rule.weights[j] * green_kernel_smooth(k, (w - s * d).norm());
       charge += s * g;
       current += (1.0 - s * s) * g;
     }
@@ -85,12 +83,12 @@ Real JunctionStar::radius() const {
   return r;
 }
 
-JunctionStar JunctionStar::mirrored() const {
+JunctionStar JunctionStar::imaged(const Eigen::Matrix3d& mirror) const {
   JunctionStar m = *this;
-  m.vertex = mirrored_point(vertex);
+  m.vertex = mirror * vertex;
   for (auto& t : m.triangles) {
-    t.a = mirrored_point(t.a);
-    t.b = mirrored_point(t.b);
+    t.a = mirror * t.a;
+    t.b = mirror * t.b;
   }
   return m;
 }
@@ -119,13 +117,13 @@ StarPotentials star_potentials(const JunctionStar& star, const Vec3& r, Real k) 
   if ((r - star.vertex).norm() > far_in_radii * star.radius()) {
     const QuadratureRule& rule = gauss_legendre(far_order);
     for (const StarTriangle& tri : star.triangles) {
-      const Real factor = 2 * tri.area * star.scale / (4 * pi);
+      const Real factor = 2 * tri.area * star.scale * green_scale;
       for (int i = 0; i < far_order; ++i) {
         const Vec3 d = tri.a + rule.nodes[i] * (tri.b - tri.a) - star.vertex;
         const Real weight = factor * rule.weights[i] / d.squaredNorm();
         for (int j = 0; j < far_order; ++j) {
           const Real s = rule.nodes[j], distance = (r - star.vertex - s * d).norm();
-          const Complex g = weight * rule.weights[j] * std::polar(1.0 / distance, -k * distance);
+          const Complex g = weight * rule.weights[j] * green_kernel(k, distance);
           out.scalar -= 2.0 * s * g;
           out.vector += ((1.0 - s * s) * g) * d.cast<Complex>();
         }

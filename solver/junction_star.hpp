@@ -37,8 +37,8 @@ struct JunctionStar {
 
   /// Longest distance from v to a far-edge end, m.
   Real radius() const;
-  /// The star reflected in z = 0 (for image theory); f maps to its mirror image.
-  JunctionStar mirrored() const;
+  /// The star mapped by a reflection (for image theory); f maps to its mirror image.
+  JunctionStar imaged(const Eigen::Matrix3d& mirror) const;
 };
 
 /// The star of the triangles of `mesh` that use `vertex`. Throws std::logic_error if none do.

@@ -4,8 +4,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
-#include "solver/smooth_kernel.hpp"
-#include "solver/phase_factor.hpp"
+#include "solver/green_function.hpp"
 
 namespace lobe {
 namespace {
@@ -40,26 +39,24 @@ PairIntegrals product_rule(const SegmentGeometry& obs, const SegmentGeometry& sr
   constexpr int max_points = 8;
   const QuadratureRule& rule = gauss_legendre(n);
   const Vec3 da = obs.end - obs.start, db = src.end - src.start;
-  // All n² distances first, then their phase factors in one vectorised call.
-  Real distance[max_points * max_points], phase[max_points * max_points];
-  Real sine[max_points * max_points], cosine[max_points * max_points];
+  // All n² distances first, then their kernels in one vectorised call.
+  Real distance[max_points * max_points], weight[max_points * max_points];
+  Real kernel_re[max_points * max_points], kernel_im[max_points * max_points];
   for (int p = 0; p < n; ++p) {
     const Vec3 x = obs.start + rule.nodes[p] * da - src.start;
     for (int q = 0; q < n; ++q) {
       distance[p * n + q] = std::sqrt((x - rule.nodes[q] * db).squaredNorm() + a2);
-      phase[p * n + q] = k * distance[p * n + q];
+      weight[p * n + q] = rule.weights[q];
     }
   }
-  sine_cosine(phase, sine, cosine, n * n);
-  const Real scale = da.norm() * db.norm() / (4 * pi);
+  green_kernel_batch(k, distance, weight, kernel_re, kernel_im, n * n);
+  const Real scale = da.norm() * db.norm() * green_scale;
   PairIntegrals result{};
   for (int p = 0; p < n; ++p) {
     const Real xi = rule.nodes[p];
     Complex s0 = 0.0, s1 = 0.0;
     for (int q = 0; q < n; ++q) {
-      const int i = p * n + q;
-      const Real w = rule.weights[q] / distance[i];
-      const Complex g(w * cosine[i], -w * sine[i]);
+      const Complex g(kernel_re[p * n + q], kernel_im[p * n + q]);
       const Real eta = rule.nodes[q];
       s0 += (1.0 - eta) * g;
       s1 += eta * g;
@@ -87,11 +84,11 @@ PairIntegrals near_rule(const SegmentGeometry& obs, const SegmentGeometry& src, 
     for (int q = 0; q < smooth_points; ++q) {
       const Real eta = inner.nodes[q];
       const Real r = std::sqrt((x - src.start - eta * lb * u).squaredNorm() + a2);
-      const Complex g = inner.weights[q] * lb * smooth_kernel(k, r);
+      const Complex g = inner.weights[q] * lb * green_kernel_smooth(k, r);
       s0 += (1.0 - eta) * g;
       s1 += eta * g;
     }
-    const Real w = outer.weights[p] * la / (4 * pi);
+    const Real w = outer.weights[p] * la * green_scale;
     result[0] += w * (1.0 - xi) * s0;
     result[1] += w * (1.0 - xi) * s1;
     result[2] += w * xi * s0;

@@ -1,13 +1,25 @@
 #pragma once
-/// The moment-method system matrix behind a small interface, so that a compressed or
-/// iterative matrix can later replace the dense one without touching post-processing.
+/// The moment-method system matrix behind one interface: the fill adds to it, the
+/// pipeline factors and solves it, and a compressed, iterative or distributed matrix can
+/// later take the dense one's place without touching the integrators or post-processing.
 #include <cstdint>
+#include <memory>
+#include <span>
+#include <stdexcept>
 #include <string>
 
 #include "core/types.hpp"
 #include "geometry/model.hpp"
 
 namespace lobe {
+
+/// One term of Z: added at (row, column), and at (column, row) too when `mirror`.
+struct MatrixContribution {
+  int row;
+  int column;
+  bool mirror;
+  Complex value;
+};
 
 /// How well a factor-and-solve went.
 struct SolveReport {
@@ -25,18 +37,25 @@ class SystemMatrix {
  public:
   virtual ~SystemMatrix() = default;
   virtual Eigen::Index size() const = 0;
+  /// Adds terms during the fill; called from one thread at a time.
+  virtual void add(std::span<const MatrixContribution> terms) = 0;
   /// Factors in place; throws NumericalError when the matrix is singular.
   virtual void factor() = 0;
-  /// Solves Z X = B for all columns of B at once; requires factor() first.
+  /// Solves Z X = B for all columns of B at once; requires factor() first. The report
+  /// carries the condition estimate and the residual.
   virtual ComplexMatrix solve(const ComplexMatrix& rhs, SolveReport& report) const = 0;
 };
 
-/// Bytes a dense complex matrix of n unknowns takes, including the copy kept for residuals.
-std::uint64_t dense_matrix_bytes(std::uint64_t n);
+/// Bytes the system matrix of n unknowns takes (dense today: the factors and the original,
+/// kept for the residual).
+std::uint64_t system_matrix_bytes(std::uint64_t n);
 
-/// Throws InputError (located at the model file) when the dense matrices of `unknowns`
-/// would not fit in the machine's memory; `estimated` says the count is a forecast made
+/// Throws InputError (located at the model file) when the matrix of `unknowns` would not fit
+/// in the memory this process can really have; `estimated` says the count is a forecast made
 /// before meshing.
-void require_dense_memory(const Model& model, double unknowns, bool estimated = false);
+void require_system_memory(const Model& model, double unknowns, bool estimated = false);
+
+/// The matrix for n unknowns, after require_system_memory. Dense LU today.
+std::unique_ptr<SystemMatrix> make_system_matrix(const Model& model, Eigen::Index n);
 
 }  // namespace lobe

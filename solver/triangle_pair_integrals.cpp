@@ -4,8 +4,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
-#include "solver/phase_factor.hpp"
-#include "solver/smooth_kernel.hpp"
+#include "solver/green_function.hpp"
 #include "solver/triangle_potentials.hpp"
 #include "solver/triangle_rules.hpp"
 
@@ -20,19 +19,18 @@ constexpr int n = TriangleQuadrature::points;
 /// ∫ G and ∫ G r' over Q at each of P's points, by 7 × 7 points.
 void far_inner(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k, std::array<Complex, n>& scalar,
                std::array<Eigen::Vector3cd, n>& moment) {
-  std::array<Real, n * n> phase, sine, cosine, inverse;
+  std::array<Real, n * n> distance, weight, kernel_re, kernel_im;
   for (int a = 0; a < n; ++a)
     for (int b = 0; b < n; ++b) {
-      const Real distance = (p.x[a] - q.x[b]).norm();
-      phase[a * n + b] = k * distance;
-      inverse[a * n + b] = q.w[b] / (4 * pi * distance);
+      distance[a * n + b] = (p.x[a] - q.x[b]).norm();
+      weight[a * n + b] = q.w[b] * green_scale;
     }
-  sine_cosine(phase.data(), sine.data(), cosine.data(), n * n);
+  green_kernel_batch(k, distance.data(), weight.data(), kernel_re.data(), kernel_im.data(), n * n);
   for (int a = 0; a < n; ++a) {
     scalar[a] = 0.0;
     moment[a].setZero();
     for (int b = 0; b < n; ++b) {
-      const Complex g = inverse[a * n + b] * Complex(cosine[a * n + b], -sine[a * n + b]);
+      const Complex g(kernel_re[a * n + b], kernel_im[a * n + b]);
       scalar[a] += g;
       moment[a] += g * q.x[b].cast<Complex>();
     }
@@ -56,12 +54,12 @@ PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const V
     const auto& w = rule.points[b];
     const Vec3 x = w[0] * q0 + w[1] * q1 + w[2] * q2;
     const Real distance = (r - x).norm();
-    const Complex g = rule.weights[b] * area * (near ? smooth_kernel(k, distance) : std::polar(1.0 / distance, -k * distance));
+    const Complex g = rule.weights[b] * area * (near ? green_kernel_smooth(k, distance) : green_kernel(k, distance));
     result.scalar += g;
     result.moment += g * x.cast<Complex>();
   }
-  result.scalar /= 4 * pi;
-  result.moment /= 4 * pi;
+  result.scalar *= green_scale;
+  result.moment *= green_scale;
   return result;
 }
 

@@ -5,11 +5,12 @@
 #include <algorithm>
 #include <cmath>
 
+#include <memory>
+
 #include "core/constants.hpp"
-#include "post/surface_far_field.hpp"
-#include "solver/dense_matrix.hpp"
+#include "post/far_field.hpp"
+#include "post/scattering_result.hpp"
 #include "solver/gauss_legendre.hpp"
-#include "solver/surface_fill.hpp"
 #include "support/icosphere.hpp"
 #include "support/mie_series.hpp"
 
@@ -18,26 +19,35 @@ namespace {
 
 constexpr Real frequency = 299792458.0;  // λ = 1 m
 
-/// A sphere of size parameter ka, lit by a wave arriving from +z (θ = 0), E along θ̂ = x̂.
+/// A sphere of size parameter ka, lit by a wave arriving from +z (θ = 0), E along θ̂ = x̂,
+/// solved through the one pipeline antennas use (hand-made mesh, no Gmsh).
 struct SphereCase {
-  SphereCase(Real size_parameter, int levels)
-      : ka(size_parameter), radius(ka / (2 * pi)), mesh(icosphere(radius, levels)), basis(mesh) {
-    DenseMatrix matrix(basis.size());
-    add_surface_impedance(mesh, basis, false, frequency, matrix.entries());
-    matrix.factor();
-    SolveReport report;
-    currents = matrix.solve(plane_wave_excitation(mesh, basis, frequency, 0.0, 0.0, true), report);
+  SphereCase(Real size_parameter, int levels) : ka(size_parameter), radius(ka / (2 * pi)) {
+    model.file = "sphere";
+    model.frequencies_hz = {frequency};
+    model.wave = PlaneWave{{"sphere", 1, 1}, 0.0, 0.0, true, 1.0};
+    SurfaceMeshReport surfaces;
+    surfaces.mesh = icosphere(radius, levels);
+    surfaces.region.assign(surfaces.mesh.triangles.size(), 0);
+    problem = std::make_unique<AntennaProblem>(model, WireMesh{}, surfaces);
+    solution = solve_frequency(*problem, frequency);
+    far_field = std::make_unique<FarField>(*problem, solution);
   }
+  /// The scattered far field with its phase referred to the origin (the sphere's centre).
   FarFieldSample field(Real theta, Real phi) const {
-    return surface_far_field(mesh, basis, currents, frequency, theta, phi);
+    const Vec3 r_hat(std::sin(theta) * std::cos(phi), std::sin(theta) * std::sin(phi), std::cos(theta));
+    const Complex to_origin = std::polar(1.0, 2 * pi * r_hat.dot(far_field->phase_centre()));
+    const FarFieldSample f = far_field->at(theta, phi);
+    return {f.e_theta * to_origin, f.e_phi * to_origin};
   }
   /// σ/πa² in dB of the θ- or φ-component at (θ, φ).
   Real db_over_area(Real sigma) const { return 10 * std::log10(sigma / (pi * radius * radius)); }
 
   Real ka, radius;
-  SurfaceMesh mesh;
-  RwgBasis basis;
-  ComplexVector currents;
+  Model model;
+  std::unique_ptr<AntennaProblem> problem;
+  FrequencySolution solution;
+  std::unique_ptr<FarField> far_field;
 };
 
 Real mie_db(Real efficiency) { return 10 * std::log10(efficiency); }

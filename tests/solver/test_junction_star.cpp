@@ -3,6 +3,7 @@
 #include "core/constants.hpp"
 #include "solver/gauss_legendre.hpp"
 #include "solver/junction_star.hpp"
+#include "solver/medium.hpp"
 
 namespace lobe {
 namespace {
@@ -58,7 +59,7 @@ TEST(JunctionStar, PotentialsMatchBruteForceQuadrature) {
 TEST(JunctionStar, MirrorReflectsTheGeometry) {
   SurfaceMesh raised = irregular_star();
   for (Vec3& v : raised.vertices) v.z() += 0.5;
-  const JunctionStar image = junction_star(raised, 0).mirrored();
+  const JunctionStar image = junction_star(raised, 0).imaged(Medium::over_perfect_ground().images().front().mirror);
   EXPECT_NEAR(image.vertex.z(), -0.5, 1e-15);
   for (const auto& t : image.triangles) EXPECT_NEAR(t.a.z(), -0.5, 1e-15);
 }

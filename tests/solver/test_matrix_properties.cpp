@@ -7,10 +7,8 @@
 #include "geometry/surface_mesher.hpp"
 #include "solver/dense_matrix.hpp"
 #include "solver/antenna_problem.hpp"
-#include "solver/coupling_fill.hpp"
-#include "solver/impedance_fill.hpp"
+#include "solver/assembly.hpp"
 #include "solver/segment_integrals.hpp"
-#include "solver/surface_fill.hpp"
 #include "solver/triangle_pair_integrals.hpp"
 
 namespace lobe {
@@ -110,10 +108,9 @@ TEST(MatrixProperties, MixedModelPortAdmittancesAreReciprocal) {
   const AntennaProblem problem(model);
   ASSERT_EQ(problem.stars.size(), 2u);
   const Real f = 600e6;
-  ComplexMatrix z = ComplexMatrix::Zero(problem.unknowns(), problem.unknowns());
-  add_wire_impedance(problem.mesh, problem.basis, true, f, z);
-  add_surface_impedance(problem.surfaces.mesh, problem.rwg, true, f, z);
-  add_coupling_impedance(problem.mesh, problem.basis, problem.surfaces.mesh, problem.rwg, problem.stars, true, f, z);
+  DenseMatrix matrix(problem.unknowns());
+  assemble_system(problem, f, matrix);
+  const ComplexMatrix& z = matrix.entries();
   ASSERT_TRUE(z.allFinite());
   const ComplexMatrix p = problem.port_vectors.cast<Complex>();
   const ComplexMatrix y = p.transpose() * z.partialPivLu().solve(p);

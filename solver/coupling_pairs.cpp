@@ -1,11 +1,12 @@
-#include "solver/coupling_fill.hpp"
-
+// The terms that tie wires to surfaces: wire pieces against RWG functions, and the surface
+// halves of wire-to-surface junction functions against everything. The wire current flows
+// on the wire's axis (exact kernel, no reduced-kernel radius), which is accurate once the
+// wire is a few radii from the surface. O(S·T) plus O(J·(S + T)) point potentials.
+#include <algorithm>
 #include <cmath>
 
-#include "core/check.hpp"
-#include "core/constants.hpp"
 #include "solver/gauss_legendre.hpp"
-#include "solver/pair_fill.hpp"
+#include "solver/pair_integrators.hpp"
 #include "solver/segment_integrals.hpp"
 #include "solver/triangle_pair_integrals.hpp"
 #include "solver/triangle_rules.hpp"
@@ -20,8 +21,6 @@ constexpr Real near_in_sizes = 2.0;
 constexpr int far_segment_points = 6;
 /// Duffy points per direction on a triangle or star observing a junction.
 constexpr int duffy_order = 8;
-
-inline Vec3 mirrored(const Vec3& p) { return {p.x(), p.y(), -p.z()}; }
 
 /// What one basis function weighs at one test point: ∇·f dS (or dl) and f dS (or dl).
 struct TestWeight {
@@ -42,19 +41,20 @@ struct SourceField {
   Eigen::Vector3cd vector;
 };
 
-struct Factors {
-  Complex vector;  ///< jωμ0
-  Complex scalar;  ///< −j/(ωε0)
-  Real k;
+/// The signs of one source term: (1, 1) for the direct term, an image's signs for its own.
+struct TermSigns {
+  Real current = 1.0;
+  Real charge = 1.0;
 };
 
-/// Z terms of every test weight at `point` against the given source fields, times `sign`.
-void add_terms(const TestPoint& point, const std::vector<SourceField>& fields, const Factors& f, Real sign,
+/// Z terms of every test weight at `point` against the given source fields.
+void add_terms(const TestPoint& point, const std::vector<SourceField>& fields, const FillContext& c, TermSigns sign,
                std::vector<MatrixContribution>& out) {
   for (const TestWeight& w : point.weights)
     for (const SourceField& s : fields) {
-      const Complex value = f.vector * (w.current.cast<Complex>().transpose() * s.vector)(0) + f.scalar * w.charge * s.scalar;
-      out.push_back({w.basis, s.basis, true, sign * value});
+      const Complex vector = c.vector_factor * (w.current.cast<Complex>().transpose() * s.vector)(0);
+      const Complex scalar = c.scalar_factor * w.charge * s.scalar;
+      out.push_back({w.basis, s.basis, true, sign.current * vector + sign.charge * scalar});
     }
 }
 
@@ -137,10 +137,6 @@ std::vector<SourceField> star_fields(const JunctionStar& star, const Vec3& r, Re
   return fields;
 }
 
-Real triangle_size(const std::array<Vec3, 3>& q) {
-  return std::max({(q[1] - q[0]).norm(), (q[2] - q[1]).norm(), (q[0] - q[2]).norm()});
-}
-
 /// Distance from point p to the segment.
 Real distance_to_segment(const Vec3& p, const Segment& seg) {
   const Vec3 d = seg.end - seg.start;
@@ -150,86 +146,69 @@ Real distance_to_segment(const Vec3& p, const Segment& seg) {
 
 }  // namespace
 
-void add_coupling_impedance(const WireMesh& wires, const WireBasis& wire_basis, const SurfaceMesh& surface,
-                            const RwgBasis& rwg, const std::vector<JunctionStar>& stars, bool ground_perfect,
-                            Real frequency_hz, ComplexMatrix& z) {
-  const Real omega = 2 * pi * frequency_hz;
-  const Factors f{j_unit * omega * mu0, -j_unit / (omega * eps0), omega / speed_of_light};
-  const int segment_count = static_cast<int>(wires.segments.size());
-  const int triangle_count = static_cast<int>(surface.triangles.size());
-  const int star_count = static_cast<int>(stars.size());
-  std::vector<JunctionStar> star_images;
-  for (const auto& s : stars) star_images.push_back(s.mirrored());
-  auto corners = [&](int t, bool image) {
-    std::array<Vec3, 3> q{surface.corner(t, 0), surface.corner(t, 1), surface.corner(t, 2)};
-    if (image)
-      for (auto& c : q) c = mirrored(c);
-    return q;
+void add_segment_triangle_terms(const FillContext& c, int s, std::vector<MatrixContribution>& out) {
+  const auto& pieces = c.problem.basis.pieces_on(s);
+  const RwgBasis& rwg = c.problem.rwg;
+  const FillGeometry& g = c.geometry;
+  if (pieces.empty() || g.triangles.empty()) return;
+  const Segment& seg = c.problem.mesh.segments[s];
+  const auto far_points = segment_points(seg, pieces, gauss_legendre(far_segment_points));
+  const auto near_points = segment_points(seg, pieces, graded_rule(seg.length(), seg.radius));
+  auto add_source = [&](const TriangleQuadrature& q, int t, TermSigns sign) {
+    const bool near = distance_to_segment(q.centroid, seg) < near_in_sizes * std::max(seg.length(), q.size);
+    for (const TestPoint& p : near ? near_points : far_points)
+      add_terms(p, triangle_fields(q.corners, q.area, rwg.pieces_on(t), p.r, c.k, near), c, sign, out);
   };
-  const int images = ground_perfect ? 2 : 1;
+  for (int t = 0; t < static_cast<int>(g.triangles.size()); ++t) {
+    if (rwg.pieces_on(t).empty()) continue;
+    add_source(g.triangles[t], t, {});
+    for (const ImagedElements& imaged : g.images)
+      add_source(imaged.triangles[t], t, {imaged.image.current_sign, imaged.image.charge_sign});
+  }
+}
 
-  // Segments observe triangles: one row per segment.
-  fill_by_element_rows(
-      segment_count,
-      [&](int s, std::vector<MatrixContribution>& row) {
-        const auto& pieces = wire_basis.pieces_on(s);
-        if (pieces.empty()) return;
-        const Segment& seg = wires.segments[s];
-        const auto far_points = segment_points(seg, pieces, gauss_legendre(far_segment_points));
-        const auto near_points = segment_points(seg, pieces, graded_rule(seg.length(), seg.radius));
-        for (int t = 0; t < triangle_count; ++t) {
-          if (rwg.pieces_on(t).empty()) continue;
-          for (int image = 0; image < images; ++image) {
-            const auto q = corners(t, image == 1);
-            const Vec3 centroid = (q[0] + q[1] + q[2]) / 3.0;
-            const bool near = distance_to_segment(centroid, seg) < near_in_sizes * std::max(seg.length(), triangle_size(q));
-            for (const TestPoint& p : near ? near_points : far_points)
-              add_terms(p, triangle_fields(q, surface.area(t), rwg.pieces_on(t), p.r, f.k, near), f, image ? -1.0 : 1.0, row);
-          }
+void add_star_source_terms(const FillContext& c, int e, std::vector<MatrixContribution>& out) {
+  const std::vector<JunctionStar>& stars = c.problem.stars;
+  const FillGeometry& g = c.geometry;
+  const int segment_count = static_cast<int>(g.segments.size());
+  const int triangle_count = static_cast<int>(g.triangles.size());
+  const int star_count = static_cast<int>(stars.size());
+  // The fields of star j and of its images at p, added as terms of p's test weights.
+  auto add_star = [&](const TestPoint& p, int j, std::vector<MatrixContribution>& terms) {
+    add_terms(p, star_fields(stars[j], p.r, c.k), c, {}, terms);
+    for (const ImagedElements& imaged : g.images)
+      add_terms(p, star_fields(imaged.stars[j], p.r, c.k), c, {imaged.image.current_sign, imaged.image.charge_sign},
+                terms);
+  };
+  for (int j = 0; j < star_count; ++j) {
+    std::vector<TestPoint> points;
+    if (e < segment_count) {
+      const auto& pieces = c.problem.basis.pieces_on(e);
+      if (pieces.empty()) return;
+      const Segment& seg = c.problem.mesh.segments[e];
+      const bool near = distance_to_segment(stars[j].vertex, seg) < near_in_sizes * std::max(seg.length(), stars[j].radius());
+      points = segment_points(seg, pieces, near ? graded_rule(seg.length(), seg.radius) : gauss_legendre(far_segment_points));
+    } else if (e < segment_count + triangle_count) {
+      const int t = e - segment_count;
+      if (c.problem.rwg.pieces_on(t).empty()) return;
+      points = triangle_points(c.problem.surfaces.mesh, t, c.problem.rwg.pieces_on(t), stars[j].mesh_vertex);
+    } else {
+      const int observer = e - segment_count - triangle_count;
+      if (observer < j) continue;
+      points = star_points(stars[observer]);
+      // Within one star, add each unordered pair of its functions once.
+      if (observer == j) {
+        for (const TestPoint& p : points) {
+          std::vector<MatrixContribution> terms;
+          add_star(p, j, terms);
+          for (auto& term : terms)
+            if (term.row <= term.column) out.push_back({term.row, term.column, term.row != term.column, term.value});
         }
-      },
-      z);
-
-  if (stars.empty()) return;
-  // Junction stars as sources, observed by every segment, triangle and later star.
-  fill_by_element_rows(
-      segment_count + triangle_count + star_count,
-      [&](int e, std::vector<MatrixContribution>& row) {
-        for (int j = 0; j < star_count; ++j) {
-          std::vector<TestPoint> points;
-          if (e < segment_count) {
-            const auto& pieces = wire_basis.pieces_on(e);
-            if (pieces.empty()) return;
-            const Segment& seg = wires.segments[e];
-            const bool near = distance_to_segment(stars[j].vertex, seg) < near_in_sizes * std::max(seg.length(), stars[j].radius());
-            points = segment_points(seg, pieces, near ? graded_rule(seg.length(), seg.radius) : gauss_legendre(far_segment_points));
-          } else if (e < segment_count + triangle_count) {
-            const int t = e - segment_count;
-            if (rwg.pieces_on(t).empty()) return;
-            points = triangle_points(surface, t, rwg.pieces_on(t), stars[j].mesh_vertex);
-          } else {
-            const int observer = e - segment_count - triangle_count;
-            if (observer < j) continue;
-            points = star_points(stars[observer]);
-            // Within one star, add each unordered pair of its functions once.
-            if (observer == j) {
-              for (const TestPoint& p : points)
-                for (int image = 0; image < images; ++image) {
-                  const auto fields = star_fields(image ? star_images[j] : stars[j], p.r, f.k);
-                  std::vector<MatrixContribution> terms;
-                  add_terms(p, fields, f, image ? -1.0 : 1.0, terms);
-                  for (auto& c : terms)
-                    if (c.row <= c.column) row.push_back({c.row, c.column, c.row != c.column, c.value});
-                }
-              continue;
-            }
-          }
-          for (const TestPoint& p : points)
-            for (int image = 0; image < images; ++image)
-              add_terms(p, star_fields(image ? star_images[j] : stars[j], p.r, f.k), f, image ? -1.0 : 1.0, row);
-        }
-      },
-      z);
+        continue;
+      }
+    }
+    for (const TestPoint& p : points) add_star(p, j, out);
+  }
 }
 
 }  // namespace lobe

@@ -1,0 +1,57 @@
+#include "solver/assembly.hpp"
+
+#include <exception>
+#include <vector>
+
+#include "core/check.hpp"
+#include "solver/pair_integrators.hpp"
+#include "solver/stamps.hpp"
+
+namespace lobe {
+
+FillContext::FillContext(const AntennaProblem& p, Real frequency_hz)
+    : problem(p),
+      geometry(p.geometry),
+      k(p.medium.wavenumber(frequency_hz)),
+      vector_factor(p.medium.vector_factor(frequency_hz)),
+      scalar_factor(p.medium.scalar_factor(frequency_hz)) {}
+
+void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMatrix& matrix) {
+  LOBE_CHECK(matrix.size() == problem.unknowns(), "system matrix of the wrong size");
+  const FillContext context(problem, frequency_hz);
+  const int segments = static_cast<int>(problem.mesh.segments.size());
+  const int triangles = static_cast<int>(problem.surfaces.mesh.triangles.size());
+  const int elements = segments + triangles + static_cast<int>(problem.stars.size());
+  const bool stars = !problem.stars.empty();
+  std::exception_ptr failure;
+#pragma omp parallel
+  {
+    std::vector<MatrixContribution> terms;
+#pragma omp for schedule(dynamic, 4)
+    for (int e = 0; e < elements; ++e) {
+      try {
+        terms.clear();
+        if (e < segments) {
+          add_segment_segment_terms(context, e, terms);
+          add_segment_triangle_terms(context, e, terms);
+        } else if (e < segments + triangles) {
+          add_triangle_triangle_terms(context, e - segments, terms);
+        }
+        if (stars) add_star_source_terms(context, e, terms);
+#pragma omp critical(lobe_matrix_add)
+        matrix.add(terms);
+      } catch (...) {
+#pragma omp critical(lobe_matrix_failure)
+        failure = std::current_exception();
+      }
+    }
+  }
+  if (failure) std::rethrow_exception(failure);
+
+  matrix.add(conductor_loss_stamp(problem.mesh, problem.basis, frequency_hz));
+  for (std::size_t l = 0; l < problem.model.loads.size(); ++l)
+    matrix.add(load_stamp(problem.load_vectors.col(static_cast<Eigen::Index>(l)),
+                          load_impedance(problem.model.loads[l], frequency_hz)));
+}
+
+}  // namespace lobe

@@ -1,0 +1,29 @@
+#pragma once
+/// The current of every basis function sampled at quadrature points: what radiates (the far
+/// field sums it with the far-zone phase) and what an incident field is tested with (the
+/// excitation sums it against E). One set of points for both keeps the two exactly
+/// reciprocal: the open-circuit voltage a wave induces at a port is what that port's
+/// transmit far field predicts.
+#include <vector>
+
+#include "solver/antenna_problem.hpp"
+
+namespace lobe {
+
+/// f_b dl (or dS) of basis function b at a point, A·m per ampere of b.
+struct BasisWeight {
+  int basis;
+  Vec3 moment;
+};
+
+struct BasisSample {
+  Vec3 r;
+  std::vector<BasisWeight> weights;
+};
+
+/// Six Gauss points per segment (exact to rounding for the linear current times the phase
+/// over segments up to about a quarter wavelength), Dunavant's 7 points per triangle, and
+/// 6 × 6 Duffy points per junction-star triangle (smooth in those coordinates).
+std::vector<BasisSample> basis_samples(const AntennaProblem& problem);
+
+}  // namespace lobe

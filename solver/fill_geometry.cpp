@@ -1,0 +1,27 @@
+#include "solver/fill_geometry.hpp"
+
+namespace lobe {
+
+FillGeometry::FillGeometry(const WireMesh& wires, const SurfaceMesh& surface, const std::vector<JunctionStar>& stars,
+                           const Medium& medium)
+    : triangles(triangle_quadrature(surface)) {
+  for (const Segment& seg : wires.segments) {
+    segments.push_back({seg.start, seg.end, seg.radius});
+    lengths.push_back(seg.length());
+    directions.push_back(seg.direction());
+  }
+  for (const ImageSource& image : medium.images()) {
+    ImagedElements imaged{image, {}, {}, {}, {}};
+    for (std::size_t s = 0; s < segments.size(); ++s) {
+      imaged.segments.push_back({image.point(segments[s].start), image.point(segments[s].end), segments[s].radius});
+      imaged.directions.push_back(image.point(directions[s]));
+    }
+    SurfaceMesh mirrored = surface;
+    for (Vec3& v : mirrored.vertices) v = image.point(v);
+    imaged.triangles = triangle_quadrature(mirrored);
+    for (const JunctionStar& star : stars) imaged.stars.push_back(star.imaged(image.mirror));
+    images.push_back(std::move(imaged));
+  }
+}
+
+}  // namespace lobe

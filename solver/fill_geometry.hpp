@@ -1,0 +1,35 @@
+#pragma once
+/// What the pair integrators need of the meshes, computed once per problem and medium and
+/// reused at every frequency: segment ends, lengths and directions, triangle quadrature
+/// points, and the same for every image the medium adds.
+#include <vector>
+
+#include "geometry/surface_mesh.hpp"
+#include "geometry/wire_mesh.hpp"
+#include "solver/junction_star.hpp"
+#include "solver/medium.hpp"
+#include "solver/segment_integrals.hpp"
+#include "solver/triangle_pair_integrals.hpp"
+
+namespace lobe {
+
+/// The source elements as one image term of the medium sees them.
+struct ImagedElements {
+  ImageSource image;
+  std::vector<SegmentGeometry> segments;
+  std::vector<Vec3> directions;
+  std::vector<TriangleQuadrature> triangles;
+  std::vector<JunctionStar> stars;
+};
+
+struct FillGeometry {
+  FillGeometry(const WireMesh& wires, const SurfaceMesh& surface, const std::vector<JunctionStar>& stars,
+               const Medium& medium);
+  std::vector<SegmentGeometry> segments;
+  std::vector<Real> lengths;
+  std::vector<Vec3> directions;
+  std::vector<TriangleQuadrature> triangles;
+  std::vector<ImagedElements> images;  ///< one per image term of the medium
+};
+
+}  // namespace lobe

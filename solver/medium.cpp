@@ -1,0 +1,44 @@
+#include "solver/medium.hpp"
+
+#include <cmath>
+
+#include "core/constants.hpp"
+
+namespace lobe {
+
+IncidentWave incident_wave(const PlaneWave& wave) {
+  const Real st = std::sin(wave.theta), ct = std::cos(wave.theta), sp = std::sin(wave.phi), cp = std::cos(wave.phi);
+  const Vec3 polarization = wave.theta_polarized ? Vec3(ct * cp, ct * sp, -st) : Vec3(-sp, cp, 0.0);
+  return {Vec3(st * cp, st * sp, ct), polarization.cast<Complex>(), wave.amplitude};
+}
+
+Medium Medium::free_space() { return Medium(); }
+
+Medium Medium::over_perfect_ground() {
+  Medium medium;
+  ImageSource image;
+  image.mirror = Eigen::Vector3d(1.0, 1.0, -1.0).asDiagonal();
+  image.current_sign = -1.0;
+  image.charge_sign = -1.0;
+  medium.m_images.push_back(image);
+  return medium;
+}
+
+Medium Medium::of(const Model& model) { return model.ground_perfect ? over_perfect_ground() : free_space(); }
+
+Real Medium::wavenumber(Real frequency_hz) const { return 2 * pi * frequency_hz / speed_of_light; }
+
+Complex Medium::vector_factor(Real frequency_hz) const { return j_unit * (2 * pi * frequency_hz) * mu0; }
+
+Complex Medium::scalar_factor(Real frequency_hz) const { return -j_unit / ((2 * pi * frequency_hz) * eps0); }
+
+std::vector<IncidentWave> Medium::waves_reaching(const IncidentWave& wave) const {
+  std::vector<IncidentWave> waves{wave};
+  // The field an image source sees is the image of the field: a wave from M·from with
+  // the imaged polarisation, E_r(r) = s M E(M r).
+  for (const ImageSource& image : m_images)
+    waves.push_back({image.point(wave.from), image.current(wave.polarization), wave.amplitude});
+  return waves;
+}
+
+}  // namespace lobe

@@ -1,0 +1,69 @@
+#pragma once
+/// The space the structure radiates into: it supplies the integrators with the Green's
+/// functions they sum, the far field with the medium's reflection, and an incident wave
+/// with the waves that actually reach the structure.
+#include <string>
+#include <vector>
+
+#include "core/types.hpp"
+#include "geometry/model.hpp"
+
+namespace lobe {
+
+/// An image source (image theory): each source element also radiates from its mirror
+/// point `mirror · r`, carrying the current current_sign · mirror · J and the charge
+/// charge_sign · ρ. The integrators evaluate an image term with the free-space kernel over
+/// the mirrored source element, so `mirror` must be a reflection in a plane through the
+/// origin (orthogonal and its own inverse).
+struct ImageSource {
+  Eigen::Matrix3d mirror = Eigen::Matrix3d::Identity();
+  Real current_sign = 1.0;
+  Real charge_sign = 1.0;
+
+  Vec3 point(const Vec3& r) const { return mirror * r; }
+  /// The image of a current element (or of a field vector, for a reflected wave).
+  Eigen::Vector3cd current(const Eigen::Vector3cd& j) const { return current_sign * (mirror.cast<Complex>() * j); }
+};
+
+/// A uniform plane wave E(r) = amplitude · polarization · e^{+jk from·r}: it arrives from
+/// the direction `from` (unit vector), its field is `amplitude` V/m at the origin.
+struct IncidentWave {
+  Vec3 from = Vec3::UnitZ();
+  Eigen::Vector3cd polarization = Eigen::Vector3cd::UnitX();
+  Complex amplitude = 1.0;
+};
+
+/// The model's wave (θ, φ and θ̂ or φ̂ polarisation) as an IncidentWave.
+IncidentWave incident_wave(const PlaneWave& wave);
+
+/// Free space, or free space over a perfectly conducting ground plane z = 0 (one image).
+/// Later media (a lossy ground, a grounded dielectric layer, where the vector and scalar
+/// potentials need different kernels) add their terms here, and the integrators, far field
+/// and excitations that ask this object follow without change.
+class Medium {
+ public:
+  static Medium free_space();
+  /// Perfect ground in z = 0: images mirrored in z, current −M J (horizontal reversed,
+  /// vertical kept), charge −ρ.
+  static Medium over_perfect_ground();
+  static Medium of(const Model& model);
+
+  /// Wavenumber of the space the structure is in, rad/m.
+  Real wavenumber(Real frequency_hz) const;
+  /// The mixed-potential EFIE's factors: jωμ on the vector potential, −j/(ωε) on the scalar.
+  Complex vector_factor(Real frequency_hz) const;
+  Complex scalar_factor(Real frequency_hz) const;
+
+  /// Image terms to add to every free-space interaction (none in free space).
+  const std::vector<ImageSource>& images() const { return m_images; }
+  /// True when z < 0 is conductor: no source may be there and no field reaches there.
+  bool has_ground() const { return !m_images.empty(); }
+  /// The waves that reach the structure when `wave` arrives: itself and its reflections.
+  std::vector<IncidentWave> waves_reaching(const IncidentWave& wave) const;
+  std::string name() const { return has_ground() ? "perfect" : "none"; }
+
+ private:
+  std::vector<ImageSource> m_images;
+};
+
+}  // namespace lobe

@@ -1,0 +1,41 @@
+#pragma once
+/// The pair integrators, one per kind of element pair. Each appends the Galerkin terms of
+/// the mixed-potential EFIE
+///   Z_mn = jωμ ∫∫ f_m·f_n G − (j/(ωε)) ∫∫ (∇·f_m)(∇·f_n) G
+/// for the pairs of one observing element with its partners, over the direct term and every
+/// image term the medium supplies, as MatrixContributions that the assembly loop adds to
+/// the system matrix. Every unordered pair is integrated once and written at (m, n) and
+/// (n, m), so Z is exactly symmetric.
+#include <vector>
+
+#include "solver/antenna_problem.hpp"
+#include "solver/fill_geometry.hpp"
+#include "solver/system_matrix.hpp"
+
+namespace lobe {
+
+/// What every integrator needs at one frequency.
+struct FillContext {
+  FillContext(const AntennaProblem& problem, Real frequency_hz);
+  const AntennaProblem& problem;
+  const FillGeometry& geometry;
+  Real k;                ///< wavenumber, rad/m
+  Complex vector_factor; ///< jωμ
+  Complex scalar_factor; ///< −j/(ωε)
+};
+
+/// Segment s against segments t ≥ s (thin-wire reduced kernel; solver/segment_integrals).
+/// O(S) pairs per row.
+void add_segment_segment_terms(const FillContext& c, int s, std::vector<MatrixContribution>& out);
+
+/// Segment s observing every triangle (the wire current on its axis, exact kernel).
+void add_segment_triangle_terms(const FillContext& c, int s, std::vector<MatrixContribution>& out);
+
+/// Triangle p against triangles q ≥ p (solver/triangle_pair_integrals).
+void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<MatrixContribution>& out);
+
+/// The junction stars as sources, observed by element e of the list [segments, triangles,
+/// stars]; a star observes only the stars up to itself, so each pair is met once.
+void add_star_source_terms(const FillContext& c, int e, std::vector<MatrixContribution>& out);
+
+}  // namespace lobe
