@@ -1,7 +1,7 @@
 #include <cstdio>
 
 #include "cli/commands.hpp"
-#include "cli/model_loading.hpp"
+#include "study/model_loading.hpp"
 #include "post/run_summary.hpp"
 #include "core/constants.hpp"
 #include "solver/antenna_problem.hpp"

@@ -21,18 +21,9 @@ struct RunOptions {
   std::string command_line;
 };
 
-/// Refuses, before any solving, an output directory that could not be created or written.
-void check_output_directory(const std::filesystem::path& directory);
-/// The same for a file to write: not an existing directory, and its directory writable.
-void check_output_file(const std::filesystem::path& file);
-/// The directory results go to: -o, or MODEL-STEM-results.
-std::filesystem::path output_directory(const RunOptions& options);
-
-/// Solves every frequency, prints the summary and writes HDF5 and CSV files.
+/// Solves every frequency of an antenna or a scatterer (study/run_study), prints the
+/// summary and lists the result files.
 int run_command(const RunOptions& options);
-
-/// Solves a model of plates and bodies lit by its plane wave; writes RCS files.
-int run_scattering(const RunOptions& options, const Model& model);
 
 /// Meshes the model and writes the mesh as a VTK XML file (.vtu) for ParaView.
 int mesh_command(const std::string& model_path, const std::string& output, const std::vector<std::string>& set_options);

@@ -2,6 +2,7 @@
 #include <filesystem>
 
 #include "cli/commands.hpp"
+#include "study/output_checks.hpp"
 #include "post/output_files.hpp"
 #include "post/result_reader.hpp"
 #include "post/sweep_file.hpp"

@@ -2,7 +2,8 @@
 #include <filesystem>
 
 #include "cli/commands.hpp"
-#include "cli/model_loading.hpp"
+#include "study/output_checks.hpp"
+#include "study/model_loading.hpp"
 #include "post/output_files.hpp"
 #include "post/vtk_writer.hpp"
 #include "solver/antenna_problem.hpp"

@@ -4,6 +4,7 @@
 #include <filesystem>
 
 #include "cli/commands.hpp"
+#include "study/output_checks.hpp"
 #include "core/input_error.hpp"
 #include "geometry/model_parser.hpp"
 #include "post/measured_csv.hpp"

@@ -3,6 +3,7 @@
 #include <cstdio>
 
 #include "cli/commands.hpp"
+#include "study/output_checks.hpp"
 #include "core/input_error.hpp"
 #include "geometry/model_parser.hpp"
 #include "post/band_report.hpp"
@@ -74,9 +75,9 @@ int plot_sweep(const PlotOptions& options) {
 
   const NetworkData first = read_result_network(path, case_group(0));
   const std::vector<Band> bands = read_result_bands(path, case_group(0));
-  Band band{"all computed frequencies", first.frequency_hz.front(), first.frequency_hz.back()};
-  if (!options.band_options.empty()) band = parse_band_option(options.band_options.front(), 1);
-  else if (!bands.empty()) band = bands.front();
+  const Band band = options.band_options.empty()
+                        ? default_band(bands, first.frequency_hz.front(), first.frequency_hz.back())
+                        : parse_band_option(options.band_options.front(), 1);
   const std::vector<Real> figures = case_figures(path, table.values.size(), band, figure);
   const bool larger_better = larger_is_better(figure);
   std::size_t best = 0;

@@ -123,6 +123,12 @@ PortBandReport band_report(const ReflectionCurve& curve, Real low_hz, Real high_
   return report;
 }
 
+Band all_frequencies_band(Real lowest_hz, Real highest_hz) { return {"all computed frequencies", lowest_hz, highest_hz}; }
+
+Band default_band(const std::vector<Band>& bands, Real lowest_hz, Real highest_hz) {
+  return bands.empty() ? all_frequencies_band(lowest_hz, highest_hz) : bands.front();
+}
+
 const std::vector<std::string>& band_figure_names() {
   static const std::vector<std::string> names{"worst-vswr", "mean-vswr", "mean-mismatch-loss", "share-under-vswr-2"};
   return names;

@@ -6,6 +6,7 @@
 #include <vector>
 
 #include "core/types.hpp"
+#include "geometry/model.hpp"
 
 namespace lobe {
 
@@ -46,6 +47,12 @@ struct PortBandReport {
 /// Throws std::invalid_argument when the curve does not overlap [low, high] or is not
 /// ascending.
 PortBandReport band_report(const ReflectionCurve& curve, Real low_hz, Real high_hz, Real vswr_threshold = 2.0);
+
+/// Every computed frequency, lowest to highest, as a band: what is judged when no band is named.
+Band all_frequencies_band(Real lowest_hz, Real highest_hz);
+/// The band a figure is judged over when none is chosen: the model's first band, else
+/// all computed frequencies.
+Band default_band(const std::vector<Band>& bands, Real lowest_hz, Real highest_hz);
 
 /// The band figures a sweep ranks by, a tuner minimises and a heat map shows, by name:
 /// worst-vswr, mean-vswr, mean-mismatch-loss (dB) and share-under-vswr-2 (the fraction of

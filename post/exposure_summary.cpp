@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "core/formatted_text.hpp"
+#include "post/band_report.hpp"
 #include "post/exposure_estimate.hpp"
 #include "post/run_summary.hpp"
 #include "solver/frequency_limits.hpp"
@@ -37,7 +38,7 @@ std::string exposure_text(const RunRecord& run, Real forward_w) {
   for (const auto& p : run.results.front().ports) driven += p.driven;
   const Real size = antenna_largest_size_m(run.problem);
   std::vector<Band> bands = model.bands;
-  if (bands.empty()) bands.push_back({"all computed frequencies", run.results.front().frequency_hz, run.results.back().frequency_hz});
+  if (bands.empty()) bands.push_back(all_frequencies_band(run.results.front().frequency_hz, run.results.back().frequency_hz));
 
   std::string out = formatted(
       "\nRF exposure estimate with %.4g W forward at each of %d driven port%s (an estimate, not a compliance assessment):\n"

@@ -9,6 +9,7 @@
 #include <unistd.h>
 
 #include <chrono>
+#include <fstream>
 #include <random>
 #include <regex>
 #include <thread>
@@ -297,6 +298,50 @@ TEST(Sweep, BadVaryOptionsAreInputErrors) {
     EXPECT_EQ(r.exit_code, 2) << vary << ": " << r.err;
     EXPECT_FALSE(std::filesystem::exists(dir / "x.h5.cases")) << vary;
   }
+}
+
+// A value inside the range that the model refuses (here the wire's length vanishes at the
+// middle, where the search starts) is reported as the model's error, located, exit 2 — not
+// as a bare failure of the optimiser.
+TEST(Tune, AModelErrorInsideTheRangeIsReportedAsSuch) {
+  const auto dir = fresh_directory("tune-inner-error");
+  std::ofstream(dir / "pinched.lobe") << "let L = 0.3 m\n"
+                                         "wire d from (0, 0, 0) to (0, 0, (L - 0.5 m) * (L - 0.5 m) / 1 m) radius 0.1 mm "
+                                         "segments 3\nport p on d at middle\nfrequency 400 MHz\n";
+  const ProcessResult r = run_lobe("tune '" + (dir / "pinched.lobe").string() + "' --vary L=0.4m:0.6m --evaluations 3 -o '" +
+                                       (dir / "t.lobe").string() + "'",
+                                   dir);
+  EXPECT_EQ(r.exit_code, 2) << r.err;
+  EXPECT_NE(r.err.find("pinched.lobe:2:1: wire 'd' has a piece of zero length"), std::string::npos) << r.err;
+  EXPECT_FALSE(std::filesystem::exists(dir / "t.lobe"));
+}
+
+// The study layer refuses, before the first solve (exit 2, no case written): a ranking band
+// that one case's frequencies do not reach (the band is judged against every case, not
+// only the first), an unwritable output, and a grid of more cases than allowed.
+TEST(Sweep, StudyChecksComeBeforeAnySolving) {
+  const auto dir = fresh_directory("sweep-checks");
+  std::ofstream(dir / "tuned_by_f.lobe") << "let f0 = 400 MHz\nlet r = 1 mm\n"
+                                            "wire d from (0, 0, -0.17) to (0, 0, 0.17) radius r segments 11\n"
+                                            "port p on d at middle\nfrequency f0 to f0 + 20 MHz count 3\n";
+  const std::string model = "'" + (dir / "tuned_by_f.lobe").string() + "'";
+  const ProcessResult band = run_lobe("sweep " + model + " --vary f0=400MHz,800MHz --rank worst-vswr --band 400MHz:420MHz -o '" +
+                                          (dir / "a.h5").string() + "'",
+                                      dir);
+  EXPECT_EQ(band.exit_code, 2) << band.err;
+  EXPECT_NE(band.err.find("--band"), std::string::npos) << band.err;
+  EXPECT_FALSE(std::filesystem::exists(dir / "a.h5.cases"));
+
+  std::ofstream(dir / "plain-file") << "x";
+  const ProcessResult unwritable =
+      run_lobe("sweep " + model + " --vary f0=400MHz,410MHz -o '" + (dir / "plain-file" / "b.h5").string() + "'", dir);
+  EXPECT_EQ(unwritable.exit_code, 2) << unwritable.err;
+
+  const ProcessResult oversize = run_lobe("sweep " + model + " --vary f0=400MHz:500MHz:0.1MHz --vary r=1mm:2mm:0.001mm -o '" +
+                                              (dir / "c.h5").string() + "'",
+                                          dir);
+  EXPECT_EQ(oversize.exit_code, 2) << oversize.err;
+  EXPECT_FALSE(std::filesystem::exists(dir / "c.h5.cases"));
 }
 
 }  // namespace

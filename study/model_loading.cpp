@@ -1,11 +1,12 @@
-#include "cli/model_loading.hpp"
+#include "study/model_loading.hpp"
 
 #include <algorithm>
 
 #include "core/number_text.hpp"
 #include "core/text_file.hpp"
+#include "post/band_report.hpp"
 
-namespace lobe::cli {
+namespace lobe {
 
 Model load_model(const std::string& path, const std::vector<std::string>& set_options) {
   return load_model(path, overrides_with(set_options, {}, {}));
@@ -24,14 +25,8 @@ std::vector<Override> overrides_with(const std::vector<std::string>& set_options
 
 Band judged_band(const Model& model, const std::string& band_option) {
   const auto [lowest, highest] = std::minmax_element(model.frequencies_hz.begin(), model.frequencies_hz.end());
-  Band band{"all computed frequencies", *lowest, *highest};
-  SourceLocation where{model.file, 1, 1};
-  if (!band_option.empty()) {
-    band = parse_band_option(band_option, 1);
-    where = {"--band", 1, 1};
-  } else if (!model.bands.empty()) {
-    band = model.bands.front();
-  }
+  const Band band = band_option.empty() ? default_band(model.bands, *lowest, *highest) : parse_band_option(band_option, 1);
+  const SourceLocation where = band_option.empty() ? SourceLocation{model.file, 1, 1} : SourceLocation{"--band", 1, 1};
   if (band.high_hz < *lowest || band.low_hz > *highest)
     throw InputError(where, "band '" + band.name + "' lies outside the model's frequencies (" + exact_text(*lowest / 1e6) +
                                 " to " + exact_text(*highest / 1e6) + " MHz); there is nothing to judge in it");
@@ -42,4 +37,4 @@ Model load_model(const std::string& path, const std::vector<Override>& overrides
   return parse_model(read_text_file(path, max_model_bytes, "the model file"), path, overrides);
 }
 
-}  // namespace lobe::cli
+}  // namespace lobe

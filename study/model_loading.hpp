@@ -6,7 +6,7 @@
 #include "geometry/model.hpp"
 #include "geometry/model_parser.hpp"
 
-namespace lobe::cli {
+namespace lobe {
 
 /// Reads `path` and parses it with `--set` options applied. Throws InputError.
 Model load_model(const std::string& path, const std::vector<std::string>& set_options);
@@ -23,4 +23,4 @@ std::vector<Override> overrides_with(const std::vector<std::string>& set_options
                                      const std::vector<std::string>& varied_names,
                                      const std::vector<std::string>& values);
 
-}  // namespace lobe::cli
+}  // namespace lobe

@@ -1,0 +1,79 @@
+#include "study/run_study.hpp"
+
+#include "post/csv_writer.hpp"
+#include "post/hdf5_writer.hpp"
+#include "post/output_files.hpp"
+#include "post/run_summary.hpp"
+#include "post/scattering_result.hpp"
+#include "post/vtk_writer.hpp"
+#include "study/frequency_loop.hpp"
+#include "study/model_loading.hpp"
+#include "study/output_checks.hpp"
+
+namespace lobe {
+namespace {
+
+RunOutcome execute_antenna(const PreparedRun& prepared, const RunInfo& info, const StudyControl& control) {
+  const AntennaProblem& problem = *prepared.problem;
+  RunRecord run{problem, {}, info};
+  RunOutcome outcome;
+  outcome.finished = solve_each_frequency(problem, control, [&](FrequencySolution&& solution) {
+    run.results.push_back(evaluate_frequency(problem, solution));
+  });
+  if (!outcome.finished) return outcome;
+  OutputFiles files(prepared.directory);
+  const std::string& stem = prepared.stem;
+  write_hdf5(files.staging_path(stem + ".h5"), run);
+  write_ports_csv(files.staging_path(stem + "_ports.csv"), run);
+  write_pattern_csv(files.staging_path(stem + "_pattern.csv"), run);
+  write_currents_csv(files.staging_path(stem + "_currents.csv"), run);
+  std::vector<CellValues> currents;
+  for (const auto& r : run.results) currents.push_back(current_cells(r.frequency_hz, r.segment_currents, r.surface_currents));
+  write_model_vtu(files.staging_path(stem + "_currents.vtu"), problem.mesh, problem.surfaces, currents);
+  outcome.written = files.commit();
+  outcome.summary = run_summary(run);
+  return outcome;
+}
+
+RunOutcome execute_scattering(const PreparedRun& prepared, const RunInfo& info, const StudyControl& control) {
+  const AntennaProblem& problem = *prepared.problem;
+  ScatteringRun run{problem, {}, info};
+  RunOutcome outcome;
+  outcome.finished = solve_each_frequency(problem, control, [&](FrequencySolution&& solution) {
+    run.results.push_back(evaluate_scattering(problem, solution));
+  });
+  if (!outcome.finished) return outcome;
+  OutputFiles files(prepared.directory);
+  const std::string& stem = prepared.stem;
+  write_scattering_hdf5(files.staging_path(stem + ".h5"), run);
+  write_scattering_csv(files.staging_path(stem + "_rcs.csv"), run);
+  std::vector<CellValues> currents;
+  for (const auto& r : run.results) currents.push_back(current_cells(r.frequency_hz, r.segment_currents, r.surface_currents));
+  write_model_vtu(files.staging_path(stem + "_currents.vtu"), problem.mesh, problem.surfaces, currents);
+  outcome.written = files.commit();
+  outcome.summary = scattering_summary(run);
+  return outcome;
+}
+
+}  // namespace
+
+PreparedRun prepare_run(const RunRequest& request) {
+  PreparedRun run;
+  run.model = std::make_unique<Model>(load_model(request.model_path, request.set_options));
+  for (std::size_t i = 0; i < request.band_options.size(); ++i)
+    run.model->bands.push_back(parse_band_option(request.band_options[i], static_cast<int>(i) + 1));
+  run.stem = std::filesystem::path(request.model_path).stem().string();
+  run.directory = request.output_directory.empty() ? std::filesystem::path(run.stem + "-results")
+                                                   : std::filesystem::path(request.output_directory);
+  run.problem = std::make_unique<AntennaProblem>(*run.model);
+  require_solvable(*run.problem);
+  check_output_directory(run.directory);
+  remove_dead_temporaries(run.directory);  // left by a run that was killed
+  return run;
+}
+
+RunOutcome execute_run(const PreparedRun& run, const RunInfo& info, const StudyControl& control) {
+  return run.model->wave ? execute_scattering(run, info, control) : execute_antenna(run, info, control);
+}
+
+}  // namespace lobe

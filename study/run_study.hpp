@@ -1,0 +1,47 @@
+#pragma once
+/// A single run: one model (an antenna driven at its ports or a scatterer lit by its wave),
+/// every frequency, its result files.
+#include <filesystem>
+#include <memory>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "geometry/model.hpp"
+#include "post/run_record.hpp"
+#include "solver/antenna_problem.hpp"
+#include "study/study_control.hpp"
+
+namespace lobe {
+
+struct RunRequest {
+  std::string model_path;
+  std::vector<std::string> set_options;   ///< NAME=EXPRESSION
+  std::vector<std::string> band_options;  ///< extra bands, LOW:HIGH
+  std::string output_directory;           ///< empty: MODEL-STEM-results
+};
+
+/// A run with everything checked that can be checked before solving: the model and its
+/// overrides and bands, the mesh, the matrix memory and the output directory.
+struct PreparedRun {
+  std::unique_ptr<Model> model;
+  std::unique_ptr<AntennaProblem> problem;
+  std::filesystem::path directory;
+  std::string stem;
+};
+
+/// Throws InputError (exit 2) for anything that would make the run fail later.
+PreparedRun prepare_run(const RunRequest& request);
+
+struct RunOutcome {
+  bool finished = false;                         ///< false: cancelled, nothing written
+  std::vector<std::filesystem::path> written;    ///< the result files, published together
+  std::string summary;                           ///< the run's summary for people
+};
+
+/// Solves every frequency and writes the result files: for an antenna the HDF5 file, the
+/// port, pattern and current tables and the currents as VTK; for a scatterer the HDF5
+/// file, the cross-section table and the currents.
+RunOutcome execute_run(const PreparedRun& run, const RunInfo& info, const StudyControl& control);
+
+}  // namespace lobe

@@ -1,0 +1,186 @@
+#include "study/sweep_study.hpp"
+
+#include <algorithm>
+#include <fstream>
+#include <set>
+#include <sstream>
+
+#include "core/output_error.hpp"
+#include "post/band_report.hpp"
+#include "post/hdf5_writer.hpp"
+#include "post/output_files.hpp"
+#include "post/result_reader.hpp"
+#include "post/sweep_file.hpp"
+#include "solver/threads.hpp"
+#include "study/frequency_loop.hpp"
+#include "study/model_loading.hpp"
+#include "study/output_checks.hpp"
+
+namespace lobe {
+namespace {
+
+/// What identifies a sweep: the model text, the fixed overrides and every case. A case
+/// directory left by another sweep must not be mixed into this one.
+std::string manifest(const std::string& model_text, const SweepRequest& request, const CaseGrid& grid) {
+  std::ostringstream m;
+  m << "lobe sweep cases\nmodel:\n" << model_text << "\nfixed:";
+  for (const auto& s : request.set_options) m << ' ' << s;
+  m << "\nvaried:";
+  for (const auto& v : grid.varied) m << ' ' << v.name;
+  m << '\n';
+  for (std::size_t c = 0; c < grid.size(); ++c) {
+    m << case_name(c);
+    for (const auto& value : grid.values[c]) m << ' ' << value;
+    m << '\n';
+  }
+  return m.str();
+}
+
+/// Creates the case directory, or checks that the one there holds this sweep's cases.
+void claim_case_directory(const PreparedSweep& sweep) {
+  const auto manifest_path = sweep.case_directory / "manifest.txt";
+  if (std::filesystem::exists(manifest_path)) {
+    std::ifstream in(manifest_path, std::ios::binary);
+    std::ostringstream found;
+    found << in.rdbuf();
+    if (found.str() != sweep.manifest)
+      throw InputError({sweep.output.string(), 1, 1}, "'" + sweep.case_directory.string() +
+                                                          "' holds the cases of a different sweep; remove it or choose "
+                                                          "another -o");
+  } else {
+    OutputFiles files(sweep.case_directory);
+    files.stage_text("manifest.txt", sweep.manifest);
+    files.commit();
+  }
+}
+
+/// Whether case file `path` is there and reads; a damaged one is removed (and reported).
+bool saved_whole(const std::filesystem::path& path, const StudyControl& control) {
+  if (!std::filesystem::exists(path)) return false;
+  // Published whole by rename, a case file can still be damaged afterwards (a disk error,
+  // a copy cut short): a file that does not read is named and solved again.
+  try {
+    read_result_network(path);
+    return true;
+  } catch (const InputError& e) {
+    if (control.notice) control.notice(path.string() + " is damaged (" + e.what() + "); solving it again");
+    std::filesystem::remove(path);
+    return false;
+  }
+}
+
+}  // namespace
+
+std::vector<Override> case_overrides(const PreparedSweep& sweep, std::size_t index) {
+  return overrides_with(sweep.request.set_options, sweep.grid.names(), sweep.grid.values[index]);
+}
+
+PreparedSweep prepare_sweep(const SweepRequest& request) {
+  PreparedSweep sweep;
+  sweep.request = request;
+  sweep.grid = case_grid(request.vary_options);
+  // Every case must load, and the ranking band must lie within every case's frequencies,
+  // before any is solved: a bad value is an input error now, not hours into the night.
+  std::string model_text;
+  for (std::size_t c = 0; c < sweep.grid.size(); ++c) {
+    const Model model = load_model(request.model_path, case_overrides(sweep, c));
+    if (model.wave) throw InputError({request.model_path, 1, 1}, "sweeps solve antennas driven by ports, not plane waves");
+    if (!request.rank.empty()) {
+      const Band band = judged_band(model, request.band);
+      if (!sweep.band) sweep.band = band;
+    }
+    model_text = model.text;
+    std::vector<Real> values;
+    for (const auto& v : sweep.grid.varied)
+      for (const auto& r : model.values)
+        if (r.name == v.name) values.push_back(r.value);
+    sweep.values_si.push_back(values);
+  }
+  const std::string stem = std::filesystem::path(request.model_path).stem().string();
+  sweep.output = request.output.empty() ? std::filesystem::path(stem + "-sweep.h5") : std::filesystem::path(request.output);
+  check_output_file(sweep.output);
+  sweep.case_directory = sweep.output.string() + ".cases";
+  check_output_directory(sweep.case_directory);
+  sweep.manifest = manifest(model_text, request, sweep.grid);
+  return sweep;
+}
+
+SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& control) {
+  const std::filesystem::path directory =
+      sweep.output.has_parent_path() ? sweep.output.parent_path() : std::filesystem::path(".");
+  std::filesystem::create_directories(sweep.case_directory);
+  const DirectoryLock lock(sweep.case_directory);
+  if (!lock.held())
+    throw InputError({sweep.output.string(), 1, 1}, "another sweep is writing into '" + sweep.case_directory.string() +
+                                                        "' now; wait for it to finish or choose another -o");
+  claim_case_directory(sweep);
+  // Half-written cases of a sweep that was killed: never published, safe to remove.
+  remove_dead_temporaries(sweep.case_directory);
+  remove_dead_temporaries(directory);
+
+  SweepOutcome outcome;
+  std::set<std::string> warned;  // each distinct mesh warning once, not once per case
+  const std::size_t total = sweep.grid.size();
+  for (std::size_t c = 0; c < total; ++c) {
+    outcome.case_files.push_back(sweep.case_directory / (case_name(c) + ".h5"));
+    if (saved_whole(outcome.case_files.back(), control)) {
+      ++outcome.skipped;
+      continue;
+    }
+    const Model model = load_model(sweep.request.model_path, case_overrides(sweep, c));
+    const AntennaProblem problem(model);
+    require_solvable(problem);
+    if (outcome.solved == 0 && control.workload)
+      control.workload(problem.unknowns(), static_cast<double>(model.frequencies_hz.size() * (total - c)));
+    for (const auto* list : {&problem.mesh.warnings, &problem.surfaces.warnings})
+      for (const auto& w : *list)
+        if (warned.insert(w.formatted()).second && control.warning) control.warning(w, case_name(c));
+    std::string command = "lobe sweep case " + case_name(c) + ":";
+    for (const auto& o : case_overrides(sweep, c)) command += " --set " + o.name + "=" + o.expression;
+    RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), command, std::nullopt}};
+    const bool whole = solve_each_frequency(problem, {control.cancel, {}, {}, {}, {}}, [&](FrequencySolution&& s) {
+      run.results.push_back(evaluate_frequency(problem, s));
+    });
+    if (!whole) return outcome;
+    try {
+      OutputFiles files(sweep.case_directory);
+      write_hdf5(files.staging_path(case_name(c) + ".h5"), run);
+      files.commit();
+    } catch (const OutputError& e) {
+      throw OutputError(std::string(e.what()) + "; the " + std::to_string(outcome.solved + outcome.skipped) +
+                        " finished cases are kept in " + sweep.case_directory.string() +
+                        ": make room and run the same command again to go on");
+    }
+    ++outcome.solved;
+    if (control.progress) control.progress(c + 1, total, outcome.solved, "");
+  }
+  SweepTable table{sweep.grid.names(), sweep.grid.values, sweep.grid.labels, sweep.values_si};
+  try {
+    OutputFiles files(directory);
+    write_sweep_hdf5(files.staging_path(sweep.output.filename().string()), table, outcome.case_files);
+    files.commit();
+  } catch (const OutputError& e) {
+    throw OutputError(std::string(e.what()) + "; all " + std::to_string(total) + " cases are kept in " +
+                      sweep.case_directory.string() + ": make room and run the same command again to assemble them");
+  }
+  outcome.finished = true;
+  return outcome;
+}
+
+std::vector<RankedCase> rank_sweep(const PreparedSweep& sweep, const std::vector<std::filesystem::path>& case_files) {
+  const std::string& figure_name = sweep.request.rank;
+  std::vector<RankedCase> ranked;
+  for (std::size_t c = 0; c < case_files.size(); ++c) {
+    const NetworkData network = read_result_network(case_files[c]);
+    ReflectionCurve curve{network.frequency_hz, {}};
+    for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
+    ranked.push_back({c, band_figure(band_report(curve, sweep.band->low_hz, sweep.band->high_hz), figure_name)});
+  }
+  const bool larger = larger_is_better(figure_name);
+  std::stable_sort(ranked.begin(), ranked.end(), [&](const RankedCase& a, const RankedCase& b) {
+    return larger ? a.figure > b.figure : a.figure < b.figure;
+  });
+  return ranked;
+}
+
+}  // namespace lobe
