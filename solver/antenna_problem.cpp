@@ -8,6 +8,7 @@
 #include "geometry/surface_contact.hpp"
 #include "solver/assembly.hpp"
 #include "solver/excitation.hpp"
+#include "solver/fill_geometry.hpp"
 #include "solver/frequency_limits.hpp"
 
 namespace lobe {
@@ -200,7 +201,7 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
       rwg(surfaces.mesh, basis.size()),
       stars(stars_of(m, mesh, surfaces, node_vertex, basis)),
       medium(Medium::of(m)),
-      geometry(mesh, surfaces.mesh, stars, medium) {
+      geometry(std::make_shared<const FillGeometry>(mesh, surfaces.mesh, stars, medium)) {
   for (MeshWarning& w : check_frequency_limits(m, mesh, surfaces.mesh)) mesh.warnings.push_back(std::move(w));
   require_current_at_gaps(mesh, attached(node_vertex));
   if (unknowns() == 0) throw InputError({m.file, 1, 1}, "the model has no place for current to flow (no unknowns)");

@@ -1,12 +1,12 @@
 #pragma once
 /// A meshed model ready to solve at any frequency, and the solution at one frequency.
 #include <array>
+#include <memory>
 #include <vector>
 
 #include "geometry/model.hpp"
 #include "geometry/surface_mesher.hpp"
 #include "geometry/wire_mesh.hpp"
-#include "solver/fill_geometry.hpp"
 #include "solver/junction_star.hpp"
 #include "solver/medium.hpp"
 #include "solver/rwg_basis.hpp"
@@ -14,6 +14,8 @@
 #include "solver/wire_basis.hpp"
 
 namespace lobe {
+
+struct FillGeometry;
 
 /// Everything that does not change with frequency: the medium, meshes, bases, the fill's
 /// geometry, port and load couplings. Unknowns are the wire functions (junction functions
@@ -32,7 +34,8 @@ struct AntennaProblem {
   RwgBasis rwg;
   std::vector<JunctionStar> stars;  ///< one per wire node attached to a surface
   Medium medium;
-  FillGeometry geometry;
+  /// What the pair integrators need of the meshes, made once (solver/fill_geometry.hpp).
+  std::shared_ptr<const FillGeometry> geometry;
   Eigen::MatrixXd port_vectors;     ///< N × ports: column p couples basis currents to port p
   Eigen::MatrixXd load_vectors;     ///< N × loads
 

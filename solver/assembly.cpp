@@ -11,7 +11,7 @@ namespace lobe {
 
 FillContext::FillContext(const AntennaProblem& p, Real frequency_hz)
     : problem(p),
-      geometry(p.geometry),
+      geometry(*p.geometry),
       k(p.medium.wavenumber(frequency_hz)),
       vector_factor(p.medium.vector_factor(frequency_hz)),
       scalar_factor(p.medium.scalar_factor(frequency_hz)) {}
