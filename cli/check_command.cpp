@@ -45,7 +45,7 @@ int check_command(const std::string& model_path, const std::vector<std::string>&
               static_cast<double>(system_matrix_bytes(static_cast<std::uint64_t>(problem.unknowns()))) / (1 << 20));
   std::printf("%s from %s to %s; ground %s; %s\n", count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
               frequency_text(model.frequencies_hz.front()).c_str(), frequency_text(model.highest_frequency()).c_str(),
-              model.ground_perfect ? "perfect" : "none", count_text(problem.mesh.warnings.size() + problem.surfaces.warnings.size(), "warning").c_str());
+              problem.medium.name().c_str(), count_text(problem.mesh.warnings.size() + problem.surfaces.warnings.size(), "warning").c_str());
   print_long_run_estimate(problem.unknowns(), static_cast<double>(model.frequencies_hz.size()));
   return 0;
 }

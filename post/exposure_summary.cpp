@@ -29,7 +29,7 @@ std::vector<const FrequencyResult*> results_for(const RunRecord& run, const Band
 }  // namespace
 
 Real antenna_largest_size_m(const AntennaProblem& problem) {
-  return structure_extent_m(problem.mesh, problem.surfaces.mesh, problem.model.ground_perfect);
+  return structure_extent_m(problem.mesh, problem.surfaces.mesh, problem.medium);
 }
 
 std::string exposure_text(const RunRecord& run, Real forward_w) {

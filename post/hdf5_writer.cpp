@@ -105,7 +105,7 @@ void write_model(hid_t file, const RunRecord& run) {
   write_strings(g, "value_units", units);
   write_ints(g, "value_overridden", {overridden.size()}, overridden);
   string_attribute(g, "file", model.file);
-  string_attribute(g, "ground", model.ground_perfect ? "perfect" : "none");
+  string_attribute(g, "ground", run.problem.medium.name());
   write_reals(g, "reference_ohm", {1}, {model.reference_ohm}, "ohm");
   std::vector<std::string> band_names;
   std::vector<Real> band_edges;

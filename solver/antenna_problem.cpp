@@ -83,7 +83,7 @@ int shape_index(const Model& model, const std::string& name) {
 }
 
 void check_surfaces_above_ground(const Model& model, const SurfaceMeshReport& surfaces) {
-  if (!model.ground_perfect) return;
+  if (!Medium::of(model).has_ground()) return;
   for (std::size_t t = 0; t < surfaces.mesh.triangles.size(); ++t)
     for (int v : surfaces.mesh.triangles[t])
       if (surfaces.mesh.vertices[v].z() <= 0.0) {

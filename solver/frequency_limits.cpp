@@ -28,14 +28,14 @@ std::string hz_text(Real f) {
 
 }  // namespace
 
-Real structure_extent_m(const WireMesh& wires, const SurfaceMesh& surfaces, bool ground_perfect) {
+Real structure_extent_m(const WireMesh& wires, const SurfaceMesh& surfaces, const Medium& medium) {
   Vec3 low = Vec3::Constant(INFINITY), high = Vec3::Constant(-INFINITY);
   auto include = [&](const Vec3& p) {
     low = low.cwiseMin(p);
     high = high.cwiseMax(p);
-    if (ground_perfect) {  // and its image
-      low.z() = std::min(low.z(), -p.z());
-      high.z() = std::max(high.z(), -p.z());
+    for (const ImageSource& image : medium.images()) {
+      low = low.cwiseMin(image.point(p));
+      high = high.cwiseMax(image.point(p));
     }
   };
   for (const Segment& s : wires.segments) include(s.start), include(s.end);
@@ -52,7 +52,7 @@ std::vector<MeshWarning> check_frequency_limits(const Model& model, const WireMe
   for (std::size_t t = 0; t < surfaces.triangles.size(); ++t)
     for (int k = 0; k < 3; ++k)
       longest = std::max(longest, (surfaces.corner(static_cast<int>(t), k) - surfaces.corner(static_cast<int>(t), (k + 1) % 3)).norm());
-  const Real extent = structure_extent_m(wires, surfaces, model.ground_perfect);
+  const Real extent = structure_extent_m(wires, surfaces, Medium::of(model));
   const auto [lowest, highest] = std::minmax_element(model.frequencies_hz.begin(), model.frequencies_hz.end());
   const Real k_low = 2 * pi * *lowest / speed_of_light, k_high = 2 * pi * *highest / speed_of_light;
 

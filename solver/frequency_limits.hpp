@@ -6,12 +6,13 @@
 #include "geometry/model.hpp"
 #include "geometry/surface_mesh.hpp"
 #include "geometry/wire_mesh.hpp"
+#include "solver/medium.hpp"
 
 namespace lobe {
 
-/// The diagonal of the box around every segment end and surface vertex (and their images
-/// over a perfect ground), m: the structure's largest extent D.
-Real structure_extent_m(const WireMesh& wires, const SurfaceMesh& surfaces, bool ground_perfect);
+/// The diagonal of the box around every segment end and surface vertex and their images in
+/// the medium, m: the structure's largest extent D.
+Real structure_extent_m(const WireMesh& wires, const SurfaceMesh& surfaces, const Medium& medium);
 
 /// Checks the model's lowest and highest frequencies against the meshes. Throws InputError,
 /// located at the frequency statement, where the method cannot work:
