@@ -818,7 +818,7 @@ class ModelParser {
       throw InputError(m_model.wave->where, "a model is either lit by a plane wave or driven by ports, not both");
     if (!m_model.wave && m_model.ports.empty())
       throw InputError(end_of_file, "the model has no port; add one such as 'port feed on WIRE at middle' or "
-                                    "'port feed on PLATE along (x, y, z) to (x, y, z)', or light plates with a 'wave'");
+                                    "'port feed on PLATE along (x, y, z) to (x, y, z)', or light the model with a 'wave'");
     const double rows = static_cast<double>(m_model.frequencies_hz.size()) * m_model.pattern.thetas().size() *
                         m_model.pattern.phis().size();
     if (rows > max_pattern_rows)

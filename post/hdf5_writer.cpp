@@ -319,6 +319,15 @@ void write_scattering_hdf5(const std::filesystem::path& path, const ScatteringRu
     write_reals(g, "phi_deg", {phis.size()}, phis, "deg");
     write_reals(g, "rcs_m2", {nf, thetas.size(), phis.size()}, rcs, "m2");
     write_reals(g, "monostatic_m2", {nf}, monostatic, "m2");
+    const auto& loads = run.problem.model.loads;
+    if (!loads.empty()) {
+      std::vector<std::string> names;
+      std::vector<Real> powers;
+      for (const auto& load : loads) names.push_back(load.name);
+      for (const auto& r : run.results) powers.insert(powers.end(), r.load_power_w.begin(), r.load_power_w.end());
+      write_strings(g, "load_names", names);
+      write_reals(g, "load_power_w", {nf, loads.size()}, powers, "W (received by each load)");
+    }
   }
   {
     std::vector<const std::vector<std::array<Complex, 2>>*> segment_currents;

@@ -16,11 +16,17 @@ PowerBudget power_budget(const AntennaProblem& problem, const FrequencySolution&
     const Real squared = (std::norm(c0) + std::norm(c1) + (c0 * std::conj(c1)).real()) * seg.length() / 3.0;
     budget.conductor_loss += 0.5 * r * squared;
   }
+  for (Real p : load_powers(problem, solution)) budget.load_loss += p;
+  return budget;
+}
+
+std::vector<Real> load_powers(const AntennaProblem& problem, const FrequencySolution& solution) {
+  std::vector<Real> powers;
   for (std::size_t l = 0; l < problem.model.loads.size(); ++l) {
     const Complex current = problem.load_vectors.col(static_cast<Eigen::Index>(l)).cast<Complex>().dot(solution.coefficients);
-    budget.load_loss += 0.5 * std::norm(current) * load_impedance(problem.model.loads[l], solution.frequency_hz).real();
+    powers.push_back(0.5 * std::norm(current) * load_impedance(problem.model.loads[l], solution.frequency_hz).real());
   }
-  return budget;
+  return powers;
 }
 
 }  // namespace lobe

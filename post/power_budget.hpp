@@ -1,5 +1,7 @@
 #pragma once
 /// Where the power delivered to the ports goes.
+#include <vector>
+
 #include "solver/antenna_problem.hpp"
 
 namespace lobe {
@@ -14,6 +16,10 @@ struct PowerBudget {
   /// (accepted − radiated − losses)/accepted: zero for an exact solution.
   Real imbalance() const { return accepted > 0.0 ? (accepted - radiated - conductor_loss - load_loss) / accepted : 0.0; }
 };
+
+/// The power each lumped load takes, ½ |I|² Re Z_load, W: losses when driven, the received
+/// power when lit by a wave.
+std::vector<Real> load_powers(const AntennaProblem& problem, const FrequencySolution& solution);
 
 /// Accepted power and losses; `radiated` is left to the caller (see FarField).
 PowerBudget power_budget(const AntennaProblem& problem, const FrequencySolution& solution);

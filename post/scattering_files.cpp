@@ -44,6 +44,19 @@ std::string scattering_summary(const ScatteringRun& run) {
                   r.monostatic_m2, to_dbsm(r.monostatic_m2), where);
     out += line;
   }
+  const auto& loads = run.problem.model.loads;
+  if (loads.empty()) return out;
+  // Power density of the incident wave, ½|E|²/η0: the effective area is P / S.
+  const Real density = 0.5 * wave.amplitude * wave.amplitude / eta0;
+  out += "\npower received by the loads (effective area = power / incident power density):\n";
+  std::snprintf(line, sizeof line, "%-14s %-16s %16s %18s\n", "frequency", "load", "power (W)", "effective area (m2)");
+  out += line;
+  for (const auto& r : run.results)
+    for (std::size_t l = 0; l < loads.size(); ++l) {
+      std::snprintf(line, sizeof line, "%-14s %-16s %16.5g %18.5g\n", frequency_text(r.frequency_hz).c_str(),
+                    loads[l].name.c_str(), r.load_power_w[l], r.load_power_w[l] / density);
+      out += line;
+    }
   return out;
 }
 

@@ -4,6 +4,7 @@
 
 #include "core/constants.hpp"
 #include "post/far_field.hpp"
+#include "post/power_budget.hpp"
 
 namespace lobe {
 
@@ -30,11 +31,13 @@ ScatteringResult evaluate_scattering(const AntennaProblem& problem, const Freque
   for (Eigen::Index i = 0; i < nt; ++i)
     for (Eigen::Index j = 0; j < np; ++j) result.rcs_m2(i, j) = rcs(result.thetas[i], result.phis[j]);
   result.monostatic_m2 = rcs(wave.theta, wave.phi);
+  result.load_power_w = load_powers(problem, solution);
   result.segment_currents = solution.segment_currents;
   result.surface_currents = triangle_current_density(problem, solution.coefficients);
   bool finite = result.rcs_m2.allFinite() && std::isfinite(result.monostatic_m2);
   for (const auto& j : result.surface_currents) finite = finite && j.allFinite();
   for (const auto& c : result.segment_currents) finite = finite && std::isfinite(std::abs(c[0])) && std::isfinite(std::abs(c[1]));
+  for (Real p : result.load_power_w) finite = finite && std::isfinite(p);
   if (!finite)
     throw NumericalError("a non-finite cross-section arose at " + std::to_string(result.frequency_hz) + " Hz");
   return result;

@@ -17,6 +17,7 @@ struct ScatteringResult {
   std::vector<Real> thetas, phis;  ///< rad, the model's pattern grid
   Eigen::ArrayXXd rcs_m2;          ///< bistatic RCS on the grid (θ index, φ index), m²
   Real monostatic_m2 = 0.0;        ///< back toward the direction the wave comes from, m²
+  std::vector<Real> load_power_w;  ///< received by each lumped load, W
   std::vector<std::array<Complex, 2>> segment_currents;  ///< A, at each segment's start and end
   std::vector<Eigen::Vector3cd> surface_currents;  ///< A/m at each triangle's centroid
   SolveReport report;
@@ -43,7 +44,8 @@ struct ScatteringRun {
 
 /// One row per frequency and direction; header frequency_hz,theta_deg,phi_deg,rcs_m2,rcs_dbsm.
 void write_scattering_csv(const std::filesystem::path& path, const ScatteringRun& run);
-/// Per frequency the monostatic RCS, the largest bistatic RCS and where, then cautions.
+/// Per frequency the monostatic RCS and the largest bistatic RCS and where; with loads, the
+/// power each receives and its effective area P / S_incident.
 std::string scattering_summary(const ScatteringRun& run);
 
 }  // namespace lobe
