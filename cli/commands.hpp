@@ -8,16 +8,16 @@
 #include "geometry/model.hpp"
 #include "geometry/wire_mesh.hpp"
 #include "post/measured_csv.hpp"
+#include "study/run_study.hpp"
+#include "study/sweep_study.hpp"
+#include "study/tune_study.hpp"
 
 namespace lobe::cli {
 
 struct RunOptions {
-  std::string model_path;
-  std::string output_directory;  ///< empty: <model stem>-results beside the current directory
-  std::vector<std::string> set_options;
-  std::vector<std::string> band_options;  ///< extra bands, LOW:HIGH
+  RunRequest study;                       ///< the model, overrides, extra bands, output directory
   std::optional<double> tx_power_w;       ///< forward power for reflected-power figures
-  int threads = 0;               ///< 0: all available
+  int threads = 0;                        ///< 0: all available
   std::string command_line;
 };
 
@@ -90,12 +90,7 @@ int plot_sweep(const PlotOptions& options);
 MeasuredCurve read_measured(const std::string& path, Real reference_ohm, const std::string& format = "auto");
 
 struct SweepOptions {
-  std::string model_path;
-  std::vector<std::string> vary_options;  ///< NAME=START:STOP:STEP or NAME=A,B,C
-  std::vector<std::string> set_options;   ///< fixed overrides for every case
-  std::string output;                     ///< the sweep's HDF5 file; cases go to OUTPUT.cases/
-  std::string rank;                       ///< worst-vswr, mean-vswr, mean-mismatch-loss, share-under-vswr-2
-  std::string band;                       ///< LOW:HIGH for the ranking; default the model's first band
+  SweepRequest study;  ///< the model, the varied and fixed values, the output, the ranking
   int threads = 0;
 };
 
@@ -105,13 +100,7 @@ struct SweepOptions {
 int sweep_command(const SweepOptions& options);
 
 struct TuneOptions {
-  std::string model_path;
-  std::vector<std::string> vary_options;  ///< NAME=MIN:MAX
-  std::vector<std::string> set_options;
-  std::string goal = "worst-vswr";        ///< worst-vswr, mean-vswr or mean-mismatch-loss
-  std::string band;                       ///< LOW:HIGH; default the model's first band
-  std::string output;                     ///< the tuned model; default MODEL-STEM-tuned.lobe
-  int evaluations = 60;
+  TuneRequest study;  ///< the model, the ranges, the goal and band, the output, the evaluations
   int threads = 0;
 };
 

@@ -49,10 +49,10 @@ int main(int argc, char** argv) {
   lobe::cli::RunOptions run;
   for (int i = 0; i < argc; ++i) run.command_line += (i ? " " : "") + std::string(argv[i]);
   auto* run_app = app.add_subcommand("run", "Solve a model at its frequencies; print a summary and write HDF5 and CSV results");
-  run_app->add_option("MODEL", run.model_path, "Model file (.lobe)")->required();
-  run_app->add_option("-o,--output", run.output_directory, "Directory for result files (default: MODEL-STEM-results)");
-  run_app->add_option("--set", run.set_options, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
-  run_app->add_option("--band", run.band_options, "Also report a band: LOW:HIGH, e.g. 5.65GHz:5.95GHz (repeatable)")
+  run_app->add_option("MODEL", run.study.model_path, "Model file (.lobe)")->required();
+  run_app->add_option("-o,--output", run.study.output_directory, "Directory for result files (default: MODEL-STEM-results)");
+  run_app->add_option("--set", run.study.set_options, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
+  run_app->add_option("--band", run.study.band_options, "Also report a band: LOW:HIGH, e.g. 5.65GHz:5.95GHz (repeatable)")
       ->allow_extra_args(false);
   run_app->add_option("--tx-power", run.tx_power_w, "Transmitter forward power in W: print the reflected power")
       ->check(transmit_power);
@@ -120,29 +120,29 @@ int main(int argc, char** argv) {
   lobe::cli::SweepOptions sweep;
   bool resume = false;
   auto* sweep_app = app.add_subcommand("sweep", "Solve a model for every combination of varied let values");
-  sweep_app->add_option("MODEL", sweep.model_path, "Model file (.lobe)")->required();
-  sweep_app->add_option("--vary", sweep.vary_options, "NAME=START:STOP:STEP or NAME=A,B,C (repeatable)")
+  sweep_app->add_option("MODEL", sweep.study.model_path, "Model file (.lobe)")->required();
+  sweep_app->add_option("--vary", sweep.study.vary_options, "NAME=START:STOP:STEP or NAME=A,B,C (repeatable)")
       ->required()
       ->allow_extra_args(false);
-  sweep_app->add_option("--set", sweep.set_options, "Override a let value in every case: NAME=VALUE (repeatable)")
+  sweep_app->add_option("--set", sweep.study.set_options, "Override a let value in every case: NAME=VALUE (repeatable)")
       ->allow_extra_args(false);
-  sweep_app->add_option("-o,--output", sweep.output, "The sweep's HDF5 file (default: MODEL-STEM-sweep.h5)");
+  sweep_app->add_option("-o,--output", sweep.study.output, "The sweep's HDF5 file (default: MODEL-STEM-sweep.h5)");
   sweep_app->add_flag("--resume", resume, "Go on with an interrupted sweep (re-running the same command does too)");
-  sweep_app->add_option("--rank", sweep.rank, "Rank the cases: worst-vswr, mean-vswr, mean-mismatch-loss, share-under-vswr-2")
+  sweep_app->add_option("--rank", sweep.study.rank, "Rank the cases: worst-vswr, mean-vswr, mean-mismatch-loss, share-under-vswr-2")
       ->check(CLI::IsMember(lobe::band_figure_names()));
-  sweep_app->add_option("--band", sweep.band, "The band to rank over: LOW:HIGH (default: the model's first band)");
+  sweep_app->add_option("--band", sweep.study.band, "The band to rank over: LOW:HIGH (default: the model's first band)");
   sweep_app->add_option("--threads", sweep.threads, "Threads (default: all cores)")->check(thread_range());
 
   lobe::cli::TuneOptions tune;
   auto* tune_app = app.add_subcommand("tune", "Search let values for the best match over a band; write the tuned model");
-  tune_app->add_option("MODEL", tune.model_path, "Model file (.lobe)")->required();
-  tune_app->add_option("--vary", tune.vary_options, "NAME=MIN:MAX (repeatable)")->required()->allow_extra_args(false);
-  tune_app->add_option("--set", tune.set_options, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
-  tune_app->add_option("--goal", tune.goal, "worst-vswr (default), mean-vswr or mean-mismatch-loss")
+  tune_app->add_option("MODEL", tune.study.model_path, "Model file (.lobe)")->required();
+  tune_app->add_option("--vary", tune.study.vary_options, "NAME=MIN:MAX (repeatable)")->required()->allow_extra_args(false);
+  tune_app->add_option("--set", tune.study.set_options, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
+  tune_app->add_option("--goal", tune.study.goal, "worst-vswr (default), mean-vswr or mean-mismatch-loss")
       ->check(CLI::IsMember({"worst-vswr", "mean-vswr", "mean-mismatch-loss"}));
-  tune_app->add_option("--band", tune.band, "The band to judge: LOW:HIGH (default: the model's first band)");
-  tune_app->add_option("--evaluations", tune.evaluations, "Most models to solve (default 60)")->check(CLI::Range(2, 100000));
-  tune_app->add_option("-o,--output", tune.output, "The tuned model (default: MODEL-STEM-tuned.lobe)");
+  tune_app->add_option("--band", tune.study.band, "The band to judge: LOW:HIGH (default: the model's first band)");
+  tune_app->add_option("--evaluations", tune.study.evaluations, "Most models to solve (default 60)")->check(CLI::Range(2, 100000));
+  tune_app->add_option("-o,--output", tune.study.output, "The tuned model (default: MODEL-STEM-tuned.lobe)");
   tune_app->add_option("--threads", tune.threads, "Threads (default: all cores)")->check(thread_range());
 
   try {

@@ -13,7 +13,7 @@ namespace {
 void print_configuration(const RunOptions& options, const PreparedRun& run) {
   const Model& model = *run.model;
   const AntennaProblem& problem = *run.problem;
-  std::printf("lobe %s: %s\n", LOBE_VERSION, options.model_path.c_str());
+  std::printf("lobe %s: %s\n", LOBE_VERSION, options.study.model_path.c_str());
   if (model.wave) {
     const PlaneWave& wave = *model.wave;
     std::printf("configuration: %s, %s, %s, ground %s, %s, %s\n", count_text(problem.mesh.segments.size(), "segment").c_str(),
@@ -41,7 +41,7 @@ void print_configuration(const RunOptions& options, const PreparedRun& run) {
 
 int run_command(const RunOptions& options) {
   if (options.threads > 0) set_thread_count(options.threads);
-  const PreparedRun run = prepare_run({options.model_path, options.set_options, options.band_options, options.output_directory});
+  const PreparedRun run = prepare_run(options.study);
   print_warnings(run.problem->mesh.warnings);
   print_warnings(run.problem->surfaces.warnings);
   print_configuration(options, run);

@@ -19,8 +19,7 @@ extern "C" void on_interrupt(int) { interrupted.request(); }
 
 int sweep_command(const SweepOptions& options) {
   if (options.threads > 0) set_thread_count(options.threads);
-  const PreparedSweep sweep =
-      prepare_sweep({options.model_path, options.vary_options, options.set_options, options.output, options.rank, options.band});
+  const PreparedSweep sweep = prepare_sweep(options.study);
   std::signal(SIGINT, on_interrupt);
   std::signal(SIGTERM, on_interrupt);
   std::optional<ProgressLine> progress(std::in_place, "case", sweep.grid.size());
@@ -47,9 +46,9 @@ int sweep_command(const SweepOptions& options) {
   }
   std::printf("%zu cases (%zu solved now, %zu from before) in %s\n", sweep.grid.size(), outcome.solved, outcome.skipped,
               sweep.output.string().c_str());
-  if (options.rank.empty()) return 0;
+  if (options.study.rank.empty()) return 0;
   const std::vector<RankedCase> ranked = rank_sweep(sweep, outcome.case_files);
-  std::printf("\nbest cases by %s over %s (%s to %s), first port:\n", options.rank.c_str(), sweep.band->name.c_str(),
+  std::printf("\nbest cases by %s over %s (%s to %s), first port:\n", options.study.rank.c_str(), sweep.band->name.c_str(),
               frequency_text(sweep.band->low_hz).c_str(), frequency_text(sweep.band->high_hz).c_str());
   for (std::size_t k = 0; k < std::min<std::size_t>(10, ranked.size()); ++k) {
     std::printf("  %2zu. %s  %-12.4g", k + 1, case_name(ranked[k].index).c_str(), ranked[k].figure);

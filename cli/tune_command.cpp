@@ -10,15 +10,13 @@ namespace lobe::cli {
 
 int tune_command(const TuneOptions& options) {
   if (options.threads > 0) set_thread_count(options.threads);
-  const PreparedTuning tuning = prepare_tuning(
-      {options.model_path, options.vary_options, options.set_options, options.goal, options.band, options.output,
-       options.evaluations});
+  const PreparedTuning tuning = prepare_tuning(options.study);
   StudyControl control;
   control.progress = [](std::size_t done, std::size_t, std::size_t, const std::string& detail) {
     std::fprintf(stderr, "evaluation %zu: %s\n", done, detail.c_str());
   };
   const TuneOutcome outcome = execute_tuning(tuning, control);
-  std::printf("best %s %.5g over %s (%s to %s) after %d evaluations:\n", options.goal.c_str(), outcome.best,
+  std::printf("best %s %.5g over %s (%s to %s) after %d evaluations:\n", options.study.goal.c_str(), outcome.best,
               tuning.band.name.c_str(), frequency_text(tuning.band.low_hz).c_str(),
               frequency_text(tuning.band.high_hz).c_str(), outcome.evaluations);
   for (std::size_t i = 0; i < tuning.tuned.size(); ++i)

@@ -13,46 +13,37 @@
 namespace lobe {
 namespace {
 
-RunOutcome execute_antenna(const PreparedRun& prepared, const RunInfo& info, const StudyControl& control) {
+/// Solves every frequency into `run`, then publishes the files `write` stages, the currents
+/// as VTK, and the summary. Antennas and scatterers differ only in what they evaluate and write.
+template <class Run, class Evaluate, class Write, class Summary>
+RunOutcome solve_and_publish(const PreparedRun& prepared, Run& run, const StudyControl& control, Evaluate evaluate,
+                             Write write, Summary summary) {
   const AntennaProblem& problem = *prepared.problem;
-  RunRecord run{problem, {}, info};
   RunOutcome outcome;
   outcome.finished = solve_each_frequency(problem, control, [&](FrequencySolution&& solution) {
-    run.results.push_back(evaluate_frequency(problem, solution));
+    run.results.push_back(evaluate(problem, solution));
   });
   if (!outcome.finished) return outcome;
   OutputFiles files(prepared.directory);
-  const std::string& stem = prepared.stem;
+  write(files, prepared.stem, run);
+  std::vector<CellValues> currents;
+  for (const auto& r : run.results) currents.push_back(current_cells(r.frequency_hz, r.segment_currents, r.surface_currents));
+  write_model_vtu(files.staging_path(prepared.stem + "_currents.vtu"), problem.mesh, problem.surfaces, currents);
+  outcome.written = files.commit();
+  outcome.summary = summary(run);
+  return outcome;
+}
+
+void write_antenna_files(OutputFiles& files, const std::string& stem, const RunRecord& run) {
   write_hdf5(files.staging_path(stem + ".h5"), run);
   write_ports_csv(files.staging_path(stem + "_ports.csv"), run);
   write_pattern_csv(files.staging_path(stem + "_pattern.csv"), run);
   write_currents_csv(files.staging_path(stem + "_currents.csv"), run);
-  std::vector<CellValues> currents;
-  for (const auto& r : run.results) currents.push_back(current_cells(r.frequency_hz, r.segment_currents, r.surface_currents));
-  write_model_vtu(files.staging_path(stem + "_currents.vtu"), problem.mesh, problem.surfaces, currents);
-  outcome.written = files.commit();
-  outcome.summary = run_summary(run);
-  return outcome;
 }
 
-RunOutcome execute_scattering(const PreparedRun& prepared, const RunInfo& info, const StudyControl& control) {
-  const AntennaProblem& problem = *prepared.problem;
-  ScatteringRun run{problem, {}, info};
-  RunOutcome outcome;
-  outcome.finished = solve_each_frequency(problem, control, [&](FrequencySolution&& solution) {
-    run.results.push_back(evaluate_scattering(problem, solution));
-  });
-  if (!outcome.finished) return outcome;
-  OutputFiles files(prepared.directory);
-  const std::string& stem = prepared.stem;
+void write_scattering_files(OutputFiles& files, const std::string& stem, const ScatteringRun& run) {
   write_scattering_hdf5(files.staging_path(stem + ".h5"), run);
   write_scattering_csv(files.staging_path(stem + "_rcs.csv"), run);
-  std::vector<CellValues> currents;
-  for (const auto& r : run.results) currents.push_back(current_cells(r.frequency_hz, r.segment_currents, r.surface_currents));
-  write_model_vtu(files.staging_path(stem + "_currents.vtu"), problem.mesh, problem.surfaces, currents);
-  outcome.written = files.commit();
-  outcome.summary = scattering_summary(run);
-  return outcome;
 }
 
 }  // namespace
@@ -73,7 +64,12 @@ PreparedRun prepare_run(const RunRequest& request) {
 }
 
 RunOutcome execute_run(const PreparedRun& run, const RunInfo& info, const StudyControl& control) {
-  return run.model->wave ? execute_scattering(run, info, control) : execute_antenna(run, info, control);
+  if (run.model->wave) {
+    ScatteringRun scattering{*run.problem, {}, info};
+    return solve_and_publish(run, scattering, control, evaluate_scattering, write_scattering_files, scattering_summary);
+  }
+  RunRecord antenna{*run.problem, {}, info};
+  return solve_and_publish(run, antenna, control, evaluate_frequency, write_antenna_files, run_summary);
 }
 
 }  // namespace lobe
