@@ -1,8 +1,8 @@
-#include <csignal>
 #include <cstdio>
 #include <optional>
 
 #include "cli/commands.hpp"
+#include "cli/interrupt.hpp"
 #include "cli/progress_line.hpp"
 #include "post/run_summary.hpp"
 #include "post/sweep_file.hpp"
@@ -10,21 +10,12 @@
 #include "study/sweep_study.hpp"
 
 namespace lobe::cli {
-namespace {
-
-CancelToken interrupted;
-extern "C" void on_interrupt(int) { interrupted.request(); }
-
-}  // namespace
-
 int sweep_command(const SweepOptions& options) {
   if (options.threads > 0) set_thread_count(options.threads);
   const PreparedSweep sweep = prepare_sweep(options.study);
-  std::signal(SIGINT, on_interrupt);
-  std::signal(SIGTERM, on_interrupt);
   std::optional<ProgressLine> progress(std::in_place, "case", sweep.grid.size());
   StudyControl control;
-  control.cancel = &interrupted;
+  control.cancel = &cancel_on_interrupt();
   control.progress = [&](std::size_t done, std::size_t, std::size_t timed, const std::string&) { progress->update(done, timed); };
   control.warning = [](const MeshWarning& w, const std::string& where) {
     std::fprintf(stderr, "\n%s (%s)\n", w.formatted().c_str(), where.c_str());

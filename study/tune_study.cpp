@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <exception>
+#include <optional>
 #include <regex>
 #include <sstream>
 
@@ -48,16 +49,19 @@ struct Evaluator {
     return texts;
   }
 
-  Real goal(const std::vector<std::string>& values) {
+  /// The goal at these values, or nothing when cancelled before the last frequency.
+  std::optional<Real> goal(const std::vector<std::string>& values) {
     const TuneRequest& r = tuning.request;
     const Model model = load_model(r.model_path, overrides_with(r.set_options, names_of(tuned), values));
     const AntennaProblem problem(model);
     require_solvable(problem);
     ReflectionCurve curve;
-    solve_each_frequency(problem, {}, [&](FrequencySolution&& solution) {
+    const StudyControl frequencies{control.cancel, {}, {}, {}, {}};
+    const bool whole = solve_each_frequency(problem, frequencies, [&](FrequencySolution&& solution) {
       curve.frequency_hz.push_back(solution.frequency_hz);
       curve.reflection.push_back(port_results(solution, model.reference_ohm)[0].reflection);
     });
+    if (!whole) return std::nullopt;
     return band_figure(band_report(curve, tuning.band.low_hz, tuning.band.high_hz), r.goal);
   }
 };
@@ -65,14 +69,16 @@ struct Evaluator {
 double objective(const std::vector<double>& x, std::vector<double>&, void* data) {
   auto& e = *static_cast<Evaluator*>(data);
   const auto values = e.values_of(x);
-  Real g = 0.0;
+  std::optional<Real> goal;
   try {
-    g = e.goal(values);
+    goal = e.goal(values);
   } catch (...) {
     // NLopt would turn any exception into a bare "nlopt failure": keep it to rethrow.
     e.failure = std::current_exception();
     throw nlopt::forced_stop();
   }
+  if (!goal) throw nlopt::forced_stop();  // cancelled mid-evaluation: it does not count
+  const Real g = *goal;
   ++e.evaluations;
   if (g < e.best) e.best = g, e.best_values = values, e.best_si = e.si_of(x);
   if (e.control.progress)
@@ -143,7 +149,7 @@ TuneOutcome execute_tuning(const PreparedTuning& tuning, const StudyControl& con
   } catch (const nlopt::forced_stop&) {
     if (evaluator.failure) std::rethrow_exception(evaluator.failure);
     // Cancelled: the best point so far is written, if there is one.
-    if (evaluator.best_values.empty()) return {0.0, {}, 0, {}};
+    if (evaluator.best_values.empty()) return {false, 0.0, {}, 0, {}};
   }
   const TuneRequest& r = tuning.request;
   const std::filesystem::path directory =
@@ -152,7 +158,7 @@ TuneOutcome execute_tuning(const PreparedTuning& tuning, const StudyControl& con
   const Model tuned_model = load_model(r.model_path, overrides_with(r.set_options, names_of(tuned), evaluator.best_values));
   files.stage_text(tuning.output.filename().string(), tuned_text(tuned_model, tuned));
   files.commit();
-  return {evaluator.best, evaluator.best_si, evaluator.evaluations, tuning.output};
+  return {!control.cancelled(), evaluator.best, evaluator.best_si, evaluator.evaluations, tuning.output};
 }
 
 }  // namespace lobe

@@ -34,6 +34,7 @@ struct PreparedTuning {
 PreparedTuning prepare_tuning(const TuneRequest& request);
 
 struct TuneOutcome {
+  bool finished = true;                  ///< false: cancelled; the best so far is written, if any
   Real best = 0.0;                       ///< the goal's best value
   std::vector<Real> best_si;             ///< the tuned values there, SI
   int evaluations = 0;
@@ -42,7 +43,8 @@ struct TuneOutcome {
 
 /// Searches with NLopt's BOBYQA (Powell 2009: bounded, derivative-free) on the unit box of
 /// the ranges, reports each evaluation as progress, and writes the model with every
-/// overridden value (tuned or fixed by --set) filled in, in the model's own units.
+/// overridden value (tuned or fixed by --set) filled in, in the model's own units. When
+/// cancelled (at the next frequency), the best of the finished evaluations is written.
 TuneOutcome execute_tuning(const PreparedTuning& tuning, const StudyControl& control);
 
 }  // namespace lobe

@@ -300,6 +300,35 @@ TEST(Sweep, BadVaryOptionsAreInputErrors) {
   }
 }
 
+// Ctrl-C during a search stops it at the next frequency and writes the best model found so
+// far, exit 130, rather than losing every evaluation made.
+TEST(Tune, InterruptWritesTheBestSoFar) {
+  const auto dir = fresh_directory("tune-interrupt");
+  // Many frequencies make each evaluation last about a second here: the search (ten or more
+  // evaluations) is still running when the first is reported.
+  std::ofstream(dir / "slow.lobe") << "let length = 170 mm\n"
+                                      "wire d from (0, 0, -length/2) to (0, 0, length/2) radius 0.1 mm segments 101\n"
+                                      "port p on d at middle\nfrequency 800 MHz to 900 MHz count 300\n";
+  const auto err = dir / "err.txt";
+  const pid_t pid = fork();
+  if (pid == 0) {
+    freopen("/dev/null", "w", stdout);
+    freopen(err.c_str(), "w", stderr);
+    execl(LOBE_EXECUTABLE, LOBE_EXECUTABLE, "tune", (dir / "slow.lobe").c_str(), "--vary", "length=150mm:175mm",
+          "--evaluations", "1000", "-o", (dir / "t.lobe").c_str(), "--threads", "1", static_cast<char*>(nullptr));
+    _exit(127);
+  }
+  for (int waited = 0; waited < 600 && read_text(err).find("evaluation 1:") == std::string::npos; ++waited)
+    std::this_thread::sleep_for(std::chrono::milliseconds(100));
+  kill(pid, SIGINT);
+  int status = 0;
+  waitpid(pid, &status, 0);
+  ASSERT_TRUE(WIFEXITED(status)) << "ended by a signal";
+  EXPECT_EQ(WEXITSTATUS(status), 130) << read_text(err);
+  EXPECT_NE(read_text(err).find("interrupted: the best of"), std::string::npos) << read_text(err);
+  EXPECT_NE(read_text(dir / "t.lobe").find("tuned by lobe"), std::string::npos);
+}
+
 // A value inside the range that the model refuses (here the wire's length vanishes at the
 // middle, where the search starts) is reported as the model's error, located, exit 2 — not
 // as a bare failure of the optimiser.
