@@ -1,8 +1,10 @@
 #include <cstdio>
+#include <string>
+#include <vector>
 
 #include "cli/commands.hpp"
 #include "cli/progress_line.hpp"
-#include "core/constants.hpp"
+#include "core/formatted_text.hpp"
 #include "post/run_summary.hpp"
 #include "solver/threads.hpp"
 #include "study/run_study.hpp"
@@ -14,23 +16,18 @@ void print_configuration(const RunOptions& options, const PreparedRun& run) {
   const Model& model = *run.model;
   const AntennaProblem& problem = *run.problem;
   std::printf("lobe %s: %s\n", LOBE_VERSION, options.study.model_path.c_str());
-  if (model.wave) {
-    const PlaneWave& wave = *model.wave;
-    std::printf("configuration: %s, %s, %s, ground %s, %s, %s\n", count_text(problem.mesh.segments.size(), "segment").c_str(),
-                count_text(problem.surfaces.mesh.triangles.size(), "triangle").c_str(),
-                count_text(problem.unknowns(), "unknown").c_str(), problem.medium.name().c_str(),
-                count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
-                count_text(thread_count(), "thread").c_str());
-    std::printf("lit by a plane wave from theta %.1f deg, phi %.1f deg\n", wave.theta * 180 / pi, wave.phi * 180 / pi);
-  } else {
-    std::printf("configuration: %s, %s, %s, %s, %s, ground %s, reference %.6g ohm, %s, %s\n",
-                count_text(problem.mesh.segments.size(), "segment").c_str(),
-                count_text(problem.surfaces.mesh.triangles.size(), "triangle").c_str(),
-                count_text(problem.unknowns(), "unknown").c_str(), count_text(model.ports.size(), "port").c_str(),
-                count_text(model.loads.size(), "load").c_str(), problem.medium.name().c_str(), model.reference_ohm,
-                count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
-                count_text(thread_count(), "thread").c_str());
-  }
+  std::vector<std::string> parts{count_text(problem.mesh.segments.size(), "segment"),
+                                 count_text(problem.surfaces.mesh.triangles.size(), "triangle"),
+                                 count_text(problem.unknowns(), "unknown")};
+  if (!model.wave) parts.push_back(count_text(model.ports.size(), "port"));
+  parts.push_back(count_text(model.loads.size(), "load"));
+  parts.push_back("ground " + problem.medium.name());
+  if (!model.wave) parts.push_back(formatted("reference %.6g ohm", model.reference_ohm));
+  parts.push_back(count_text(model.frequencies_hz.size(), "frequency", "frequencies"));
+  parts.push_back(count_text(thread_count(), "thread"));
+  std::string line = "configuration:";
+  for (std::size_t i = 0; i < parts.size(); ++i) line += (i ? ", " : " ") + parts[i];
+  std::printf("%s\n", line.c_str());
   for (const auto& v : model.values)
     if (v.overridden) std::printf("set %s = %.10g %s\n", v.name.c_str(), v.value, v.unit.c_str());
   print_long_run_estimate(problem.unknowns(), static_cast<double>(model.frequencies_hz.size()));

@@ -3,7 +3,6 @@
 #include <cmath>
 
 #include "core/constants.hpp"
-#include "solver/basis_samples.hpp"
 #include "solver/gauss_legendre.hpp"
 #include "solver/green_function.hpp"
 #include "solver/phase_factor.hpp"
@@ -22,7 +21,7 @@ FarField::FarField(const AntennaProblem& problem, const FrequencySolution& solut
   // Images make the source symmetric about each mirror plane (all through the origin).
   for (const ImageSource& image : m_images) m_centre = 0.5 * (m_centre + image.point(m_centre));
 
-  for (const BasisSample& sample : basis_samples(problem)) {
+  for (const BasisSample& sample : problem.samples) {
     Eigen::Vector3cd moment = Eigen::Vector3cd::Zero();
     for (const BasisWeight& w : sample.weights) moment += solution.coefficients[w.basis] * w.moment.cast<Complex>();
     add_source(sample.r, moment);

@@ -82,8 +82,8 @@ int shape_index(const Model& model, const std::string& name) {
   return -1;
 }
 
-void check_surfaces_above_ground(const Model& model, const SurfaceMeshReport& surfaces) {
-  if (!Medium::of(model).has_ground()) return;
+void check_surfaces_above_ground(const Model& model, const Medium& medium, const SurfaceMeshReport& surfaces) {
+  if (!medium.has_ground()) return;
   for (std::size_t t = 0; t < surfaces.mesh.triangles.size(); ++t)
     for (int v : surfaces.mesh.triangles[t])
       if (surfaces.mesh.vertices[v].z() <= 0.0) {
@@ -182,8 +182,9 @@ std::vector<JunctionStar> stars_of(const Model& model, const WireMesh& mesh, con
 }
 
 /// The surface mesh, refused where it touches or dips below a ground.
-const SurfaceMeshReport& checked_above_ground(const Model& model, const SurfaceMeshReport& surfaces) {
-  check_surfaces_above_ground(model, surfaces);
+const SurfaceMeshReport& checked_above_ground(const Model& model, const Medium& medium,
+                                             const SurfaceMeshReport& surfaces) {
+  check_surfaces_above_ground(model, medium, surfaces);
   return surfaces;
 }
 
@@ -194,15 +195,16 @@ AntennaProblem::AntennaProblem(const Model& m, const WireMesh& wires)
 
 AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport meshed_surfaces)
     : model(m),
+      medium(Medium::of(m)),
       mesh(std::move(wires)),
       surfaces(std::move(meshed_surfaces)),
-      node_vertex(attachment_vertices(m, mesh, checked_above_ground(m, surfaces))),
+      node_vertex(attachment_vertices(m, mesh, checked_above_ground(m, medium, surfaces))),
       basis(mesh, attached(node_vertex)),
       rwg(surfaces.mesh, basis.size()),
       stars(stars_of(m, mesh, surfaces, node_vertex, basis)),
-      medium(Medium::of(m)),
-      geometry(std::make_shared<const FillGeometry>(mesh, surfaces.mesh, stars, medium)) {
-  for (MeshWarning& w : check_frequency_limits(m, mesh, surfaces.mesh)) mesh.warnings.push_back(std::move(w));
+      geometry(std::make_shared<const FillGeometry>(mesh, surfaces.mesh, stars, medium)),
+      samples(basis_samples(mesh, basis, surfaces.mesh, rwg, stars)) {
+  for (MeshWarning& w : check_frequency_limits(m, medium, mesh, surfaces.mesh)) mesh.warnings.push_back(std::move(w));
   require_current_at_gaps(mesh, attached(node_vertex));
   if (unknowns() == 0) throw InputError({m.file, 1, 1}, "the model has no place for current to flow (no unknowns)");
   port_vectors.resize(unknowns(), static_cast<Eigen::Index>(m.ports.size()));

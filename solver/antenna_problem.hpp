@@ -7,6 +7,7 @@
 #include "geometry/model.hpp"
 #include "geometry/surface_mesher.hpp"
 #include "geometry/wire_mesh.hpp"
+#include "solver/basis_samples.hpp"
 #include "solver/junction_star.hpp"
 #include "solver/medium.hpp"
 #include "solver/rwg_basis.hpp"
@@ -27,15 +28,17 @@ struct AntennaProblem {
   /// wire ends and junctions as points, plate-port lines), e.g. exact mirror images.
   AntennaProblem(const Model& model, WireMesh wires, SurfaceMeshReport surfaces);
   const Model& model;
+  Medium medium;
   WireMesh mesh;
   SurfaceMeshReport surfaces;
   std::vector<int> node_vertex;     ///< per wire node: the surface vertex it is attached to, or −1
   WireBasis basis;
   RwgBasis rwg;
   std::vector<JunctionStar> stars;  ///< one per wire node attached to a surface
-  Medium medium;
   /// What the pair integrators need of the meshes, made once (solver/fill_geometry.hpp).
   std::shared_ptr<const FillGeometry> geometry;
+  /// Every basis function's current at the points the far field and the excitations share.
+  std::vector<BasisSample> samples;
   Eigen::MatrixXd port_vectors;     ///< N × ports: column p couples basis currents to port p
   Eigen::MatrixXd load_vectors;     ///< N × loads
 

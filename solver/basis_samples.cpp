@@ -11,12 +11,13 @@ constexpr int points_per_star_direction = 6;
 
 }  // namespace
 
-std::vector<BasisSample> basis_samples(const AntennaProblem& problem) {
+std::vector<BasisSample> basis_samples(const WireMesh& wires, const WireBasis& basis, const SurfaceMesh& surface,
+                                       const RwgBasis& rwg, const std::vector<JunctionStar>& stars) {
   std::vector<BasisSample> samples;
   const QuadratureRule& rule = gauss_legendre(points_per_segment);
-  for (std::size_t s = 0; s < problem.mesh.segments.size(); ++s) {
-    const Segment& seg = problem.mesh.segments[s];
-    const auto& pieces = problem.basis.pieces_on(static_cast<int>(s));
+  for (std::size_t s = 0; s < wires.segments.size(); ++s) {
+    const Segment& seg = wires.segments[s];
+    const auto& pieces = basis.pieces_on(static_cast<int>(s));
     if (pieces.empty()) continue;
     const Vec3 u = seg.direction();
     for (int q = 0; q < points_per_segment; ++q) {
@@ -29,11 +30,10 @@ std::vector<BasisSample> basis_samples(const AntennaProblem& problem) {
       samples.push_back(std::move(sample));
     }
   }
-  const SurfaceMesh& surface = problem.surfaces.mesh;
   const TriangleRule& area_rule = triangle_rule_degree5();
   for (std::size_t t = 0; t < surface.triangles.size(); ++t) {
     const int ti = static_cast<int>(t);
-    const auto& pieces = problem.rwg.pieces_on(ti);
+    const auto& pieces = rwg.pieces_on(ti);
     if (pieces.empty()) continue;
     for (std::size_t q = 0; q < area_rule.points.size(); ++q) {
       const auto& b = area_rule.points[q];
@@ -45,7 +45,7 @@ std::vector<BasisSample> basis_samples(const AntennaProblem& problem) {
       samples.push_back(std::move(sample));
     }
   }
-  for (const JunctionStar& star : problem.stars)
+  for (const JunctionStar& star : stars)
     for (const StarSample& s : star_samples(star, points_per_star_direction)) {
       BasisSample sample{s.r, {}};
       for (int b : star.bases) sample.weights.push_back({b, s.current});

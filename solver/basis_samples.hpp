@@ -6,7 +6,11 @@
 /// transmit far field predicts.
 #include <vector>
 
-#include "solver/antenna_problem.hpp"
+#include "geometry/surface_mesh.hpp"
+#include "geometry/wire_mesh.hpp"
+#include "solver/junction_star.hpp"
+#include "solver/rwg_basis.hpp"
+#include "solver/wire_basis.hpp"
 
 namespace lobe {
 
@@ -23,7 +27,9 @@ struct BasisSample {
 
 /// Six Gauss points per segment (exact to rounding for the linear current times the phase
 /// over segments up to about a quarter wavelength), Dunavant's 7 points per triangle, and
-/// 6 × 6 Duffy points per junction-star triangle (smooth in those coordinates).
-std::vector<BasisSample> basis_samples(const AntennaProblem& problem);
+/// 6 × 6 Duffy points per junction-star triangle (smooth in those coordinates). Made once per
+/// problem (AntennaProblem::samples).
+std::vector<BasisSample> basis_samples(const WireMesh& wires, const WireBasis& basis, const SurfaceMesh& surface,
+                                       const RwgBasis& rwg, const std::vector<JunctionStar>& stars);
 
 }  // namespace lobe

@@ -1,6 +1,5 @@
 #include "solver/excitation.hpp"
 
-#include "solver/basis_samples.hpp"
 
 namespace lobe {
 
@@ -8,7 +7,7 @@ ComplexVector plane_wave_vector(const AntennaProblem& problem, const IncidentWav
   const Real k = problem.medium.wavenumber(frequency_hz);
   const std::vector<IncidentWave> waves = problem.medium.waves_reaching(wave);
   ComplexVector v = ComplexVector::Zero(problem.unknowns());
-  for (const BasisSample& sample : basis_samples(problem)) {
+  for (const BasisSample& sample : problem.samples) {
     Eigen::Vector3cd field = Eigen::Vector3cd::Zero();
     // The wave's phase grows toward the direction it comes from.
     for (const IncidentWave& w : waves) field += (w.amplitude * std::polar(1.0, k * w.from.dot(sample.r))) * w.polarization;

@@ -43,7 +43,8 @@ Real structure_extent_m(const WireMesh& wires, const SurfaceMesh& surfaces, cons
   return (high - low).norm();
 }
 
-std::vector<MeshWarning> check_frequency_limits(const Model& model, const WireMesh& wires, const SurfaceMesh& surfaces) {
+std::vector<MeshWarning> check_frequency_limits(const Model& model, const Medium& medium, const WireMesh& wires,
+                                                const SurfaceMesh& surfaces) {
   std::vector<MeshWarning> warnings;
   if (model.frequencies_hz.empty() || (wires.segments.empty() && surfaces.triangles.empty())) return warnings;
   const SourceLocation& where = model.frequency_where;
@@ -52,7 +53,7 @@ std::vector<MeshWarning> check_frequency_limits(const Model& model, const WireMe
   for (std::size_t t = 0; t < surfaces.triangles.size(); ++t)
     for (int k = 0; k < 3; ++k)
       longest = std::max(longest, (surfaces.corner(static_cast<int>(t), k) - surfaces.corner(static_cast<int>(t), (k + 1) % 3)).norm());
-  const Real extent = structure_extent_m(wires, surfaces, Medium::of(model));
+  const Real extent = structure_extent_m(wires, surfaces, medium);
   const auto [lowest, highest] = std::minmax_element(model.frequencies_hz.begin(), model.frequencies_hz.end());
   const Real k_low = 2 * pi * *lowest / speed_of_light, k_high = 2 * pi * *highest / speed_of_light;
 

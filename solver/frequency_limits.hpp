@@ -24,6 +24,7 @@ Real structure_extent_m(const WireMesh& wires, const SurfaceMesh& surfaces, cons
 /// - a structure too large for the far-field integration (more than 240 radians of phase
 ///   across its bounding sphere, the highest-order rule kept).
 /// Returns warnings where accuracy is already slipping (k·D below 1e-3).
-std::vector<MeshWarning> check_frequency_limits(const Model& model, const WireMesh& wires, const SurfaceMesh& surfaces);
+std::vector<MeshWarning> check_frequency_limits(const Model& model, const Medium& medium, const WireMesh& wires,
+                                                const SurfaceMesh& surfaces);
 
 }  // namespace lobe

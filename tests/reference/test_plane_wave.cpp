@@ -23,10 +23,6 @@ constexpr Real frequency = one_metre_wavelength_hz;  // λ = 1 m
 Vec3 direction(Real theta, Real phi) {
   return {std::sin(theta) * std::cos(phi), std::sin(theta) * std::sin(phi), std::cos(theta)};
 }
-Vec3 theta_hat(Real theta, Real phi) {
-  return {std::cos(theta) * std::cos(phi), std::cos(theta) * std::sin(phi), -std::sin(theta)};
-}
-Vec3 phi_hat(Real phi) { return {-std::sin(phi), std::cos(phi), 0.0}; }
 
 /// A model parsed from text, meshed, with a wave set on it afterwards (the model language
 /// keeps waves and ports apart; the library takes both, as a receiving antenna needs).

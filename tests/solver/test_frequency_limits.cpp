@@ -10,7 +10,7 @@ namespace {
 
 std::vector<MeshWarning> limits_of(const std::string& text) {
   const Model model = parse_model(text, "m");
-  return check_frequency_limits(model, mesh_wires(model), SurfaceMesh{});
+  return check_frequency_limits(model, Medium::of(model), mesh_wires(model), SurfaceMesh{});
 }
 
 std::string dipole_at(const std::string& frequency, const std::string& segments = "segments 11") {
