@@ -9,6 +9,8 @@
 #include <sstream>
 #include <string>
 
+#include "support/scratch_directory.hpp"
+
 namespace lobe::testing {
 
 struct ProcessResult {
@@ -41,14 +43,6 @@ inline ProcessResult run_lobe(const std::string& args, const std::filesystem::pa
   r.out = read_text(out);
   r.err = read_text(err);
   return r;
-}
-
-/// A fresh empty directory under the system's temporary directory.
-inline std::filesystem::path fresh_directory(const std::string& name) {
-  const auto dir = std::filesystem::temp_directory_path() / ("lobe-test-" + std::to_string(::getpid())) / name;
-  std::filesystem::remove_all(dir);
-  std::filesystem::create_directories(dir);
-  return dir;
 }
 
 }  // namespace lobe::testing

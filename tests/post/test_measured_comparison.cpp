@@ -1,6 +1,8 @@
 // Measured tables in the forms analysers and couplers give, and the comparison of a
 // measured curve with a simulated one, on series RLC resonances known in closed form.
 #include <gtest/gtest.h>
+#include <sys/wait.h>
+#include <unistd.h>
 
 #include <cmath>
 #include <fstream>
@@ -10,13 +12,13 @@
 #include "post/curve_comparison.hpp"
 #include "post/measured_csv.hpp"
 #include "post/port_quantities.hpp"
+#include "support/scratch_directory.hpp"
 
 namespace lobe {
 namespace {
 
 std::filesystem::path written(const std::string& name, const std::string& text) {
-  const auto dir = std::filesystem::temp_directory_path() / "lobe-measured-test";
-  std::filesystem::create_directories(dir);
+  const auto dir = testing::scratch_directory("measured");
   std::ofstream(dir / name) << text;
   return dir / name;
 }
@@ -81,6 +83,28 @@ TEST(MeasuredCsv, FaultsAreLocated) {
   EXPECT_NE(message("frequency_hz,vswr\n1e9,0.5\n2e9,2\n").find(":2:5: a VSWR cannot be below 1"), std::string::npos);
   EXPECT_NE(message("frequency_hz,vswr\n2e9,2\n1e9,2\n").find(":3:1: frequencies must increase"), std::string::npos);
   EXPECT_NE(message("frequency_hz,vswr\n1e9,x\n2e9,2\n").find(":2:5: expected a number"), std::string::npos);
+}
+
+// ctest runs these cases in parallel processes: two of them once wrote "bad.csv" to one
+// shared directory and read each other's table.
+TEST(MeasuredCsv, EachProcessWritesItsOwnScratchFiles) {
+  int pipe_ends[2];
+  ASSERT_EQ(::pipe(pipe_ends), 0);
+  const pid_t child = ::fork();
+  ASSERT_GE(child, 0);
+  if (child == 0) {
+    const std::string path = written("bad.csv", "child").string();
+    (void)!::write(pipe_ends[1], path.data(), path.size());
+    ::_exit(0);
+  }
+  ::close(pipe_ends[1]);
+  std::string child_path;
+  char buffer[256];
+  for (ssize_t n; (n = ::read(pipe_ends[0], buffer, sizeof buffer)) > 0;) child_path.append(buffer, n);
+  ::close(pipe_ends[0]);
+  ::waitpid(child, nullptr, 0);
+  ASSERT_FALSE(child_path.empty());
+  EXPECT_NE(written("bad.csv", "parent"), std::filesystem::path(child_path));
 }
 
 // What analysers write: RFC 4180 quoting (a quoted decimal comma is a decimal comma, not a

@@ -1,7 +1,6 @@
 // The HDF5 and CSV writers: what is written reads back as the numbers computed.
 #include <gtest/gtest.h>
 #include <hdf5.h>
-#include <unistd.h>
 
 #include <filesystem>
 #include <fstream>
@@ -12,17 +11,11 @@
 #include "post/output_files.hpp"
 #include "post/result_reader.hpp"
 #include "post/run_summary.hpp"
+#include "support/scratch_directory.hpp"
 #include "support/solve_text.hpp"
 
 namespace lobe::testing {
 namespace {
-
-std::filesystem::path scratch(const std::string& name) {
-  const auto dir = std::filesystem::temp_directory_path() / ("lobe-files-" + std::to_string(::getpid())) / name;
-  std::filesystem::remove_all(dir);
-  std::filesystem::create_directories(dir);
-  return dir;
-}
 
 std::vector<double> read_doubles(hid_t file, const char* name) {
   const hid_t set = H5Dopen2(file, name, H5P_DEFAULT);
@@ -50,7 +43,7 @@ std::string unit_of(hid_t file, const char* name) {
 TEST(ResultFiles, Hdf5HoldsTheComputedNumbersWithUnits) {
   const Solved s = solve_text(dipole_text(0.5, 1e-4, 20));
   RunRecord run{*s.problem, {s.result}, {"test", 1, "lobe run test", std::nullopt}};
-  const auto path = scratch("h5") / "run.h5";
+  const auto path = fresh_directory("h5") / "run.h5";
   write_hdf5(path, run);
   const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
   ASSERT_GE(file, 0);
@@ -80,7 +73,7 @@ TEST(ResultFiles, PowerBalanceMissIsAWarningInTheSummaryAndTheFile) {
   const std::string summary = run_summary(run);
   EXPECT_NE(summary.find("100.2% !"), std::string::npos) << summary;
   EXPECT_NE(summary.find("! power balance at"), std::string::npos) << summary;
-  const auto path = scratch("balance") / "run.h5";
+  const auto path = fresh_directory("balance") / "run.h5";
   write_hdf5(path, run);
   const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
   ASSERT_GE(file, 0);
@@ -94,7 +87,7 @@ TEST(ResultFiles, PowerBalanceMissIsAWarningInTheSummaryAndTheFile) {
 // A directory where one of the set's files goes stops the commit before the first rename:
 // the earlier set stays whole instead of new and old files mixed.
 TEST(ResultFiles, ADirectoryInTheWayStopsTheWholeSetBeforeAnyRename) {
-  const auto dir = scratch("in-the-way");
+  const auto dir = fresh_directory("in-the-way");
   std::ofstream(dir / "a.txt") << "old a";
   std::filesystem::create_directories(dir / "b.txt");
   {
@@ -118,7 +111,7 @@ TEST(ResultFiles, ADirectoryInTheWayStopsTheWholeSetBeforeAnyRename) {
 TEST(ResultFiles, AnInterruptedPublicationIsRefusedUntilTheSetIsWrittenAgain) {
   const Solved s = solve_text(dipole_text(0.5, 1e-4, 20));
   RunRecord run{*s.problem, {s.result}, {"test", 1, "lobe run test", std::nullopt}};
-  const auto dir = scratch("interrupted");
+  const auto dir = fresh_directory("interrupted");
   auto publish = [&] {
     OutputFiles files(dir);
     write_hdf5(files.staging_path("run.h5"), run);
@@ -144,7 +137,7 @@ TEST(ResultFiles, AnInterruptedPublicationIsRefusedUntilTheSetIsWrittenAgain) {
 TEST(ResultFiles, PortsCsvHasTheDocumentedHeader) {
   const Solved s = solve_text(dipole_text(0.5, 1e-4, 20));
   RunRecord run{*s.problem, {s.result}, {"test", 1, "", std::nullopt}};
-  const auto path = scratch("csv") / "ports.csv";
+  const auto path = fresh_directory("csv") / "ports.csv";
   write_ports_csv(path, run);
   std::ifstream in(path);
   std::string header;
@@ -154,7 +147,7 @@ TEST(ResultFiles, PortsCsvHasTheDocumentedHeader) {
 
 // All-or-nothing output: abandoned staging files vanish and earlier results stay.
 TEST(ResultFiles, UncommittedOutputLeavesEarlierFilesAlone) {
-  const auto dir = scratch("staging");
+  const auto dir = fresh_directory("staging");
   std::ofstream(dir / "run.h5") << "earlier";
   {
     OutputFiles files(dir);

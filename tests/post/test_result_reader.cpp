@@ -3,7 +3,6 @@
 // allocation or NaN passed on.
 #include <gtest/gtest.h>
 #include <hdf5.h>
-#include <unistd.h>
 
 #include <cmath>
 #include <filesystem>
@@ -12,16 +11,13 @@
 
 #include "post/hdf5_writer.hpp"
 #include "post/result_reader.hpp"
+#include "support/scratch_directory.hpp"
 #include "support/solve_text.hpp"
 
 namespace lobe::testing {
 namespace {
 
-std::filesystem::path scratch() {
-  const auto dir = std::filesystem::temp_directory_path() / ("lobe-reader-" + std::to_string(::getpid()));
-  std::filesystem::create_directories(dir);
-  return dir;
-}
+std::filesystem::path scratch() { return scratch_directory("reader"); }
 
 /// A genuine one-port result file, written once.
 const std::filesystem::path& good_result() {

@@ -10,14 +10,13 @@
 #include "core/constants.hpp"
 #include "core/input_error.hpp"
 #include "post/touchstone.hpp"
+#include "support/scratch_directory.hpp"
 
 namespace lobe {
 namespace {
 
 std::filesystem::path scratch(const std::string& name) {
-  const auto dir = std::filesystem::temp_directory_path() / "lobe-touchstone-test";
-  std::filesystem::create_directories(dir);
-  return dir / name;
+  return testing::scratch_directory("touchstone") / name;
 }
 
 std::filesystem::path written(const std::string& name, const std::string& text) {
