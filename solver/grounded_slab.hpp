@@ -1,0 +1,50 @@
+#pragma once
+/// A grounded dielectric slab: perfect conductor in z = 0, a dielectric of relative
+/// permittivity εr = ε′(1 − j tan δ) in 0 < z < h, air above. Its Green's functions for
+/// horizontal sources and observers on the top face z = h, in the spectral domain of the
+/// radial wavenumber kρ (Mosig & Gardiol 1983; Michalski & Mosig 1997, formulation C, which
+/// for horizontal currents on one interface has these two kernels):
+///   g̃_A = 1/D_TE,  g̃_V = N/(D_TE D_TM),
+///   D_TE = u0 + u1 coth(u1 h),  D_TM = εr u0 + u1 tanh(u1 h),  N = u0 + u1 tanh(u1 h),
+/// with u_i = √(kρ² − εr_i k0²), Re u ≥ 0. They are normalised like the free-space kernel:
+/// the spatial kernels g(ρ) = (1/2π) ∫₀^∞ g̃ J0(kρ ρ) kρ dkρ are e^{−jk0ρ}/(4πρ) plus the
+/// slab's part, and the vector potential is μ0 g_A, the scalar potential g_V/ε0.
+#include <vector>
+
+#include "core/types.hpp"
+
+namespace lobe {
+
+struct GroundedSlab {
+  Real thickness = 0.0;      ///< h, m
+  Complex permittivity = 1.0; ///< εr, with Im εr ≤ 0 for a lossy dielectric
+  Real k0 = 0.0;             ///< free-space wavenumber, rad/m
+};
+
+/// The normalised spectral kernels at one kρ.
+struct SlabSpectrum {
+  Complex vector = 0.0;  ///< g̃_A
+  Complex scalar = 0.0;  ///< g̃_V
+};
+SlabSpectrum slab_spectrum(const GroundedSlab& slab, Complex k_rho);
+
+/// The kernels' limits for kρ → ∞ as multiples of the free-space spectrum 1/(2u0): the
+/// coefficients of their quasi-static 1/R singularity, 1 and 2/(εr + 1).
+SlabSpectrum quasi_static_coefficients(const GroundedSlab& slab);
+
+/// A surface-wave pole of the kernels: kρ = k_rho (Re > k0, Im ≤ 0), with the residues of
+/// g̃_A and g̃_V there. TM poles are zeros of D_TM (they reach g̃_V only); TE poles are
+/// zeros of D_TE.
+struct SurfaceWavePole {
+  Complex k_rho = 0.0;
+  SlabSpectrum residue;
+  bool transverse_magnetic = true;
+};
+
+/// Every surface-wave pole of the slab, TM0 first. A slab of permittivity 1 has none.
+std::vector<SurfaceWavePole> surface_wave_poles(const GroundedSlab& slab);
+
+/// The spatial form of a pole's term 2 kp Res/(kρ² − kp²) of the spectrum: −(j kp Res/2) H0⁽²⁾(kp ρ).
+Complex surface_wave_term(Complex k_pole, Complex residue, Real rho);
+
+}  // namespace lobe
