@@ -20,6 +20,10 @@ constexpr Real default_segments_per_wavelength = 20.0;
 constexpr Real max_turn_per_segment = pi / 12.0;
 /// Below this ratio of segment length to radius the thin-wire kernel loses accuracy.
 constexpr Real thin_wire_ratio = 8.0;
+/// Below this ratio a segment is a disc, not a piece of wire: its current is no longer a
+/// line on the axis, and the model is refused (thousands of such segments within one
+/// radius also made joining the nodes quadratic).
+constexpr Real disc_ratio = 0.1;
 /// Above this fraction of a wavelength a segment cannot follow the current well.
 constexpr Real longest_segment_wavelengths = 0.1;
 constexpr std::size_t max_total_segments = 200000;
@@ -217,6 +221,11 @@ class Mesher {
         throw InputError(wire.where, "wire '" + wire.name + "' is too large: its coordinates overflow");
       if (s.length() <= 1e-6 * wire.radius)
         throw InputError(wire.where, "wire '" + wire.name + "' has a segment of zero length");
+      if (s.length() < disc_ratio * wire.radius)
+        throw InputError(wire.where, "wire '" + wire.name + "': a segment would be only " +
+                                         format(s.length() / wire.radius) +
+                                         " radii long, a disc rather than a piece of thin wire; use a thinner wire, "
+                                         "fewer segments or a lower frequency");
       m_mesh.segments.push_back(s);
     }
   }
