@@ -1,0 +1,120 @@
+#include "solver/slab_kernel_table.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include "core/constants.hpp"
+#include "solver/slab_kernels.hpp"
+#include "solver/sommerfeld_integral.hpp"
+
+namespace lobe {
+namespace {
+
+/// Grid points per length scale of the remainders (the slab thickness near ρ = 0, the
+/// wavelength in the dielectric over 2π everywhere). The grids hold the remainders times
+/// e^{jk0ρ}: far out they are mostly the ground's image of the direct term, which nearly
+/// cancels it, and without their common phase they vary on the scale of ρ itself, so
+/// interpolation errs far below the kernel's own size even on the coarse grid.
+constexpr Real near_points_per_scale = 16.0;
+constexpr Real far_points_per_scale = 8.0;
+/// The images are trusted out to the last check radius where they agree with Sommerfeld
+/// integration within this fraction of |G|.
+constexpr Real images_tolerance = 1e-5;
+/// Grid points this close to ρ = 0, in fine steps, come from Sommerfeld integration.
+constexpr int near_points = 4;
+/// The fine grid's extent in slab thicknesses (and at least a wavelength).
+constexpr Real near_thicknesses = 40.0;
+
+class Sommerfeld {
+ public:
+  explicit Sommerfeld(const GroundedSlab& slab)
+      : m_slab(slab),
+        m_quasi_static(quasi_static_coefficients(slab)),
+        m_path{slab.k0 * (1.0 + std::sqrt(std::abs(slab.permittivity))) * 1.2, slab.k0} {}
+
+  SlabRemainders operator()(Real rho) const {
+    const Real k0 = m_slab.k0;
+    const auto remainder = [&](bool vector) {
+      return sommerfeld_integral(
+          [&](Complex k_rho) {
+            const SlabSpectrum s = slab_spectrum(m_slab, k_rho);
+            const Complex free = 0.5 / std::sqrt(k_rho * k_rho - k0 * k0);
+            return vector ? s.vector - m_quasi_static.vector * free : s.scalar - m_quasi_static.scalar * free;
+          },
+          rho, m_path, 1e-9);
+    };
+    return {remainder(true), remainder(false)};
+  }
+
+ private:
+  GroundedSlab m_slab;
+  SlabSpectrum m_quasi_static;
+  SommerfeldPath m_path;
+};
+
+}  // namespace
+
+SlabKernelTable::SlabKernelTable(const GroundedSlab& slab, Real largest_distance)
+    : m_slab(slab), m_quasi_static(quasi_static_coefficients(slab)) {
+  const Real k0 = slab.k0, wavelength = 2.0 * pi / k0;
+  const Real far_scale = 1.0 / (k0 * std::sqrt(std::abs(slab.permittivity)));
+  m_near.step = std::min(slab.thickness, far_scale) / near_points_per_scale;
+  m_far.step = far_scale / far_points_per_scale;
+  m_near_end = std::min(std::max({near_thicknesses * slab.thickness, wavelength, 3.0 * m_far.step}), largest_distance);
+  const Real end = largest_distance + 3.0 * m_far.step;
+  const SlabKernels kernels = slab_kernels(slab);
+  const Sommerfeld sommerfeld(slab);
+  const auto images = [&](Real rho) -> SlabRemainders {
+    return {kernels.vector.remainder(k0, rho), kernels.scalar.remainder(k0, rho)};
+  };
+
+  // The images' reach: check radii from half a wavelength, a quarter further each time.
+  m_images_reach = near_points * m_near.step;
+  for (Real rho = std::min(0.5 * wavelength, end); m_images_reach < end; rho = std::min(1.25 * rho, end)) {
+    const SlabRemainders a = images(rho), b = sommerfeld(rho);
+    const Complex direct = std::polar(1.0 / (4.0 * pi * rho), -k0 * rho);
+    const Real vector_error = std::abs(a.vector - b.vector) / std::abs(b.vector + m_quasi_static.vector * direct);
+    const Real scalar_error = std::abs(a.scalar - b.scalar) / std::abs(b.scalar + m_quasi_static.scalar * direct);
+    if (std::max(vector_error, scalar_error) > images_tolerance) break;
+    m_images_reach = rho;
+  }
+
+  const auto fill = [&](Grid& grid, Real grid_end) {
+    grid.values.resize(static_cast<std::size_t>(std::ceil(grid_end / grid.step)) + 4);
+    for (std::size_t i = 0; i < grid.values.size(); ++i) {
+      const Real rho = static_cast<Real>(i) * grid.step;
+      // ρ = 0 itself is read a thousandth of a step out: the remainder is flat there.
+      const SlabRemainders value = rho < near_points * m_near.step ? sommerfeld(std::max(rho, 1e-3 * m_near.step))
+                                   : rho <= m_images_reach          ? images(rho)
+                                                                    : sommerfeld(rho);
+      const Complex demodulation = std::polar(1.0, k0 * rho);
+      grid.values[i] = {value.vector * demodulation, value.scalar * demodulation};
+    }
+  };
+  fill(m_near, m_near_end);
+  fill(m_far, end);
+}
+
+SlabRemainders SlabKernelTable::remainder(Real rho) const {
+  const SlabRemainders demodulated = rho < m_near_end ? m_near.at(rho) : m_far.at(rho);
+  const Complex modulation = std::polar(1.0, -m_slab.k0 * rho);
+  return {demodulated.vector * modulation, demodulated.scalar * modulation};
+}
+
+SlabRemainders SlabKernelTable::Grid::at(Real rho) const {
+  const Real x = rho / step;
+  const int last = static_cast<int>(values.size()) - 1;
+  const int first = std::clamp(static_cast<int>(std::floor(x)) - 1, 0, last - 3);
+  SlabRemainders result;
+  for (int i = 0; i < 4; ++i) {
+    // Lagrange weight of node first + i at x.
+    Real w = 1.0;
+    for (int m = 0; m < 4; ++m)
+      if (m != i) w *= (x - (first + m)) / Real(i - m);
+    result.vector += w * values[first + i].vector;
+    result.scalar += w * values[first + i].scalar;
+  }
+  return result;
+}
+
+}  // namespace lobe

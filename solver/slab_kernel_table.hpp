@@ -1,0 +1,52 @@
+#pragma once
+/// The grounded slab's kernels tabulated once per frequency for the fill, which reads them
+/// at millions of distances. Stored are the remainders, each kernel less its quasi-static
+/// direct term q e^{−jk0ρ}/(4πρ) (the fill integrates that term as in free space): they are
+/// finite at ρ = 0 and smooth, on two uniform grids read by four-point Lagrange
+/// interpolation: a fine one out to 40 slab thicknesses or a wavelength, where the remainders vary
+/// on the thickness's scale, and a coarse one on the wavelength's scale beyond.
+/// The complex images fill the table where they agree with Sommerfeld integration (checked
+/// at radii out to the table's end while it is made); Sommerfeld integration fills the rest:
+/// next to ρ = 0, where the images cannot follow the surface wave's logarithm, and beyond
+/// the images' reach, where they lose accuracy.
+#include <vector>
+
+#include "solver/grounded_slab.hpp"
+
+namespace lobe {
+
+struct SlabRemainders {
+  Complex vector = 0.0;
+  Complex scalar = 0.0;
+};
+
+class SlabKernelTable {
+ public:
+  /// Tabulates ρ from 0 to `largest_distance` (m), the largest distance between two points
+  /// of the structure.
+  SlabKernelTable(const GroundedSlab& slab, Real largest_distance);
+
+  const GroundedSlab& slab() const { return m_slab; }
+  /// The quasi-static coefficients: 1 and 2/(εr + 1).
+  const SlabSpectrum& quasi_static() const { return m_quasi_static; }
+  /// The remainders at 0 ≤ ρ ≤ largest_distance.
+  SlabRemainders remainder(Real rho) const;
+  /// The radius up to which the complex images were used, m.
+  Real images_reach() const { return m_images_reach; }
+  /// How many tabulated points there are.
+  int size() const { return static_cast<int>(m_near.values.size() + m_far.values.size()); }
+
+ private:
+  struct Grid {
+    Real step = 0.0;
+    std::vector<SlabRemainders> values;
+    SlabRemainders at(Real rho) const;
+  };
+  GroundedSlab m_slab;
+  SlabSpectrum m_quasi_static;
+  Real m_images_reach = 0.0;
+  Real m_near_end = 0.0;
+  Grid m_near, m_far;
+};
+
+}  // namespace lobe
