@@ -85,6 +85,17 @@ struct PlaneWave {
   Real amplitude = 1.0;
 };
 
+/// An infinite dielectric slab on the perfect ground plane, from z = 0 up to z = thickness:
+/// the usual model of a circuit board whose ground is several wavelengths across. Plates
+/// on its top face are printed on it.
+struct Substrate {
+  SourceLocation where;
+  std::string name;
+  Real thickness = 0.0;     ///< m
+  Real permittivity = 1.0;  ///< relative, real part
+  Real loss_tangent = 0.0;
+};
+
 struct Band {
   std::string name;
   Real low_hz = 0.0;
@@ -118,6 +129,7 @@ struct Model {
   std::vector<Port> ports;
   std::vector<Load> loads;
   bool ground_perfect = false;
+  std::optional<Substrate> substrate;  ///< implies ground_perfect
   std::vector<Real> frequencies_hz;
   SourceLocation frequency_where;
   Real reference_ohm = 50.0;

@@ -110,7 +110,8 @@ class ModelParser {
     else if (k == "port") port(c, keyword);
     else if (k == "load") load(c, keyword);
     else if (k == "conductor") conductor(c);
-    else if (k == "ground") ground(c);
+    else if (k == "ground") ground(c, keyword);
+    else if (k == "substrate") substrate(c, keyword);
     else if (k == "frequency") frequency(c, keyword);
     else if (k == "reference") reference(c);
     else if (k == "band") band(c);
@@ -123,8 +124,8 @@ class ModelParser {
     else if (k == "wave") wave(c, keyword);
     else
       throw InputError(keyword.where, "unknown statement '" + k + "'; statements are: units let wire arc helix plate "
-                                      "cut sphere box copy shift turn mirror mesh port load conductor ground wave frequency "
-                                      "reference band pattern");
+                                      "cut sphere box copy shift turn mirror mesh port load conductor ground substrate wave "
+                                      "frequency reference band pattern");
     end_of_statement(c);
   }
 
@@ -610,11 +611,47 @@ class ModelParser {
     }
   }
 
-  void ground(TokenCursor& c) {
+  void ground(TokenCursor& c, const Token& keyword) {
     const Token& kind = c.expect_name("'none' or 'perfect'");
     if (kind.text == "none") m_model.ground_perfect = false;
     else if (kind.text == "perfect") m_model.ground_perfect = true;
     else throw InputError(kind.where, "ground is 'none' or 'perfect', not '" + kind.text + "'");
+    if (!m_model.ground_perfect && m_model.substrate) throw substrate_without_ground(keyword.where);
+    m_ground_none_where = m_model.ground_perfect ? std::nullopt : std::optional<SourceLocation>(keyword.where);
+  }
+
+  InputError substrate_without_ground(const SourceLocation& where) const {
+    return InputError(where, "a substrate lies on the ground plane; it cannot be used with 'ground none'");
+  }
+
+  /// substrate NAME thickness H permittivity E [loss-tangent T]
+  void substrate(TokenCursor& c, const Token& keyword) {
+    if (m_model.substrate)
+      throw InputError(keyword.where, "the substrate is already given (line " + std::to_string(m_model.substrate->where.line) +
+                                          "); a model has one board");
+    if (m_ground_none_where) throw substrate_without_ground(keyword.where);
+    Substrate board;
+    board.where = keyword.where;
+    board.name = c.expect_name("a substrate name").text;
+    c.expect_word("thickness", "after the substrate name");
+    board.thickness = positive_length(c, "the thickness");
+    c.expect_word("permittivity", "after the thickness");
+    const Token& at = c.peek();
+    board.permittivity = quantity_in(c, dimension::none, 1.0, "a relative permittivity").value;
+    if (!(board.permittivity >= 1.0 && board.permittivity <= 100.0))
+      throw InputError(at.where, "the relative permittivity must be from 1 to 100, got " + number_text(board.permittivity));
+    // "loss-tangent" is three tokens: the lexer reads '-' as a symbol.
+    if (c.peek_word("loss") && c.peek(1).text == "-" && c.peek_word("tangent", 2)) {
+      c.next();
+      c.next();
+      c.next();
+      const Token& loss_at = c.peek();
+      board.loss_tangent = quantity_in(c, dimension::none, 1.0, "a loss tangent").value;
+      if (!(board.loss_tangent >= 0.0 && board.loss_tangent <= 1.0))
+        throw InputError(loss_at.where, "the loss tangent must be from 0 to 1, got " + number_text(board.loss_tangent));
+    }
+    m_model.substrate = board;
+    m_model.ground_perfect = true;
   }
 
   void frequency(TokenCursor& c, const Token& keyword) {
@@ -848,6 +885,7 @@ class ModelParser {
   std::unordered_map<std::string, ObjectIndex> m_objects;
   std::set<std::string> m_used_overrides;
   Real m_conductivity_for_all = 0.0;
+  std::optional<SourceLocation> m_ground_none_where;
   int m_last_line = 1;
   SourceLocation m_pattern_where{m_file, 1, 1};
 };

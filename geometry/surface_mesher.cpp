@@ -348,7 +348,10 @@ namespace {
 
 std::vector<SurfaceShape> sized_shapes(const Model& model) {
   std::vector<SurfaceShape> shapes = model.surfaces;
-  const Real edge = speed_of_light / model.highest_frequency() / default_edges_per_wavelength;
+  // On a substrate the current varies on the dielectric's shorter wavelength (the
+  // effective permittivity lies between 1 and εr; εr is the safe side).
+  const Real slowing = model.substrate ? std::sqrt(model.substrate->permittivity) : 1.0;
+  const Real edge = speed_of_light / model.highest_frequency() / default_edges_per_wavelength / slowing;
   for (auto& s : shapes)
     if (s.mesh_size == 0.0) s.mesh_size = edge;
   return shapes;

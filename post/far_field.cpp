@@ -12,6 +12,7 @@ namespace lobe {
 FarField::FarField(const AntennaProblem& problem, const FrequencySolution& solution)
     : m_k(problem.medium.wavenumber(solution.frequency_hz)), m_omega(2 * pi * solution.frequency_hz),
       m_images(problem.medium.images()), m_ground(problem.medium.has_ground()) {
+  if (problem.medium.has_slab()) m_slab = problem.medium.slab(solution.frequency_hz);
   const WireMesh& mesh = problem.mesh;
   const SurfaceMesh& surface = problem.surfaces.mesh;
   for (const auto& s : mesh.segments) m_centre += s.midpoint();
@@ -72,7 +73,13 @@ FarFieldSample FarField::at(Real theta, Real phi) const {
   }
   const Vec3 theta_hat(ct * cp, ct * sp, -st), phi_hat(-sp, cp, 0.0);
   const Complex factor = far_zone_factor(m_omega);
-  return {factor * theta_hat.cast<Complex>().dot(n), factor * phi_hat.cast<Complex>().dot(n)};
+  FarFieldSample e{factor * theta_hat.cast<Complex>().dot(n), factor * phi_hat.cast<Complex>().dot(n)};
+  if (m_slab) {
+    const SlabFarFieldFactors t = slab_far_field_factors(*m_slab, theta);
+    e.e_theta *= t.tm;
+    e.e_phi *= t.te;
+  }
+  return e;
 }
 
 Real FarField::intensity(Real theta, Real phi) const {

@@ -1,6 +1,7 @@
 #pragma once
 /// Far field radiated by the solved wire currents.
 #include <array>
+#include <optional>
 #include <vector>
 
 #include "solver/antenna_problem.hpp"
@@ -16,7 +17,8 @@ struct FarFieldSample {
 
 /// Radiation from the current on every segment, triangle and junction star at the points of
 /// solver/basis_samples, and from their images in the problem's medium (over a perfect
-/// ground the field below z = 0 is zero). Antennas and scatterers alike. Precomputes the
+/// ground the field below z = 0 is zero; on a substrate the free-space field of the printed
+/// currents times the slab's factors, solver/grounded_slab). Antennas and scatterers alike. Precomputes the
 /// points once; then each direction costs O(S + T).
 class FarField {
  public:
@@ -37,6 +39,7 @@ class FarField {
   Real m_omega = 0.0;
   std::vector<ImageSource> m_images;
   bool m_ground = false;
+  std::optional<GroundedSlab> m_slab;  ///< on a substrate: the currents lie on its top face
   Vec3 m_centre = Vec3::Zero();
   Real m_extent = 0.0;
   /// Quadrature points relative to m_centre (m), and current × direction × weight (A·m),

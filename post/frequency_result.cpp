@@ -3,6 +3,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "post/surface_wave_power.hpp"
 
 namespace lobe {
 
@@ -25,6 +26,10 @@ FrequencyResult evaluate_frequency(const AntennaProblem& problem, const Frequenc
   const FarField field(problem, solution);
   result.power = power_budget(problem, solution);
   result.power.radiated = field.radiated_power();
+  result.power.surface_wave = surface_wave_power(problem, solution);
+  if (problem.medium.has_slab() && problem.medium.slab_permittivity().imag() != 0.0)
+    result.power.dielectric_loss = result.power.accepted - result.power.radiated - result.power.surface_wave -
+                                   result.power.conductor_loss - result.power.load_loss;
 
   // Incident power of waves a = (V + Z0 I)/(2√Z0) from Z0 sources: realized gain counts
   // the mismatch, G_realized = 4πU / P_incident.

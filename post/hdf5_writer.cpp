@@ -160,6 +160,8 @@ void write_power(hid_t file, const RunRecord& run) {
   power("radiated_w", "W", [](const PowerBudget& p) { return p.radiated; });
   power("conductor_loss_w", "W", [](const PowerBudget& p) { return p.conductor_loss; });
   power("load_loss_w", "W", [](const PowerBudget& p) { return p.load_loss; });
+  power("surface_wave_w", "W", [](const PowerBudget& p) { return p.surface_wave; });
+  power("dielectric_loss_w", "W", [](const PowerBudget& p) { return p.dielectric_loss; });
   power("efficiency", "1", [](const PowerBudget& p) { return p.efficiency(); });
   power("balance_miss", "1", [](const PowerBudget& p) { return p.imbalance(); });
 }

@@ -11,7 +11,8 @@ namespace lobe {
 ///   /model/source, /model/value_names, /model/values, /model/value_units
 ///   /ports/names, /ports/{resistance_ohm, reactance_ohm, vswr, return_loss_db, ...}
 ///   /ports/{z_matrix,s_matrix}_{re,im}           [f, port, port]
-///   /power/{accepted_w, radiated_w, conductor_loss_w, load_loss_w, efficiency}
+///   /power/{accepted_w, radiated_w, conductor_loss_w, load_loss_w, surface_wave_w, dielectric_loss_w,
+///           efficiency, balance_miss}
 ///   /pattern/{theta_deg, phi_deg}, /pattern/{gain_dbi, rhcp_dbi, ...} [f, θ, φ]
 ///   /currents/{segment_start_m, segment_end_m, radius_m, wire}, /currents/{start,end}_{re,im}_a [f, segment]
 ///   /solver/{reciprocal_condition, relative_residual}

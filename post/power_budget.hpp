@@ -12,9 +12,16 @@ struct PowerBudget {
   Real conductor_loss = 0.0;  ///< skin-effect loss in finitely conducting wires
   Real load_loss = 0.0;       ///< in the resistive parts of lumped loads
   Real radiated = 0.0;        ///< from the far field over the sphere (hemisphere over ground)
+  Real surface_wave = 0.0;    ///< launched into a substrate's surface waves
+  /// In a lossy substrate: what the accepted power leaves after everything else (the one
+  /// figure taken by balance, so a lossy board's balance is not checked).
+  Real dielectric_loss = 0.0;
   Real efficiency() const { return accepted > 0.0 ? radiated / accepted : 0.0; }
-  /// (accepted − radiated − losses)/accepted: zero for an exact solution.
-  Real imbalance() const { return accepted > 0.0 ? (accepted - radiated - conductor_loss - load_loss) / accepted : 0.0; }
+  /// (accepted − radiated − surface waves − losses)/accepted: zero for an exact solution.
+  Real imbalance() const {
+    return accepted > 0.0 ? (accepted - radiated - surface_wave - conductor_loss - load_loss - dielectric_loss) / accepted
+                          : 0.0;
+  }
 };
 
 /// The power each lumped load takes, ½ |I|² Re Z_load, W: losses when driven, the received

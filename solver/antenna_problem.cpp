@@ -82,7 +82,31 @@ int shape_index(const Model& model, const std::string& name) {
   return -1;
 }
 
+/// What a substrate model may hold for now: plates printed on the board's top face, fed
+/// by port lines. A wire (a probe or via through the slab, or a wire in the air above it)
+/// needs the slab's kernels for vertical currents, and a plane wave its reflection; both
+/// are refused rather than computed with the wrong Green's function.
+void check_on_substrate(const Model& model, const SurfaceMeshReport& surfaces) {
+  const Substrate& board = *model.substrate;
+  if (!model.wires.empty())
+    throw InputError(model.wires.front().where,
+                     "wire '" + model.wires.front().name + "' on a substrate model: probes, vias and wires above "
+                     "the board are not modelled yet; feed the printed plates with a port line across a gap");
+  if (model.wave)
+    throw InputError(model.wave->where, "plane waves on a substrate model are not modelled yet");
+  const Real tolerance = 1e-6 * board.thickness;
+  for (std::size_t t = 0; t < surfaces.mesh.triangles.size(); ++t)
+    for (int v : surfaces.mesh.triangles[t])
+      if (std::abs(surfaces.mesh.vertices[v].z() - board.thickness) > tolerance) {
+        const SurfaceShape& shape = model.surfaces[surfaces.region[t]];
+        throw InputError(shape.where, "'" + shape.name + "' is not on the top face of substrate '" + board.name +
+                                          "' (z = " + millimetres(board.thickness) +
+                                          "); only plates printed on the board's top face are modelled");
+      }
+}
+
 void check_surfaces_above_ground(const Model& model, const Medium& medium, const SurfaceMeshReport& surfaces) {
+  if (model.substrate) return check_on_substrate(model, surfaces);
   if (!medium.has_ground()) return;
   for (std::size_t t = 0; t < surfaces.mesh.triangles.size(); ++t)
     for (int v : surfaces.mesh.triangles[t])

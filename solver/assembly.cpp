@@ -4,6 +4,7 @@
 #include <vector>
 
 #include "core/check.hpp"
+#include "solver/frequency_limits.hpp"
 #include "solver/pair_integrators.hpp"
 #include "solver/stamps.hpp"
 
@@ -14,7 +15,10 @@ FillContext::FillContext(const AntennaProblem& p, Real frequency_hz)
       geometry(*p.geometry),
       k(p.medium.wavenumber(frequency_hz)),
       vector_factor(p.medium.vector_factor(frequency_hz)),
-      scalar_factor(p.medium.scalar_factor(frequency_hz)) {}
+      scalar_factor(p.medium.scalar_factor(frequency_hz)),
+      slab(p.medium.has_slab() ? shared_slab_kernel_table(p.medium.slab(frequency_hz),
+                                                          structure_extent_m(p.mesh, p.surfaces.mesh, p.medium))
+                               : nullptr) {}
 
 void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMatrix& matrix) {
   LOBE_CHECK(matrix.size() == problem.unknowns(), "system matrix of the wrong size");

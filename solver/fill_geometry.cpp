@@ -1,5 +1,7 @@
 #include "solver/fill_geometry.hpp"
 
+#include <algorithm>
+
 namespace lobe {
 
 FillGeometry::FillGeometry(const WireMesh& wires, const SurfaceMesh& surface, const std::vector<JunctionStar>& stars,
@@ -21,6 +23,17 @@ FillGeometry::FillGeometry(const WireMesh& wires, const SurfaceMesh& surface, co
     imaged.triangles = triangle_quadrature(mirrored);
     for (const JunctionStar& star : stars) imaged.stars.push_back(star.imaged(image.mirror));
     images.push_back(std::move(imaged));
+  }
+  if (medium.has_slab()) {
+    // Deeper than two triangle sizes an image is never a near pair's (triangle_pair_is_near).
+    Real largest = 0.0;
+    for (const TriangleQuadrature& t : triangles) largest = std::max(largest, t.size);
+    for (const SlabStaticImage& image :
+         slab_static_images(medium.slab_thickness(), medium.slab_permittivity(), near_distance_in_sizes * largest)) {
+      SurfaceMesh moved = surface;
+      for (Vec3& v : moved.vertices) v.z() -= image.depth;
+      slab_images.push_back({image, triangle_quadrature(moved)});
+    }
   }
 }
 

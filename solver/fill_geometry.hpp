@@ -22,6 +22,12 @@ struct ImagedElements {
   std::vector<JunctionStar> stars;
 };
 
+/// The triangles moved down to one quasi-static image of a grounded slab.
+struct SlabImageTriangles {
+  SlabStaticImage image;
+  std::vector<TriangleQuadrature> triangles;
+};
+
 struct FillGeometry {
   FillGeometry(const WireMesh& wires, const SurfaceMesh& surface, const std::vector<JunctionStar>& stars,
                const Medium& medium);
@@ -30,6 +36,8 @@ struct FillGeometry {
   std::vector<Vec3> directions;
   std::vector<TriangleQuadrature> triangles;
   std::vector<ImagedElements> images;  ///< one per image term of the medium
+  /// On a substrate, its quasi-static images shallow enough to be near a triangle.
+  std::vector<SlabImageTriangles> slab_images;
 };
 
 }  // namespace lobe

@@ -128,6 +128,27 @@ std::vector<SurfaceWavePole> surface_wave_poles(const GroundedSlab& slab) {
   return poles;
 }
 
+SlabFarFieldFactors slab_far_field_factors(const GroundedSlab& slab, Real theta) {
+  const Real st = std::sin(theta);
+  const Complex kz0 = slab.k0 * std::cos(theta);
+  const Complex kz1 = slab.k0 * std::sqrt(slab.permittivity - st * st);
+  const Complex t = std::tan(kz1 * slab.thickness);
+  return {2.0 * j_unit * kz0 * t / (kz1 + j_unit * kz0 * t),
+          2.0 * j_unit * kz1 * t / (slab.permittivity * kz0 + j_unit * kz1 * t)};
+}
+
+std::vector<SlabStaticImage> slab_static_images(Real thickness, Complex permittivity, Real deepest) {
+  std::vector<SlabStaticImage> images;
+  const Complex contrast = (permittivity - 1.0) / (permittivity + 1.0);
+  Complex weight = -2.0 / (permittivity + 1.0) * (1.0 + contrast);  // n = 1
+  for (int n = 1; 2 * n * thickness <= deepest && n <= 200; ++n, weight *= -contrast) {
+    const Complex vector_weight = n == 1 ? Complex(-1.0) : Complex(0.0);
+    if (std::abs(weight) < 1e-9 && vector_weight == 0.0) break;
+    images.push_back({2.0 * n * thickness, vector_weight, weight});
+  }
+  return images;
+}
+
 Complex surface_wave_term(Complex k_pole, Complex residue, Real rho) {
   return -0.5 * j_unit * k_pole * residue * hankel2_0(k_pole * rho);
 }

@@ -32,6 +32,30 @@ SlabSpectrum slab_spectrum(const GroundedSlab& slab, Complex k_rho);
 /// coefficients of their quasi-static 1/R singularity, 1 and 2/(εr + 1).
 SlabSpectrum quasi_static_coefficients(const GroundedSlab& slab);
 
+/// The far field of a horizontal current on the top face, as a multiple of the same
+/// current's field in free space: E_θ takes `tm`, E_φ takes `te`, at the angle θ from the
+/// zenith (< 90°). With the transmission-line model of the slab seen from z = h (a shorted
+/// line of length h below, matched air above), T = 2 Z_in/(Z_in + Z0) per polarisation:
+///   te = 2j k_z0 tan(k_z1 h)/(k_z1 + j k_z0 tan(k_z1 h)),
+///   tm = 2j k_z1 tan(k_z1 h)/(εr k_z0 + j k_z1 tan(k_z1 h)),
+/// k_z0 = k0 cos θ, k_z1 = k0 √(εr − sin²θ); te is also 2u0 g̃_A at kρ = k0 sin θ.
+struct SlabFarFieldFactors {
+  Complex te = 1.0, tm = 1.0;
+};
+SlabFarFieldFactors slab_far_field_factors(const GroundedSlab& slab, Real theta);
+
+/// One of the quasi-static images of a source on the top face: as kρ → ∞ with k0 h fixed
+/// small, g̃_A → (1 − e^{−2λh})/(2λ) and g̃_V → (2/(εr+1)) (1 − e^{−2λh})/((1 + K e^{−2λh}) 2λ)
+/// (λ = kρ, K = (εr − 1)/(εr + 1)), i.e. point sources at the depths 2nh below the source
+/// with weights −1 (n = 1 only) and −(2/(εr+1))(1 + K)(−K)^{n−1}. The fill integrates them
+/// exactly where they are too close to a triangle for its quadrature points.
+struct SlabStaticImage {
+  Real depth = 0.0;  ///< 2nh, m
+  Complex vector_weight = 0.0, scalar_weight = 0.0;
+};
+/// The images down to `deepest` (m), and none whose weights are both below 1e-9.
+std::vector<SlabStaticImage> slab_static_images(Real thickness, Complex permittivity, Real deepest);
+
 /// A surface-wave pole of the kernels: kρ = k_rho (Re > k0, Im ≤ 0), with the residues of
 /// g̃_A and g̃_V there. TM poles are zeros of D_TM (they reach g̃_V only); TE poles are
 /// zeros of D_TE.

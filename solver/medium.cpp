@@ -21,10 +21,23 @@ Medium Medium::over_perfect_ground() {
   image.current_sign = -1.0;
   image.charge_sign = -1.0;
   medium.m_images.push_back(image);
+  medium.m_ground = true;
   return medium;
 }
 
-Medium Medium::of(const Model& model) { return model.ground_perfect ? over_perfect_ground() : free_space(); }
+Medium Medium::over_grounded_slab(Real thickness, Complex permittivity) {
+  Medium medium;
+  medium.m_ground = true;
+  medium.m_slab_thickness = thickness;
+  medium.m_slab_permittivity = permittivity;
+  return medium;
+}
+
+Medium Medium::of(const Model& model) {
+  if (const auto& board = model.substrate)
+    return over_grounded_slab(board->thickness, Complex(board->permittivity, -board->permittivity * board->loss_tangent));
+  return model.ground_perfect ? over_perfect_ground() : free_space();
+}
 
 Real Medium::wavenumber(Real frequency_hz) const { return 2 * pi * frequency_hz / speed_of_light; }
 

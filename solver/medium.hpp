@@ -7,6 +7,7 @@
 
 #include "core/types.hpp"
 #include "geometry/model.hpp"
+#include "solver/grounded_slab.hpp"
 
 namespace lobe {
 
@@ -36,16 +37,19 @@ struct IncidentWave {
 /// The model's wave (θ, φ and θ̂ or φ̂ polarisation) as an IncidentWave.
 IncidentWave incident_wave(const PlaneWave& wave);
 
-/// Free space, or free space over a perfectly conducting ground plane z = 0 (one image).
-/// Later media (a lossy ground, a grounded dielectric layer, where the vector and scalar
-/// potentials need different kernels) add their terms here, and the integrators, far field
-/// and excitations that ask this object follow without change.
+/// Free space, free space over a perfectly conducting ground plane z = 0 (one image), or a
+/// dielectric slab on that ground (its kernels from solver/slab_kernel_table, in place of
+/// the image). Later media add their terms here, and the integrators, far field and
+/// excitations that ask this object follow.
 class Medium {
  public:
   static Medium free_space();
   /// Perfect ground in z = 0: images mirrored in z, current −M J (horizontal reversed,
   /// vertical kept), charge −ρ.
   static Medium over_perfect_ground();
+  /// A slab 0 < z < thickness of relative permittivity εr (Im ≤ 0 when lossy) on a
+  /// perfect ground; sources lie on its top face.
+  static Medium over_grounded_slab(Real thickness, Complex permittivity);
   static Medium of(const Model& model);
 
   /// Wavenumber of the space the structure is in, rad/m.
@@ -54,16 +58,24 @@ class Medium {
   Complex vector_factor(Real frequency_hz) const;
   Complex scalar_factor(Real frequency_hz) const;
 
-  /// Image terms to add to every free-space interaction (none in free space).
+  /// Image terms to add to every free-space interaction (none in free space or on a slab).
   const std::vector<ImageSource>& images() const { return m_images; }
   /// True when z < 0 is conductor: no source may be there and no field reaches there.
-  bool has_ground() const { return !m_images.empty(); }
+  bool has_ground() const { return m_ground; }
+  /// True for a grounded slab; then slab() gives it at a frequency.
+  bool has_slab() const { return m_slab_thickness > 0.0; }
+  GroundedSlab slab(Real frequency_hz) const { return {m_slab_thickness, m_slab_permittivity, wavenumber(frequency_hz)}; }
+  Real slab_thickness() const { return m_slab_thickness; }
+  Complex slab_permittivity() const { return m_slab_permittivity; }
   /// The waves that reach the structure when `wave` arrives: itself and its reflections.
   std::vector<IncidentWave> waves_reaching(const IncidentWave& wave) const;
-  std::string name() const { return has_ground() ? "perfect" : "none"; }
+  std::string name() const { return has_slab() ? "substrate" : has_ground() ? "perfect" : "none"; }
 
  private:
   std::vector<ImageSource> m_images;
+  bool m_ground = false;
+  Real m_slab_thickness = 0.0;
+  Complex m_slab_permittivity = 1.0;
 };
 
 }  // namespace lobe

@@ -6,10 +6,12 @@
 /// image term the medium supplies, as MatrixContributions that the assembly loop adds to
 /// the system matrix. Every unordered pair is integrated once and written at (m, n) and
 /// (n, m), so Z is exactly symmetric.
+#include <memory>
 #include <vector>
 
 #include "solver/antenna_problem.hpp"
 #include "solver/fill_geometry.hpp"
+#include "solver/slab_kernel_table.hpp"
 #include "solver/system_matrix.hpp"
 
 namespace lobe {
@@ -22,6 +24,9 @@ struct FillContext {
   Real k;                ///< wavenumber, rad/m
   Complex vector_factor; ///< jωμ
   Complex scalar_factor; ///< −j/(ωε)
+  /// On a substrate, its kernels at this frequency (else null): the integrators then take
+  /// the quasi-static part from the free-space integrals and add the table's remainder.
+  std::shared_ptr<const SlabKernelTable> slab;
 };
 
 /// Segment s against segments t ≥ s (thin-wire reduced kernel; solver/segment_integrals).

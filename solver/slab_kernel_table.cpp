@@ -2,6 +2,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <deque>
+#include <mutex>
 
 #include "core/constants.hpp"
 #include "solver/slab_kernels.hpp"
@@ -55,7 +57,7 @@ class Sommerfeld {
 }  // namespace
 
 SlabKernelTable::SlabKernelTable(const GroundedSlab& slab, Real largest_distance)
-    : m_slab(slab), m_quasi_static(quasi_static_coefficients(slab)) {
+    : m_slab(slab), m_quasi_static(quasi_static_coefficients(slab)), m_reach(largest_distance) {
   const Real k0 = slab.k0, wavelength = 2.0 * pi / k0;
   const Real far_scale = 1.0 / (k0 * std::sqrt(std::abs(slab.permittivity)));
   m_near.step = std::min(slab.thickness, far_scale) / near_points_per_scale;
@@ -99,6 +101,27 @@ SlabRemainders SlabKernelTable::remainder(Real rho) const {
   const SlabRemainders demodulated = rho < m_near_end ? m_near.at(rho) : m_far.at(rho);
   const Complex modulation = std::polar(1.0, -m_slab.k0 * rho);
   return {demodulated.vector * modulation, demodulated.scalar * modulation};
+}
+
+std::shared_ptr<const SlabKernelTable> shared_slab_kernel_table(const GroundedSlab& slab, Real largest_distance) {
+  // A sweep of a few hundred cases over one band needs as many tables as frequencies.
+  constexpr std::size_t kept = 512;
+  static std::mutex guard;
+  static std::deque<std::shared_ptr<const SlabKernelTable>> tables;
+  const auto same = [&](const SlabKernelTable& t) {
+    return t.slab().thickness == slab.thickness && t.slab().permittivity == slab.permittivity && t.slab().k0 == slab.k0 &&
+           t.reach() >= largest_distance;
+  };
+  {
+    const std::lock_guard<std::mutex> lock(guard);
+    for (const auto& t : tables)
+      if (same(*t)) return t;
+  }
+  auto table = std::make_shared<const SlabKernelTable>(slab, largest_distance);
+  const std::lock_guard<std::mutex> lock(guard);
+  tables.push_back(table);
+  if (tables.size() > kept) tables.pop_front();
+  return table;
 }
 
 SlabRemainders SlabKernelTable::Grid::at(Real rho) const {

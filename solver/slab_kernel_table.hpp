@@ -9,6 +9,7 @@
 /// at radii out to the table's end while it is made); Sommerfeld integration fills the rest:
 /// next to ρ = 0, where the images cannot follow the surface wave's logarithm, and beyond
 /// the images' reach, where they lose accuracy.
+#include <memory>
 #include <vector>
 
 #include "solver/grounded_slab.hpp"
@@ -26,6 +27,8 @@ class SlabKernelTable {
   /// of the structure.
   SlabKernelTable(const GroundedSlab& slab, Real largest_distance);
 
+  /// The distance the table reaches, m.
+  Real reach() const { return m_reach; }
   const GroundedSlab& slab() const { return m_slab; }
   /// The quasi-static coefficients: 1 and 2/(εr + 1).
   const SlabSpectrum& quasi_static() const { return m_quasi_static; }
@@ -46,7 +49,13 @@ class SlabKernelTable {
   SlabSpectrum m_quasi_static;
   Real m_images_reach = 0.0;
   Real m_near_end = 0.0;
+  Real m_reach = 0.0;
   Grid m_near, m_far;
 };
+
+/// The table for `slab` reaching at least `largest_distance`, made once and kept: the
+/// cases of a sweep that share the substrate and frequencies share their tables. Safe to
+/// call from several threads.
+std::shared_ptr<const SlabKernelTable> shared_slab_kernel_table(const GroundedSlab& slab, Real largest_distance);
 
 }  // namespace lobe

@@ -27,13 +27,22 @@ Complex sommerfeld_integral(const std::function<Complex(Complex)>& spectrum, Rea
   };
   const Complex detour = integrate_adaptive(on_detour, 0.0, a, 0.1 * relative);
 
-  // The tail, half-period by half-period: its partial sums alternate, and ε accelerates them.
+  // Where a half-period π/ρ is much longer than a, the spectrum may decay within a small
+  // part of the first one, and a rule spread over all of it would miss it: the tail starts
+  // with intervals of a, 2a, 4a, … until they reach a half-period.
   const Real period = pi / rho;
+  Real start = a;
+  Complex head = 0.0;
+  for (Real length = a; length < period; length *= 2.0) {
+    head += integrate_adaptive(on_axis, start, start + length, 0.1 * relative, 0.01 * relative * std::abs(detour + head));
+    start += length;
+  }
+  // Then half-period by half-period: the partial sums alternate, and ε accelerates them.
   std::vector<Complex> partial;
-  Complex sum = 0.0, previous_limit = 0.0;
+  Complex sum = head, previous_limit = 0.0;
   int settled = 0;
   for (int i = 0; i < 400; ++i) {
-    sum += integrate_adaptive(on_axis, a + i * period, a + (i + 1) * period, 0.1 * relative,
+    sum += integrate_adaptive(on_axis, start + i * period, start + (i + 1) * period, 0.1 * relative,
                               0.01 * relative * std::abs(detour + sum));
     partial.push_back(sum);
     const Complex limit = wynn_epsilon_limit(partial);

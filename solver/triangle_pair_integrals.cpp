@@ -11,9 +11,6 @@
 namespace lobe {
 namespace {
 
-/// A pair is near when its centroids are closer than this many of the larger triangle's
-/// longest edges: 1/R then varies too fast over Q for seven points.
-constexpr Real near_distance_in_sizes = 2.0;
 constexpr int n = TriangleQuadrature::points;
 
 /// ∫ G and ∫ G r' over Q at each of P's points, by 7 × 7 points.
@@ -83,19 +80,16 @@ std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh) {
   return all;
 }
 
-TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
-  const bool near = (p.centroid - q.centroid).norm() < near_distance_in_sizes * std::max(p.size, q.size);
-  std::array<Complex, n> inner_scalar;
-  std::array<Eigen::Vector3cd, n> inner_moment;
-  if (near) {
-    for (int a = 0; a < n; ++a) {
-      const PointPotentials inner = triangle_point_potentials(p.x[a], q.corners[0], q.corners[1], q.corners[2], q.area, k, true);
-      inner_scalar[a] = inner.scalar;
-      inner_moment[a] = inner.moment;
-    }
-  } else {
-    far_inner(p, q, k, inner_scalar, inner_moment);
-  }
+bool triangle_pair_is_near(const TriangleQuadrature& p, const TriangleQuadrature& q) {
+  return (p.centroid - q.centroid).norm() < near_distance_in_sizes * std::max(p.size, q.size);
+}
+
+namespace {
+
+/// The outer 7-point integral over P of the inner potentials at P's points.
+TrianglePairIntegrals outer_integral(const TriangleQuadrature& p, const TriangleQuadrature& q,
+                                     const std::array<Complex, n>& inner_scalar,
+                                     const std::array<Eigen::Vector3cd, n>& inner_moment) {
   TrianglePairIntegrals result;
   for (int a = 0; a < n; ++a) {
     result.scalar += p.w[a] * inner_scalar[a];
@@ -107,6 +101,28 @@ TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const
     }
   }
   return result;
+}
+
+}  // namespace
+
+TrianglePairIntegrals triangle_pair_integrals_by_points(const TriangleQuadrature& p, const TriangleQuadrature& q,
+                                                        Real k) {
+  std::array<Complex, n> inner_scalar;
+  std::array<Eigen::Vector3cd, n> inner_moment;
+  far_inner(p, q, k, inner_scalar, inner_moment);
+  return outer_integral(p, q, inner_scalar, inner_moment);
+}
+
+TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
+  if (!triangle_pair_is_near(p, q)) return triangle_pair_integrals_by_points(p, q, k);
+  std::array<Complex, n> inner_scalar;
+  std::array<Eigen::Vector3cd, n> inner_moment;
+  for (int a = 0; a < n; ++a) {
+    const PointPotentials inner = triangle_point_potentials(p.x[a], q.corners[0], q.corners[1], q.corners[2], q.area, k, true);
+    inner_scalar[a] = inner.scalar;
+    inner_moment[a] = inner.moment;
+  }
+  return outer_integral(p, q, inner_scalar, inner_moment);
 }
 
 }  // namespace lobe

@@ -41,6 +41,15 @@ struct TriangleQuadrature {
 };
 std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh);
 
+/// A pair is near when its centroids are closer than this many of the larger triangle's
+/// longest edges: 1/R then varies too fast over Q for seven points.
+constexpr Real near_distance_in_sizes = 2.0;
+bool triangle_pair_is_near(const TriangleQuadrature& observer, const TriangleQuadrature& source);
+
+/// The pair's integrals by the 7 × 7 product rule alone, as a far pair gets them.
+TrianglePairIntegrals triangle_pair_integrals_by_points(const TriangleQuadrature& observer,
+                                                        const TriangleQuadrature& source, Real k);
+
 /// Near pairs (centroids closer than two triangle sizes) integrate the static 1/R part over
 /// Q in closed form (Wilton et al. 1984) and the smooth (e^{−jkR} − 1)/R part, and the
 /// outer integral over P, with the 7-point degree-5 rule; far pairs use 7 × 7 points with

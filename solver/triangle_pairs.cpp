@@ -2,6 +2,37 @@
 #include "solver/pair_integrators.hpp"
 
 namespace lobe {
+namespace {
+
+/// Adds the substrate's remainder kernels (smooth and finite at R = 0, so the 7 × 7 product
+/// rule serves even the self pair): with S = Σ w R, S_x = Σ w R x, S_y = Σ w R y and
+/// S_xy = Σ w R x·y over the point pairs, (x − p_i)·(y − q_j) sums to
+/// S_xy − S_x·q_j − p_i·S_y + (p_i·q_j) S.
+void add_slab_remainders(const SlabKernelTable& table, const TriangleQuadrature& p, const TriangleQuadrature& q,
+                         TrianglePairIntegrals& integrals) {
+  constexpr int n = TriangleQuadrature::points;
+  Complex s = 0.0, s_vector = 0.0, s_xy = 0.0;
+  Eigen::Vector3cd s_x = Eigen::Vector3cd::Zero(), s_y = Eigen::Vector3cd::Zero();
+  for (int a = 0; a < n; ++a)
+    for (int b = 0; b < n; ++b) {
+      const SlabRemainders r = table.remainder((p.x[a] - q.x[b]).norm());
+      const Real w = p.w[a] * q.w[b];
+      s += w * r.scalar;
+      const Complex v = w * r.vector;
+      s_vector += v;
+      s_x += v * p.x[a].cast<Complex>();
+      s_y += v * q.x[b].cast<Complex>();
+      s_xy += v * p.x[a].dot(q.x[b]);
+    }
+  integrals.scalar += s;
+  for (int i = 0; i < 3; ++i)
+    for (int j = 0; j < 3; ++j)
+      // Eigen's dot conjugates its left side: keep the real vector there.
+      integrals.vector(i, j) += s_xy - q.corners[j].cast<Complex>().dot(s_x) - p.corners[i].cast<Complex>().dot(s_y) +
+                                p.corners[i].dot(q.corners[j]) * s_vector;
+}
+
+}  // namespace
 
 void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<MatrixContribution>& out) {
   const RwgBasis& basis = c.problem.rwg;
@@ -18,6 +49,22 @@ void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<Matrix
       const TrianglePairIntegrals image = triangle_pair_integrals(g.triangles[p], imaged.triangles[q], c.k);
       integrals.vector += imaged.image.current_sign * image.vector;
       integrals.scalar += imaged.image.charge_sign * image.scalar;
+    }
+    // On a substrate the free-space integrals are the quasi-static term: the vector
+    // potential's coefficient is 1, the scalar potential's 2/(εr + 1).
+    if (c.slab) {
+      integrals.scalar *= c.slab->quasi_static().scalar;
+      add_slab_remainders(*c.slab, g.triangles[p], g.triangles[q], integrals);
+      // The remainder holds the quasi-static images at depths 2nh, which vary on the
+      // thickness's scale, finer than a triangle on a thin board: where one is near, its
+      // points' share is replaced by the exact integral.
+      for (const SlabImageTriangles& imaged : g.slab_images) {
+        if (!triangle_pair_is_near(g.triangles[p], imaged.triangles[q])) continue;
+        const TrianglePairIntegrals exact = triangle_pair_integrals(g.triangles[p], imaged.triangles[q], c.k);
+        const TrianglePairIntegrals by_points = triangle_pair_integrals_by_points(g.triangles[p], imaged.triangles[q], c.k);
+        integrals.vector += imaged.image.vector_weight * (exact.vector - by_points.vector);
+        integrals.scalar += imaged.image.scalar_weight * (exact.scalar - by_points.scalar);
+      }
     }
     if (p == q) integrals.vector = (0.5 * (integrals.vector + integrals.vector.transpose())).eval();
     for (const RwgPiece& pm : basis.pieces_on(p))

@@ -123,8 +123,8 @@ TEST(ModelParser, CutsAndPlatePorts) {
 
 TEST(ModelParser, ErrorsPointAtTheCause) {
   EXPECT_EQ(error_of("blorp\n"), "m.lobe:1:1: unknown statement 'blorp'; statements are: units let wire arc helix plate cut "
-                                 "sphere box copy shift turn mirror mesh port load conductor ground wave frequency "
-                                 "reference band pattern");
+                                 "sphere box copy shift turn mirror mesh port load conductor ground substrate wave "
+                                 "frequency reference band pattern");
   EXPECT_EQ(error_of("wire w from (0,0,0) to (0,0,1)\n"), "m.lobe:1:31: wire 'w' needs 'radius R'");
   EXPECT_EQ(error_of("let a = 1\nlet a = 2\n"), "m.lobe:2:5: 'a' is already defined");
   EXPECT_EQ(error_of(base + "port q on nowhere at middle\n"), "m.lobe:4:11: there is no wire named 'nowhere'");
@@ -136,6 +136,33 @@ TEST(ModelParser, ErrorsPointAtTheCause) {
 }
 
 // Ranges override with exact SI texts but show their values in the unit START was written in.
+// The substrate statement as the issue writes it; the board lies on the ground plane.
+TEST(ModelParser, SubstrateStatement) {
+  const std::string printed = "plate a rectangle corner (-10, -1, 1.6) size (20, 2)\n"
+                              "port p on a along (0, -1, 1.6) to (0, 1, 1.6)\nfrequency 2.4 GHz\n";
+  const Model m = parse_model("units mm\nsubstrate fr4 thickness 1.6 permittivity 4.4 loss-tangent 0.02\n" + printed, "m.lobe");
+  ASSERT_TRUE(m.substrate.has_value());
+  EXPECT_EQ(m.substrate->name, "fr4");
+  EXPECT_DOUBLE_EQ(m.substrate->thickness, 1.6e-3);
+  EXPECT_DOUBLE_EQ(m.substrate->permittivity, 4.4);
+  EXPECT_DOUBLE_EQ(m.substrate->loss_tangent, 0.02);
+  EXPECT_TRUE(m.ground_perfect);
+  EXPECT_DOUBLE_EQ(parse_model("units mm\nsubstrate r thickness 0.8 permittivity 2.2\n" + printed, "m.lobe").substrate->loss_tangent,
+                   0.0);
+  EXPECT_EQ(error_of("ground none\nsubstrate s thickness 1 mm permittivity 3\n"),
+            "m.lobe:2:1: a substrate lies on the ground plane; it cannot be used with 'ground none'");
+  EXPECT_EQ(error_of("substrate s thickness 1 mm permittivity 3\nground none\n"),
+            "m.lobe:2:1: a substrate lies on the ground plane; it cannot be used with 'ground none'");
+  EXPECT_EQ(error_of("substrate s thickness 1 mm permittivity 0.5\n"),
+            "m.lobe:1:41: the relative permittivity must be from 1 to 100, got 0.5");
+  EXPECT_EQ(error_of("substrate s thickness 1 mm permittivity 3 loss-tangent -0.1\n").substr(0, 9), "m.lobe:1:");
+  EXPECT_NE(error_of("substrate s thickness 1 mm permittivity 3\nsubstrate t thickness 1 mm permittivity 3\n")
+                .find("m.lobe:2:1: the substrate is already given (line 1)"),
+            std::string::npos);
+  EXPECT_NE(error_of("substrate s thickness 0 mm permittivity 3\n").find("the thickness must be above zero"),
+            std::string::npos);
+}
+
 TEST(ModelParser, VariedValuesAreShownInTheUnitsGiven) {
   const VariedName droop = parse_vary_option("droop=20deg:30deg:5deg", 1);
   ASSERT_EQ(droop.values.size(), 3u);

@@ -80,7 +80,9 @@ TEST(GroundedSlab, AirSlabIsTheDirectTermLessItsImage) {
   const GroundedSlab air{h, 1.0, k0};
   EXPECT_TRUE(surface_wave_poles(air).empty());
   const SommerfeldPath path{2.5 * k0, k0};
-  for (const Real rho : {0.001, 0.05, 0.4, 1.7, 5.0}) {
+  // Down to ρ = 1e-7 λ, where a half-period of the tail is ten million wavenumbers long and
+  // the spectrum decays within its first thousandth (a rule spread over it once missed that).
+  for (const Real rho : {1e-7, 1e-4, 0.001, 0.05, 0.4, 1.7, 5.0}) {
     for (const bool vector : {true, false}) {
       const Complex value = sommerfeld_integral(
           [&](Complex k_rho) {
