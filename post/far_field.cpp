@@ -11,16 +11,19 @@ namespace lobe {
 
 FarField::FarField(const AntennaProblem& problem, const FrequencySolution& solution)
     : m_k(problem.medium.wavenumber(solution.frequency_hz)), m_omega(2 * pi * solution.frequency_hz),
-      m_images(problem.medium.images()), m_ground(problem.medium.has_ground()) {
-  if (problem.medium.has_slab()) m_slab = problem.medium.slab(solution.frequency_hz);
+      m_images(problem.medium.images()), m_ground(problem.medium.has_ground()),
+      m_slab(problem.medium.has_slab() ? std::optional<GroundedSlab>(problem.medium.slab(solution.frequency_hz))
+                                       : std::nullopt) {
   const WireMesh& mesh = problem.mesh;
   const SurfaceMesh& surface = problem.surfaces.mesh;
   for (const auto& s : mesh.segments) m_centre += s.midpoint();
   for (std::size_t t = 0; t < surface.triangles.size(); ++t) m_centre += surface.centroid(static_cast<int>(t));
   const std::size_t elements = mesh.segments.size() + surface.triangles.size();
   if (elements > 0) m_centre /= static_cast<Real>(elements);
-  // Images make the source symmetric about each mirror plane (all through the origin).
+  // Images make the source symmetric about each mirror plane (all through the origin); on
+  // a substrate, as over the bare ground, the phase is referred to the ground plane.
   for (const ImageSource& image : m_images) m_centre = 0.5 * (m_centre + image.point(m_centre));
+  if (m_slab) m_centre.z() = 0.0;
 
   for (const BasisSample& sample : problem.samples) {
     Eigen::Vector3cd moment = Eigen::Vector3cd::Zero();

@@ -132,9 +132,13 @@ SlabFarFieldFactors slab_far_field_factors(const GroundedSlab& slab, Real theta)
   const Real st = std::sin(theta);
   const Complex kz0 = slab.k0 * std::cos(theta);
   const Complex kz1 = slab.k0 * std::sqrt(slab.permittivity - st * st);
-  const Complex t = std::tan(kz1 * slab.thickness);
-  return {2.0 * j_unit * kz0 * t / (kz1 + j_unit * kz0 * t),
-          2.0 * j_unit * kz1 * t / (slab.permittivity * kz0 + j_unit * kz1 * t)};
+  // With τ = tan(k_z1 h)/k_z1 (→ h as k_z1 → 0, at grazing on an air board) neither factor
+  // divides by zero: te = 2j k_z0 τ/(1 + j k_z0 τ), tm = 2j k_z1² τ/(εr k_z0 + j k_z1² τ).
+  const Complex x = kz1 * slab.thickness;
+  const Complex tau = std::abs(x) < 1e-4 ? slab.thickness * (1.0 + x * x / 3.0) : std::tan(x) / kz1;
+  const Complex kz1_squared = kz1 * kz1;
+  return {2.0 * j_unit * kz0 * tau / (1.0 + j_unit * kz0 * tau),
+          2.0 * j_unit * kz1_squared * tau / (slab.permittivity * kz0 + j_unit * kz1_squared * tau)};
 }
 
 std::vector<SlabStaticImage> slab_static_images(Real thickness, Complex permittivity, Real deepest) {

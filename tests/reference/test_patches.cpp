@@ -7,6 +7,7 @@
 #include <cstdio>
 
 #include "core/constants.hpp"
+#include "support/patch_formulas.hpp"
 #include "support/solve_text.hpp"
 
 namespace lobe::testing {
@@ -31,16 +32,6 @@ std::string patch_text() {
                 -length_mm / 2, -width_mm / 2, height_mm, length_mm, width_mm, -length_mm / 6, -length_mm / 6,
                 height_mm);
   return text;
-}
-
-/// Resonance of the transmission-line model with Hammerstad's fringing extension (Balanis,
-/// Antenna Theory, ch. 14, eqs. 14-1, 14-2, 14-6, 14-7): ε_reff from W/h, ΔL from
-/// ε_reff and W/h, and f_r = c / (2 (L + 2ΔL) √ε_reff). Air: ε_r = 1.
-Real transmission_line_resonance_hz(Real length, Real width, Real height, Real permittivity) {
-  const Real effective = 0.5 * (permittivity + 1) + 0.5 * (permittivity - 1) / std::sqrt(1 + 12 * height / width);
-  const Real extension = 0.412 * height * (effective + 0.3) * (width / height + 0.264) /
-                         ((effective - 0.258) * (width / height + 0.8));
-  return speed_of_light / (2 * (length + 2 * extension) * std::sqrt(effective));
 }
 
 /// The frequency of maximum input resistance: a coarse scan, then parabolas through the

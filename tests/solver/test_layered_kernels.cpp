@@ -271,5 +271,25 @@ TEST(SlabKernelTable, InterpolatesTheKernelsEverywhere) {
   }
 }
 
+// The far-field factors: an air board gives the ground's image, 1 − e^{−2jk0h cos θ} for
+// both polarisations (image theory), grazing incidence included; on a dielectric the TE
+// factor is the stationary-phase value 2u0 g̃_A of the vector kernel at kρ = k0 sin θ.
+TEST(GroundedSlab, FarFieldFactorsMatchImageTheoryAndTheSpectrum) {
+  const Real k0 = 2 * pi, h = 0.013;
+  for (const Real degrees : {0.0, 30.0, 60.0, 89.9, 90.0}) {
+    const Real theta = degrees * pi / 180;
+    const SlabFarFieldFactors air = slab_far_field_factors({h, 1.0, k0}, theta);
+    const Complex image = 1.0 - std::exp(Complex(0.0, -2 * k0 * h * std::cos(theta)));
+    EXPECT_LT(std::abs(air.te - image), 1e-12) << degrees;
+    EXPECT_LT(std::abs(air.tm - image), 1e-12) << degrees;
+    const GroundedSlab fr4{h, Complex(4.4, -0.088), k0};
+    const Complex k_rho = k0 * std::sin(theta), u0 = std::sqrt(k_rho * k_rho - k0 * k0);
+    if (degrees < 90.0) {
+      EXPECT_LT(relative_error(slab_far_field_factors(fr4, theta).te, 2.0 * u0 * slab_spectrum(fr4, k_rho).vector), 1e-10)
+          << degrees;
+    }
+  }
+}
+
 }  // namespace
 }  // namespace lobe
