@@ -6,6 +6,7 @@
 #include <mutex>
 
 #include "core/constants.hpp"
+#include "solver/phase_factor.hpp"
 #include "solver/slab_kernels.hpp"
 #include "solver/sommerfeld_integral.hpp"
 
@@ -97,6 +98,20 @@ SlabKernelTable::SlabKernelTable(const GroundedSlab& slab, Real largest_distance
   fill(m_far, end);
 }
 
+void SlabKernelTable::remainders(const Real* rho, int count, SlabRemainders* out) const {
+  Real phase[64], sine[64], cosine[64];
+  for (int i = 0; i < count; ++i) {
+    out[i] = rho[i] < m_near_end ? m_near.at(rho[i]) : m_far.at(rho[i]);
+    phase[i] = m_slab.k0 * rho[i];
+  }
+  sine_cosine(phase, sine, cosine, count);
+  for (int i = 0; i < count; ++i) {
+    const Complex modulation(cosine[i], -sine[i]);
+    out[i].vector *= modulation;
+    out[i].scalar *= modulation;
+  }
+}
+
 SlabRemainders SlabKernelTable::remainder(Real rho) const {
   const SlabRemainders demodulated = rho < m_near_end ? m_near.at(rho) : m_far.at(rho);
   const Complex modulation = std::polar(1.0, -m_slab.k0 * rho);
@@ -128,14 +143,13 @@ SlabRemainders SlabKernelTable::Grid::at(Real rho) const {
   const Real x = rho / step;
   const int last = static_cast<int>(values.size()) - 1;
   const int first = std::clamp(static_cast<int>(std::floor(x)) - 1, 0, last - 3);
+  // Lagrange's cubic weights on the nodes first … first + 3 at u = x − (first + 1).
+  const Real u = x - (first + 1), up = u + 1.0, um = u - 1.0, um2 = u - 2.0;
+  const Real w[4] = {-u * um * um2 / 6.0, up * um * um2 / 2.0, -up * u * um2 / 2.0, up * u * um / 6.0};
   SlabRemainders result;
   for (int i = 0; i < 4; ++i) {
-    // Lagrange weight of node first + i at x.
-    Real w = 1.0;
-    for (int m = 0; m < 4; ++m)
-      if (m != i) w *= (x - (first + m)) / Real(i - m);
-    result.vector += w * values[first + i].vector;
-    result.scalar += w * values[first + i].scalar;
+    result.vector += w[i] * values[first + i].vector;
+    result.scalar += w[i] * values[first + i].scalar;
   }
   return result;
 }

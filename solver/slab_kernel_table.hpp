@@ -34,6 +34,9 @@ class SlabKernelTable {
   const SlabSpectrum& quasi_static() const { return m_quasi_static; }
   /// The remainders at 0 ≤ ρ ≤ largest_distance.
   SlabRemainders remainder(Real rho) const;
+  /// The same at `count` ≤ 64 distances at once, their phases in one vectorised call (the
+  /// fill asks 49 at a time).
+  void remainders(const Real* rho, int count, SlabRemainders* out) const;
   /// The radius up to which the complex images were used, m.
   Real images_reach() const { return m_images_reach; }
   /// How many tabulated points there are.

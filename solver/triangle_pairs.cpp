@@ -13,9 +13,14 @@ void add_slab_remainders(const SlabKernelTable& table, const TriangleQuadrature&
   constexpr int n = TriangleQuadrature::points;
   Complex s = 0.0, s_vector = 0.0, s_xy = 0.0;
   Eigen::Vector3cd s_x = Eigen::Vector3cd::Zero(), s_y = Eigen::Vector3cd::Zero();
+  Real distance[n * n];
+  SlabRemainders remainders[n * n];
+  for (int a = 0; a < n; ++a)
+    for (int b = 0; b < n; ++b) distance[a * n + b] = (p.x[a] - q.x[b]).norm();
+  table.remainders(distance, n * n, remainders);
   for (int a = 0; a < n; ++a)
     for (int b = 0; b < n; ++b) {
-      const SlabRemainders r = table.remainder((p.x[a] - q.x[b]).norm());
+      const SlabRemainders& r = remainders[a * n + b];
       const Real w = p.w[a] * q.w[b];
       s += w * r.scalar;
       const Complex v = w * r.vector;
