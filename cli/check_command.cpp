@@ -46,6 +46,10 @@ int check_command(const std::string& model_path, const std::vector<std::string>&
   std::printf("%s from %s to %s; ground %s; %s\n", count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
               frequency_text(model.frequencies_hz.front()).c_str(), frequency_text(model.highest_frequency()).c_str(),
               problem.medium.name().c_str(), count_text(problem.mesh.warnings.size() + problem.surfaces.warnings.size(), "warning").c_str());
+  if (const auto& board = model.substrate)
+    std::printf("substrate %s: %.4g mm thick, relative permittivity %.4g, loss tangent %.4g, modelled as an infinite "
+                "board on an infinite ground\n",
+                board->name.c_str(), board->thickness * 1e3, board->permittivity, board->loss_tangent);
   print_long_run_estimate(problem.unknowns(), static_cast<double>(model.frequencies_hz.size()));
   return 0;
 }

@@ -106,6 +106,12 @@ void write_model(hid_t file, const RunRecord& run) {
   write_ints(g, "value_overridden", {overridden.size()}, overridden);
   string_attribute(g, "file", model.file);
   string_attribute(g, "ground", run.problem.medium.name());
+  if (const auto& board = model.substrate) {
+    string_attribute(g, "substrate", board->name);
+    write_reals(g, "substrate_thickness_m", {1}, {board->thickness}, "m");
+    write_reals(g, "substrate_permittivity", {1}, {board->permittivity}, "1");
+    write_reals(g, "substrate_loss_tangent", {1}, {board->loss_tangent}, "1");
+  }
   write_reals(g, "reference_ohm", {1}, {model.reference_ohm}, "ohm");
   std::vector<std::string> band_names;
   std::vector<Real> band_edges;

@@ -8,7 +8,8 @@ namespace lobe {
 
 /// Layout (arrays indexed frequency first; every numeric dataset has a "unit" attribute):
 ///   /frequency_hz
-///   /model/source, /model/value_names, /model/values, /model/value_units
+///   /model/source, /model/value_names, /model/values, /model/value_units, and on a substrate
+///   /model/substrate_{thickness_m, permittivity, loss_tangent} with its name as an attribute
 ///   /ports/names, /ports/{resistance_ohm, reactance_ohm, vswr, return_loss_db, ...}
 ///   /ports/{z_matrix,s_matrix}_{re,im}           [f, port, port]
 ///   /power/{accepted_w, radiated_w, conductor_loss_w, load_loss_w, surface_wave_w, dielectric_loss_w,

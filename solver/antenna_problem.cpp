@@ -229,6 +229,11 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
       geometry(std::make_shared<const FillGeometry>(mesh, surfaces.mesh, stars, medium)),
       samples(basis_samples(mesh, basis, surfaces.mesh, rwg, stars)) {
   for (MeshWarning& w : check_frequency_limits(m, medium, mesh, surfaces.mesh)) mesh.warnings.push_back(std::move(w));
+  if (m.substrate)
+    mesh.warnings.push_back(
+        {m.substrate->where, "substrate '" + m.substrate->name + "' and its ground are modelled as infinite: a real "
+                             "board's edges radiate and reflect its surface waves, which moves the gain, the back "
+                             "lobe and a little of the match, the more so on a board under a few wavelengths across"});
   require_current_at_gaps(mesh, attached(node_vertex));
   if (unknowns() == 0) throw InputError({m.file, 1, 1}, "the model has no place for current to flow (no unknowns)");
   port_vectors.resize(unknowns(), static_cast<Eigen::Index>(m.ports.size()));
