@@ -126,13 +126,20 @@ std::string run_summary(const RunRecord& run) {
                            port.return_loss_db, port.driven ? "" : "  (0 V: self impedance)");
     }
   out += "\n";
-  out += formatted("%-14s %11s %15s %12s %7s %10s\n", "frequency", "peak (dBi)", "at theta/phi", "AR (dB)", "hand",
-                       "efficiency");
+  // On a substrate, where the power that does not radiate goes: surface waves and the dielectric.
+  const bool board = model.substrate.has_value();
+  out += formatted("%-14s %11s %15s %12s %7s %10s%s\n", "frequency", "peak (dBi)", "at theta/phi", "AR (dB)", "hand",
+                   "efficiency", board ? "  surface waves  dielectric" : "");
   for (const auto& r : run.results) {
     const std::string direction = formatted("%.0f/%.0f deg", r.peak_theta * 180 / pi, r.peak_phi * 180 / pi);
-    out += formatted("%-14s %11.2f %15s %12.2f %7s %9.1f%%%s\n", frequency_text(r.frequency_hz).c_str(),
-                         r.peak_gain_dbi, direction.c_str(), r.peak_axial_ratio_db, hand_name(r.peak_hand),
-                         100.0 * r.power.efficiency(), std::abs(r.power.imbalance()) > power_balance_warning ? " !" : "");
+    const Real accepted = r.power.accepted > 0.0 ? r.power.accepted : 1.0;
+    const std::string losses =
+        board ? formatted(" %14.1f%% %10.1f%%", 100.0 * r.power.surface_wave / accepted, 100.0 * r.power.dielectric_loss / accepted)
+              : std::string();
+    out += formatted("%-14s %11.2f %15s %12.2f %7s %9.1f%%%s%s\n", frequency_text(r.frequency_hz).c_str(),
+                     r.peak_gain_dbi, direction.c_str(), r.peak_axial_ratio_db, hand_name(r.peak_hand),
+                     100.0 * r.power.efficiency(), losses.c_str(),
+                     std::abs(r.power.imbalance()) > power_balance_warning ? " !" : "");
   }
   for (const std::string& w : power_balance_warnings(run)) out += "! " + w + "\n";
 

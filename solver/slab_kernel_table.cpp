@@ -119,8 +119,9 @@ SlabRemainders SlabKernelTable::remainder(Real rho) const {
 }
 
 std::shared_ptr<const SlabKernelTable> shared_slab_kernel_table(const GroundedSlab& slab, Real largest_distance) {
-  // A sweep of a few hundred cases over one band needs as many tables as frequencies.
-  constexpr std::size_t kept = 512;
+  // A sweep over one band needs as many tables as it has frequencies; a table is tens of KiB
+  // for a patch, a few MiB for a board many wavelengths across.
+  constexpr std::size_t kept = 256;
   static std::mutex guard;
   static std::deque<std::shared_ptr<const SlabKernelTable>> tables;
   const auto same = [&](const SlabKernelTable& t) {

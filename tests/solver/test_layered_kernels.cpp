@@ -291,5 +291,17 @@ TEST(GroundedSlab, FarFieldFactorsMatchImageTheoryAndTheSpectrum) {
   }
 }
 
+// A sweep's cases share their tables: the same slab and frequency give the same table
+// (one reaching at least as far serves a shorter request); another frequency, another one.
+TEST(SlabKernelTable, TablesAreMadeOnceAndShared) {
+  const Real k0 = 2 * pi * 2.4e9 / speed_of_light;
+  const GroundedSlab slab{1.6e-3, Complex(4.4, -0.088), k0};
+  const auto first = shared_slab_kernel_table(slab, 0.05);
+  EXPECT_EQ(shared_slab_kernel_table(slab, 0.05), first);
+  EXPECT_EQ(shared_slab_kernel_table(slab, 0.04), first);
+  EXPECT_NE(shared_slab_kernel_table(slab, 0.06), first);
+  EXPECT_NE(shared_slab_kernel_table({1.6e-3, Complex(4.4, -0.088), 1.01 * k0}, 0.05), first);
+}
+
 }  // namespace
 }  // namespace lobe
