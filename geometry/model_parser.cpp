@@ -43,6 +43,8 @@ std::string si_unit_text(const Dimension& d) {
 /// Bounds on every length in a model, m (see ModelParser::length and positive_length).
 constexpr Real largest_length = 1e5;
 constexpr Real smallest_length = 1e-7;
+/// The thinnest substrate, m (thin flexible laminates are 25 um and more).
+constexpr Real thinnest_board = 10e-6;
 
 /// Where a named object sits: in Model::wires or Model::surfaces, at `index`.
 struct ObjectIndex {
@@ -634,7 +636,13 @@ class ModelParser {
     board.where = keyword.where;
     board.name = c.expect_name("a substrate name").text;
     c.expect_word("thickness", "after the substrate name");
+    const Token& thickness_at = c.peek();
     board.thickness = positive_length(c, "the thickness");
+    // Below this the quasi-static images the fill integrates one by one (depths 2nh within
+    // two triangle sizes) run into the hundreds; no circuit board is this thin.
+    if (board.thickness < thinnest_board)
+      throw InputError(thickness_at.where, "the thickness must be at least " + number_text(thinnest_board * 1e6) +
+                                               " um, got " + number_text(board.thickness * 1e6) + " um");
     c.expect_word("permittivity", "after the thickness");
     const Token& at = c.peek();
     board.permittivity = quantity_in(c, dimension::none, 1.0, "a relative permittivity").value;

@@ -61,10 +61,14 @@ SlabKernelTable::SlabKernelTable(const GroundedSlab& slab, Real largest_distance
     : m_slab(slab), m_quasi_static(quasi_static_coefficients(slab)), m_reach(largest_distance) {
   const Real k0 = slab.k0, wavelength = 2.0 * pi / k0;
   const Real far_scale = 1.0 / (k0 * std::sqrt(std::abs(slab.permittivity)));
-  m_near.step = std::min(slab.thickness, far_scale) / near_points_per_scale;
-  m_far.step = far_scale / far_points_per_scale;
-  m_near_end = std::min(std::max({near_thicknesses * slab.thickness, wavelength, 3.0 * m_far.step}), largest_distance);
-  const Real end = largest_distance + 3.0 * m_far.step;
+  Grid &near = m_grids[0], &middle = m_grids[1], &far = m_grids[2];
+  near.step = std::min(slab.thickness, far_scale) / near_points_per_scale;
+  middle.step = far_scale / near_points_per_scale;
+  far.step = far_scale / far_points_per_scale;
+  near.end = std::min(std::max(near_thicknesses * slab.thickness, 3.0 * middle.step), largest_distance);
+  middle.end = std::min(std::max(wavelength, near.end), largest_distance);
+  const Real end = largest_distance + 3.0 * far.step;
+  far.end = end;
   const SlabKernels kernels = slab_kernels(slab);
   const Sommerfeld sommerfeld(slab);
   const auto images = [&](Real rho) -> SlabRemainders {
@@ -72,7 +76,7 @@ SlabKernelTable::SlabKernelTable(const GroundedSlab& slab, Real largest_distance
   };
 
   // The images' reach: check radii from half a wavelength, a quarter further each time.
-  m_images_reach = near_points * m_near.step;
+  m_images_reach = near_points * near.step;
   for (Real rho = std::min(0.5 * wavelength, end); m_images_reach < end; rho = std::min(1.25 * rho, end)) {
     const SlabRemainders a = images(rho), b = sommerfeld(rho);
     const Complex direct = std::polar(1.0 / (4.0 * pi * rho), -k0 * rho);
@@ -82,26 +86,29 @@ SlabKernelTable::SlabKernelTable(const GroundedSlab& slab, Real largest_distance
     m_images_reach = rho;
   }
 
-  const auto fill = [&](Grid& grid, Real grid_end) {
-    grid.values.resize(static_cast<std::size_t>(std::ceil(grid_end / grid.step)) + 4);
-    for (std::size_t i = 0; i < grid.values.size(); ++i) {
+  Real read_from = 0.0;
+  for (Grid& grid : m_grids) {
+    // A grid is read from the previous one's end, and its four-point stencil reaches one
+    // step below that: the points nearer ρ = 0 are never read and stay zero.
+    grid.values.resize(static_cast<std::size_t>(std::ceil(grid.end / grid.step)) + 4);
+    const auto first = static_cast<std::size_t>(std::max(0.0, std::floor(read_from / grid.step) - 2.0));
+    read_from = std::max(read_from, grid.end);
+    for (std::size_t i = first; i < grid.values.size(); ++i) {
       const Real rho = static_cast<Real>(i) * grid.step;
       // ρ = 0 itself is read a thousandth of a step out: the remainder is flat there.
-      const SlabRemainders value = rho < near_points * m_near.step ? sommerfeld(std::max(rho, 1e-3 * m_near.step))
+      const SlabRemainders value = rho < near_points * near.step ? sommerfeld(std::max(rho, 1e-3 * near.step))
                                    : rho <= m_images_reach          ? images(rho)
                                                                     : sommerfeld(rho);
       const Complex demodulation = std::polar(1.0, k0 * rho);
       grid.values[i] = {value.vector * demodulation, value.scalar * demodulation};
     }
-  };
-  fill(m_near, m_near_end);
-  fill(m_far, end);
+  }
 }
 
 void SlabKernelTable::remainders(const Real* rho, int count, SlabRemainders* out) const {
   Real phase[64], sine[64], cosine[64];
   for (int i = 0; i < count; ++i) {
-    out[i] = rho[i] < m_near_end ? m_near.at(rho[i]) : m_far.at(rho[i]);
+    out[i] = demodulated(rho[i]);
     phase[i] = m_slab.k0 * rho[i];
   }
   sine_cosine(phase, sine, cosine, count);
@@ -113,9 +120,9 @@ void SlabKernelTable::remainders(const Real* rho, int count, SlabRemainders* out
 }
 
 SlabRemainders SlabKernelTable::remainder(Real rho) const {
-  const SlabRemainders demodulated = rho < m_near_end ? m_near.at(rho) : m_far.at(rho);
+  const SlabRemainders value = demodulated(rho);
   const Complex modulation = std::polar(1.0, -m_slab.k0 * rho);
-  return {demodulated.vector * modulation, demodulated.scalar * modulation};
+  return {value.vector * modulation, value.scalar * modulation};
 }
 
 std::shared_ptr<const SlabKernelTable> shared_slab_kernel_table(const GroundedSlab& slab, Real largest_distance) {

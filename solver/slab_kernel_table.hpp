@@ -2,9 +2,10 @@
 /// The grounded slab's kernels tabulated once per frequency for the fill, which reads them
 /// at millions of distances. Stored are the remainders, each kernel less its quasi-static
 /// direct term q e^{−jk0ρ}/(4πρ) (the fill integrates that term as in free space): they are
-/// finite at ρ = 0 and smooth, on two uniform grids read by four-point Lagrange
-/// interpolation: a fine one out to 40 slab thicknesses or a wavelength, where the remainders vary
-/// on the thickness's scale, and a coarse one on the wavelength's scale beyond.
+/// finite at ρ = 0 and smooth, on three uniform grids read by four-point Lagrange
+/// interpolation: one on the thickness's scale out to 40 thicknesses, where the remainders
+/// vary on that scale, one on the dielectric wavelength's scale out to a wavelength, and a
+/// coarser one beyond.
 /// The complex images fill the table where they agree with Sommerfeld integration (checked
 /// at radii out to the table's end while it is made); Sommerfeld integration fills the rest:
 /// next to ρ = 0, where the images cannot follow the surface wave's logarithm, and beyond
@@ -40,20 +41,26 @@ class SlabKernelTable {
   /// The radius up to which the complex images were used, m.
   Real images_reach() const { return m_images_reach; }
   /// How many tabulated points there are.
-  int size() const { return static_cast<int>(m_near.values.size() + m_far.values.size()); }
+  int size() const {
+    return static_cast<int>(m_grids[0].values.size() + m_grids[1].values.size() + m_grids[2].values.size());
+  }
 
  private:
   struct Grid {
     Real step = 0.0;
+    Real end = 0.0;  ///< read below this radius (the last grid: everywhere beyond the others)
     std::vector<SlabRemainders> values;
     SlabRemainders at(Real rho) const;
   };
+  /// The demodulated remainders from the grid that covers ρ.
+  SlabRemainders demodulated(Real rho) const {
+    return rho < m_grids[0].end ? m_grids[0].at(rho) : rho < m_grids[1].end ? m_grids[1].at(rho) : m_grids[2].at(rho);
+  }
   GroundedSlab m_slab;
   SlabSpectrum m_quasi_static;
   Real m_images_reach = 0.0;
-  Real m_near_end = 0.0;
   Real m_reach = 0.0;
-  Grid m_near, m_far;
+  Grid m_grids[3];  ///< thickness scale, wavelength scale, beyond
 };
 
 /// The table for `slab` reaching at least `largest_distance`, made once and kept: the

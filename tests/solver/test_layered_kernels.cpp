@@ -303,5 +303,13 @@ TEST(SlabKernelTable, TablesAreMadeOnceAndShared) {
   EXPECT_NE(shared_slab_kernel_table({1.6e-3, Complex(4.4, -0.088), 1.01 * k0}, 0.05), first);
 }
 
+// The thickness's fine scale is tabulated only out to 40 thicknesses: a 10 um board under a
+// 5 cm structure once asked for 80,000 points of it (a run that did not finish).
+TEST(SlabKernelTable, AThinBoardNeedsFewPoints) {
+  const Real k0 = 2 * pi * 2.4e9 / speed_of_light;
+  const SlabKernelTable table({10e-6, 4.4, k0}, 0.05);
+  EXPECT_LT(table.size(), 5000);
+}
+
 }  // namespace
 }  // namespace lobe
