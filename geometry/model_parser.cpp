@@ -648,8 +648,11 @@ class ModelParser {
     board.permittivity = quantity_in(c, dimension::none, 1.0, "a relative permittivity").value;
     if (!(board.permittivity >= 1.0 && board.permittivity <= 100.0))
       throw InputError(at.where, "the relative permittivity must be from 1 to 100, got " + number_text(board.permittivity));
-    // "loss-tangent" is three tokens: the lexer reads '-' as a symbol.
-    if (c.peek_word("loss") && c.peek(1).text == "-" && c.peek_word("tangent", 2)) {
+    // "loss-tangent" is three tokens (the lexer reads '-' as a symbol), written without spaces.
+    const auto adjacent = [&](std::size_t ahead) {
+      return c.peek(ahead + 1).where.column == c.peek(ahead).where.column + static_cast<int>(c.peek(ahead).text.size());
+    };
+    if (c.peek_word("loss") && c.peek(1).text == "-" && c.peek_word("tangent", 2) && adjacent(0) && adjacent(1)) {
       c.next();
       c.next();
       c.next();

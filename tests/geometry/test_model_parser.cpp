@@ -161,6 +161,8 @@ TEST(ModelParser, SubstrateStatement) {
             std::string::npos);
   EXPECT_NE(error_of("substrate s thickness 0 mm permittivity 3\n").find("the thickness must be above zero"),
             std::string::npos);
+  EXPECT_EQ(error_of("substrate s thickness 1 mm permittivity 3 loss - tangent 0.1\n"),
+            "m.lobe:1:43: unexpected 'loss' after the statement");
   EXPECT_EQ(error_of("substrate s thickness 5 um permittivity 3\n"),
             "m.lobe:1:23: the thickness must be at least 10 um, got 5 um");
 }
