@@ -25,11 +25,7 @@ FarField::FarField(const AntennaProblem& problem, const FrequencySolution& solut
   for (const ImageSource& image : m_images) m_centre = 0.5 * (m_centre + image.point(m_centre));
   if (m_slab) m_centre.z() = 0.0;
 
-  for (const BasisSample& sample : problem.samples) {
-    Eigen::Vector3cd moment = Eigen::Vector3cd::Zero();
-    for (const BasisWeight& w : sample.weights) moment += solution.coefficients[w.basis] * w.moment.cast<Complex>();
-    add_source(sample.r, moment);
-  }
+  for (const BasisSample& sample : problem.samples) add_source(sample.r, sample.moment(solution.coefficients));
 }
 
 void FarField::add_point(const Vec3& x, const Eigen::Vector3cd& moment) {

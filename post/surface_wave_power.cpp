@@ -15,10 +15,8 @@ Real surface_wave_power(const AntennaProblem& problem, const FrequencySolution& 
   std::vector<Eigen::Vector3cd> moments;
   Real extent = 0.0;
   for (const BasisSample& sample : problem.samples) {
-    Eigen::Vector3cd moment = Eigen::Vector3cd::Zero();
-    for (const BasisWeight& w : sample.weights) moment += solution.coefficients[w.basis] * w.moment.cast<Complex>();
     points.push_back(sample.r);
-    moments.push_back(moment);
+    moments.push_back(sample.moment(solution.coefficients));
     extent = std::max(extent, std::hypot(sample.r.x(), sample.r.y()));
   }
   Real power = 0.0;

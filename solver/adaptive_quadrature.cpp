@@ -21,44 +21,59 @@ constexpr std::array<Real, 8> kronrod_weights = {
 constexpr std::array<Real, 4> gauss_weights = {0.129484966168869693270611432679082, 0.279705391489276667901467771423780,
                                                0.381830050505118944950369775488975, 0.417959183673469387755102040816327};
 
+Real magnitude(const Complex& v) { return std::abs(v); }
+Real magnitude(const Eigen::Vector2cd& v) { return v.norm(); }
+
+template <class Value>
 struct Piece {
   Real a, b;
-  Complex value;
+  Value value;
   Real error;
   bool operator<(const Piece& other) const { return error < other.error; }
 };
 
-Piece kronrod(const std::function<Complex(Real)>& f, Real a, Real b) {
+template <class Value>
+Piece<Value> kronrod(const std::function<Value(Real)>& f, Real a, Real b) {
   const Real centre = 0.5 * (a + b), half = 0.5 * (b - a);
-  const Complex middle = f(centre);
-  Complex k15 = kronrod_weights[7] * middle, g7 = gauss_weights[3] * middle;
+  const Value middle = f(centre);
+  Value k15 = kronrod_weights[7] * middle, g7 = gauss_weights[3] * middle;
   for (int i = 0; i < 7; ++i) {
-    const Complex sum = f(centre - half * kronrod_nodes[i]) + f(centre + half * kronrod_nodes[i]);
+    const Value sum = f(centre - half * kronrod_nodes[i]) + f(centre + half * kronrod_nodes[i]);
     k15 += kronrod_weights[i] * sum;
     if (i % 2 == 1) g7 += gauss_weights[i / 2] * sum;
   }
-  return {a, b, half * k15, std::abs(half * (k15 - g7))};
+  return {a, b, half * k15, magnitude(Value(half * (k15 - g7)))};
 }
 
-}  // namespace
-
-Complex integrate_adaptive(const std::function<Complex(Real)>& f, Real a, Real b, Real relative, Real absolute) {
-  std::priority_queue<Piece> pieces;
-  Piece whole = kronrod(f, a, b);
-  Complex total = whole.value;
+template <class Value>
+Value integrate(const std::function<Value(Real)>& f, Real a, Real b, Real relative, Real absolute) {
+  std::priority_queue<Piece<Value>> pieces;
+  const Piece<Value> whole = kronrod(f, a, b);
+  Value total = whole.value;
   Real error = whole.error;
   pieces.push(whole);
-  for (int used = 1; used < 4000 && error > std::max(absolute, relative * std::abs(total)); ++used) {
-    const Piece worst = pieces.top();
+  for (int used = 1; used < 4000 && error > std::max(absolute, relative * magnitude(total)); ++used) {
+    const Piece<Value> worst = pieces.top();
     pieces.pop();
     const Real middle = 0.5 * (worst.a + worst.b);
-    const Piece left = kronrod(f, worst.a, middle), right = kronrod(f, middle, worst.b);
+    const Piece<Value> left = kronrod(f, worst.a, middle), right = kronrod(f, middle, worst.b);
     total += left.value + right.value - worst.value;
     error += left.error + right.error - worst.error;
     pieces.push(left);
     pieces.push(right);
   }
   return total;
+}
+
+}  // namespace
+
+Complex integrate_adaptive(const std::function<Complex(Real)>& f, Real a, Real b, Real relative, Real absolute) {
+  return integrate(f, a, b, relative, absolute);
+}
+
+Eigen::Vector2cd integrate_adaptive(const std::function<Eigen::Vector2cd(Real)>& f, Real a, Real b, Real relative,
+                                    Real absolute) {
+  return integrate(f, a, b, relative, absolute);
 }
 
 Complex wynn_epsilon_limit(const std::vector<Complex>& partial) {

@@ -12,6 +12,9 @@ namespace lobe {
 /// ∫_a^b f(t) dt, bisecting the interval of largest error estimate until the estimated
 /// error is below max(absolute, relative · |integral|) or 4,000 intervals are used.
 Complex integrate_adaptive(const std::function<Complex(Real)>& f, Real a, Real b, Real relative, Real absolute = 0.0);
+/// The same for two integrands sharing their points (|·| the Euclidean norm of the pair).
+Eigen::Vector2cd integrate_adaptive(const std::function<Eigen::Vector2cd(Real)>& f, Real a, Real b, Real relative,
+                                    Real absolute = 0.0);
 
 /// The limit of the partial sums `partial`, accelerated by Wynn's ε algorithm (the last
 /// even column's newest entry).

@@ -23,6 +23,12 @@ struct BasisWeight {
 struct BasisSample {
   Vec3 r;
   std::vector<BasisWeight> weights;
+  /// The current moment here, A·m, for the basis coefficients of a solution.
+  Eigen::Vector3cd moment(const ComplexVector& coefficients) const {
+    Eigen::Vector3cd sum = Eigen::Vector3cd::Zero();
+    for (const BasisWeight& w : weights) sum += coefficients[w.basis] * w.moment.cast<Complex>();
+    return sum;
+  }
 };
 
 /// Six Gauss points per segment (exact to rounding for the linear current times the phase

@@ -37,16 +37,15 @@ class Sommerfeld {
 
   SlabRemainders operator()(Real rho) const {
     const Real k0 = m_slab.k0;
-    const auto remainder = [&](bool vector) {
-      return sommerfeld_integral(
-          [&](Complex k_rho) {
-            const SlabSpectrum s = slab_spectrum(m_slab, k_rho);
-            const Complex free = 0.5 / std::sqrt(k_rho * k_rho - k0 * k0);
-            return vector ? s.vector - m_quasi_static.vector * free : s.scalar - m_quasi_static.scalar * free;
-          },
-          rho, m_path, 1e-9);
-    };
-    return {remainder(true), remainder(false)};
+    // Both kernels in one pass: they share the spectrum's evaluation and the Bessel function.
+    const Eigen::Vector2cd both = sommerfeld_integral(
+        [&](Complex k_rho) -> Eigen::Vector2cd {
+          const SlabSpectrum s = slab_spectrum(m_slab, k_rho);
+          const Complex free = 0.5 / std::sqrt(k_rho * k_rho - k0 * k0);
+          return {s.vector - m_quasi_static.vector * free, s.scalar - m_quasi_static.scalar * free};
+        },
+        rho, m_path, 1e-9);
+    return {both[0], both[1]};
   }
 
  private:
@@ -120,9 +119,9 @@ void SlabKernelTable::remainders(const Real* rho, int count, SlabRemainders* out
 }
 
 SlabRemainders SlabKernelTable::remainder(Real rho) const {
-  const SlabRemainders value = demodulated(rho);
-  const Complex modulation = std::polar(1.0, -m_slab.k0 * rho);
-  return {value.vector * modulation, value.scalar * modulation};
+  SlabRemainders value;
+  remainders(&rho, 1, &value);
+  return value;
 }
 
 std::shared_ptr<const SlabKernelTable> shared_slab_kernel_table(const GroundedSlab& slab, Real largest_distance) {

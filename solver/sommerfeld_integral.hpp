@@ -20,5 +20,8 @@ struct SommerfeldPath {
 /// axis beyond a (subtract its quasi-static part first).
 Complex sommerfeld_integral(const std::function<Complex(Complex)>& spectrum, Real rho, const SommerfeldPath& path,
                             Real relative = 1e-9);
+/// The same for two spectra at once, sharing the Bessel function and the points.
+Eigen::Vector2cd sommerfeld_integral(const std::function<Eigen::Vector2cd(Complex)>& spectra, Real rho,
+                                     const SommerfeldPath& path, Real relative = 1e-9);
 
 }  // namespace lobe

@@ -102,9 +102,8 @@ PatchDesign design(const PatchCase& c) {
   const Real h = c.height_mm * 1e-3;
   const Real width = speed_of_light / (2 * c.design_hz) * std::sqrt(2 / (c.permittivity + 1));
   const Real effective = effective_permittivity(width, h, c.permittivity);
-  const Real extension =
-      0.412 * h * (effective + 0.3) * (width / h + 0.264) / ((effective - 0.258) * (width / h + 0.8));
-  const Real length = speed_of_light / (2 * c.design_hz * std::sqrt(effective)) - 2 * extension;
+  const Real length =
+      speed_of_light / (2 * c.design_hz * std::sqrt(effective)) - 2 * fringing_extension(width, h, c.permittivity);
   return {width * 1e3, length * 1e3, transmission_line_resonance_hz(length, width, h, c.permittivity)};
 }
 
