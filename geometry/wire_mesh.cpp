@@ -426,7 +426,9 @@ class Mesher {
     for (const auto& s : m_mesh.segments) {
       const Wire& wire = m_model.wires[s.wire];
       const Real ratio = s.length() / s.radius;
-      if (ratio < thin_wire_ratio && !warned_short[s.wire]) {
+      // A probe through a substrate carries a uniform current, with no charge along it to
+      // misplace: its radius is held to under half the board's thickness instead.
+      if (ratio < thin_wire_ratio && !warned_short[s.wire] && !m_model.substrate) {
         warned_short[s.wire] = true;
         warn(wire.where, "wire '" + wire.name + "': a segment is only " + format(ratio) +
                              " radii long; below " + format(thin_wire_ratio) +

@@ -26,6 +26,11 @@ FarField::FarField(const AntennaProblem& problem, const FrequencySolution& solut
   if (m_slab) m_centre.z() = 0.0;
 
   for (const BasisSample& sample : problem.samples) add_source(sample.r, sample.moment(solution.coefficients));
+  for (const Probe& probe : problem.probes) {
+    const Vec3 foot = probe.foot - m_centre;
+    m_probes.push_back({foot.x(), foot.y(), solution.coefficients[probe.basis]});
+    m_extent = std::max(m_extent, foot.norm());
+  }
 }
 
 void FarField::add_point(const Vec3& x, const Eigen::Vector3cd& moment) {
@@ -77,6 +82,13 @@ FarFieldSample FarField::at(Real theta, Real phi) const {
     const SlabFarFieldFactors t = slab_far_field_factors(*m_slab, theta);
     e.e_theta *= t.tm;
     e.e_phi *= t.te;
+    // A probe's vertical current radiates through the slab by its own spectrum; its far-zone
+    // A_z is μ0/(4π) times the length below (the phase is referred to its foot on the ground).
+    if (!m_probes.empty()) {
+      Complex sum = 0.0;
+      for (const ProbeCurrent& p : m_probes) sum += p.current * std::polar(1.0, rx * p.x + ry * p.y);
+      e.e_theta += factor * (-st) * probe_far_field_length(*m_slab, theta) * sum;
+    }
   }
   return e;
 }

@@ -40,6 +40,12 @@ class FarField {
   std::vector<ImageSource> m_images;
   bool m_ground = false;
   std::optional<GroundedSlab> m_slab;  ///< on a substrate: the currents lie on its top face
+  /// On a substrate, each probe's foot (relative to the phase centre) and current.
+  struct ProbeCurrent {
+    Real x, y;
+    Complex current;
+  };
+  std::vector<ProbeCurrent> m_probes;
   Vec3 m_centre = Vec3::Zero();
   Real m_extent = 0.0;
   /// Quadrature points relative to m_centre (m), and current × direction × weight (A·m),

@@ -5,6 +5,7 @@
 #include <cstdio>
 
 #include "core/check.hpp"
+#include "core/constants.hpp"
 #include "geometry/surface_contact.hpp"
 #include "solver/assembly.hpp"
 #include "solver/excitation.hpp"
@@ -82,16 +83,12 @@ int shape_index(const Model& model, const std::string& name) {
   return -1;
 }
 
-/// What a substrate model may hold for now: plates printed on the board's top face, fed
-/// by port lines. A wire (a probe or via through the slab, or a wire in the air above it)
-/// needs the slab's kernels for vertical currents, and a plane wave its reflection; both
-/// are refused rather than computed with the wrong Green's function.
+/// What a substrate model may hold: plates printed on the board's top face, fed by port
+/// lines or by probes. Wires in the air above the board and plane waves need the slab's
+/// kernels for sources and observers off its face, and are refused rather than computed
+/// with the wrong Green's function.
 void check_on_substrate(const Model& model, const SurfaceMeshReport& surfaces) {
   const Substrate& board = *model.substrate;
-  if (!model.wires.empty())
-    throw InputError(model.wires.front().where,
-                     "wire '" + model.wires.front().name + "' on a substrate model: probes, vias and wires above "
-                     "the board are not modelled yet; feed the printed plates with a port line across a gap");
   if (model.wave)
     throw InputError(model.wave->where, "plane waves on a substrate model are not modelled yet");
   const Real tolerance = 1e-6 * board.thickness;
@@ -103,6 +100,60 @@ void check_on_substrate(const Model& model, const SurfaceMeshReport& surfaces) {
                                           "' (z = " + millimetres(board.thickness) +
                                           "); only plates printed on the board's top face are modelled");
       }
+}
+
+/// A probe's current is taken as uniform from the ground to the plate: true within a few
+/// per cent while the board is thinner than this fraction of the wavelength in it.
+constexpr Real thickest_probe_in_wavelengths = 0.05;
+
+/// Every wire on a substrate must be a probe: straight up from the ground through the
+/// board to a plate on its top face, one segment, electrically short at the highest
+/// frequency.
+std::vector<Probe> probes_of(const Model& model, const WireMesh& mesh, const std::vector<int>& node_vertex) {
+  std::vector<Probe> probes;
+  if (!model.substrate) return probes;
+  const Substrate& board = *model.substrate;
+  const Real tolerance = 1e-6 * board.thickness;
+  const auto is_probe_line = [&](const Vec3& from, const Vec3& to) {
+    return std::abs(from.x() - to.x()) <= tolerance && std::abs(from.y() - to.y()) <= tolerance &&
+           std::abs(from.z()) <= tolerance && std::abs(to.z() - board.thickness) <= tolerance;
+  };
+  // Every wire first, so that a wire above the board is named as such, not as a probe's
+  // neighbour.
+  std::vector<int> segments_of(model.wires.size(), 0);
+  for (const Segment& seg : mesh.segments) ++segments_of[seg.wire];
+  for (const Segment& seg : mesh.segments) {
+    const Wire& wire = model.wires[seg.wire];
+    const Segment* last = &seg;
+    while (last + 1 <= &mesh.segments.back() && (last + 1)->wire == seg.wire) ++last;
+    if (!is_probe_line(seg.start, seg.end) && !is_probe_line(seg.start, last->end))
+      throw InputError(wire.where, "wire '" + wire.name + "' on substrate '" + board.name +
+                                       "': only probes are modelled, straight up from the ground (z = 0) to a plate on "
+                                       "the top face (z = " + millimetres(board.thickness) +
+                                       "); wires in the air above the board are not modelled yet");
+    if (segments_of[seg.wire] > 1)
+      throw InputError(wire.where, "probe '" + wire.name + "' must be one segment: its current is taken as uniform "
+                                   "through the board (remove 'segments')");
+  }
+  for (std::size_t s = 0; s < mesh.segments.size(); ++s) {
+    const Segment& seg = mesh.segments[s];
+    const Wire& wire = model.wires[seg.wire];
+    if (node_vertex[seg.node[1]] < 0)
+      throw InputError(wire.where, "probe '" + wire.name + "' does not end on a plate printed on the top face");
+    if (mesh.nodes[seg.node[1]].ends.size() != 1)
+      throw InputError(wire.where, "probe '" + wire.name + "' shares its top with another wire; one probe per point");
+    if (seg.radius >= 0.5 * board.thickness)
+      throw InputError(wire.where, "probe '" + wire.name + "' is too thick for its board: its radius (" +
+                                       millimetres(seg.radius) + ") must be under half the thickness for the thin-wire model");
+    const Real wavelength_in_board = speed_of_light / (model.highest_frequency() * std::sqrt(board.permittivity));
+    if (board.thickness > thickest_probe_in_wavelengths * wavelength_in_board)
+      throw InputError(wire.where, "probe '" + wire.name + "' through " + millimetres(board.thickness) + " of substrate '" +
+                                       board.name + "' is too long at the highest frequency: the board is more than " +
+                                       "a twentieth of the wavelength in it, where the probe's current is no longer uniform; "
+                                       "use a thinner board or feed the plate with a port line");
+    probes.push_back({static_cast<int>(s), -1, -1, seg.start, seg.radius});
+  }
+  return probes;
 }
 
 void check_surfaces_above_ground(const Model& model, const Medium& medium, const SurfaceMeshReport& surfaces) {
@@ -223,11 +274,17 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
       mesh(std::move(wires)),
       surfaces(std::move(meshed_surfaces)),
       node_vertex(attachment_vertices(m, mesh, checked_above_ground(m, medium, surfaces))),
-      basis(mesh, attached(node_vertex)),
+      basis(mesh, attached(node_vertex), m.substrate.has_value()),
       rwg(surfaces.mesh, basis.size()),
       stars(stars_of(m, mesh, surfaces, node_vertex, basis)),
       geometry(std::make_shared<const FillGeometry>(mesh, surfaces.mesh, stars, medium)),
-      samples(basis_samples(mesh, basis, surfaces.mesh, rwg, stars)) {
+      probes(probes_of(m, mesh, node_vertex)),
+      samples(basis_samples(m.substrate ? WireMesh{} : mesh, basis, surfaces.mesh, rwg, stars)) {
+  for (Probe& probe : probes) {
+    probe.basis = basis.pieces_on(probe.segment).front().basis;
+    for (std::size_t j = 0; j < stars.size(); ++j)
+      if (stars[j].bases.front() == probe.basis) probe.star = static_cast<int>(j);
+  }
   for (MeshWarning& w : check_frequency_limits(m, medium, mesh, surfaces.mesh)) mesh.warnings.push_back(std::move(w));
   if (m.substrate)
     mesh.warnings.push_back(

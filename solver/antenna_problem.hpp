@@ -18,6 +18,17 @@ namespace lobe {
 
 struct FillGeometry;
 
+/// A probe or via through a substrate: one vertical segment from the ground up to a vertex
+/// of a printed plate, carrying one uniform-current function that the junction star at its
+/// top carries on into the plate.
+struct Probe {
+  int segment = -1;
+  int basis = -1;  ///< its function (the star's)
+  int star = -1;   ///< index in AntennaProblem::stars
+  Vec3 foot = Vec3::Zero();
+  Real radius = 0.0;
+};
+
 /// Everything that does not change with frequency: the medium, meshes, bases, the fill's
 /// geometry, port and load couplings. Unknowns are the wire functions (junction functions
 /// among them) first, then the RWG functions of the surfaces. An antenna (driven at its
@@ -37,7 +48,10 @@ struct AntennaProblem {
   std::vector<JunctionStar> stars;  ///< one per wire node attached to a surface
   /// What the pair integrators need of the meshes, made once (solver/fill_geometry.hpp).
   std::shared_ptr<const FillGeometry> geometry;
+  std::vector<Probe> probes;        ///< on a substrate, every wire (each is a probe)
   /// Every basis function's current at the points the far field and the excitations share.
+  /// A probe's vertical current is not among them: inside a slab it radiates and launches
+  /// surface waves by its own spectra (solver/grounded_slab.hpp), which use `probes`.
   std::vector<BasisSample> samples;
   Eigen::MatrixXd port_vectors;     ///< N × ports: column p couples basis currents to port p
   Eigen::MatrixXd load_vectors;     ///< N × loads

@@ -18,7 +18,9 @@ FillContext::FillContext(const AntennaProblem& p, Real frequency_hz)
       scalar_factor(p.medium.scalar_factor(frequency_hz)),
       slab(p.medium.has_slab() ? shared_slab_kernel_table(p.medium.slab(frequency_hz),
                                                           structure_extent_m(p.mesh, p.surfaces.mesh, p.medium))
-                               : nullptr) {}
+                               : nullptr),
+      probe_kernels(slab && !p.probes.empty() ? std::make_shared<const ProbeKernels>(slab->slab(), slab->reach())
+                                              : nullptr) {}
 
 void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMatrix& matrix) {
   LOBE_CHECK(matrix.size() == problem.unknowns(), "system matrix of the wrong size");
@@ -35,7 +37,9 @@ void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMat
     for (int e = 0; e < elements; ++e) {
       try {
         terms.clear();
-        if (e < segments) {
+        if (e < segments && context.slab) {
+          add_probe_terms(context, e, terms);
+        } else if (e < segments) {
           add_segment_segment_terms(context, e, terms);
           add_segment_triangle_terms(context, e, terms);
         } else if (e < segments + triangles) {

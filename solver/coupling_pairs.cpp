@@ -5,6 +5,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "core/constants.hpp"
 #include "solver/gauss_legendre.hpp"
 #include "solver/pair_integrators.hpp"
 #include "solver/segment_integrals.hpp"
@@ -137,6 +138,57 @@ std::vector<SourceField> star_fields(const JunctionStar& star, const Vec3& r, Re
   return fields;
 }
 
+/// A star moved down by `depth` (to a quasi-static image of a substrate).
+JunctionStar lowered(const JunctionStar& star, Real depth) {
+  JunctionStar moved = star;
+  const Vec3 down(0.0, 0.0, depth);
+  moved.vertex -= down;
+  for (StarTriangle& t : moved.triangles) t.a -= down, t.b -= down;
+  return moved;
+}
+
+/// On a substrate, what the slab adds to a star's fields at p beyond the quasi-static direct
+/// term (which the caller has scaled): the table's remainder summed over the star's samples
+/// and, near the star, its quasi-static images integrated exactly in place of their share of
+/// those sums (they vary on the thickness's scale, finer than the samples).
+void add_slab_star_terms(const TestPoint& p, const JunctionStar& star, const FillContext& c,
+                         std::vector<MatrixContribution>& out) {
+  const std::vector<StarSample> samples = star_samples(star, duffy_order);
+  constexpr int batch = 64;
+  Complex scalar = 0.0;
+  Eigen::Vector3cd vector = Eigen::Vector3cd::Zero();
+  for (std::size_t first = 0; first < samples.size(); first += batch) {
+    const int count = static_cast<int>(std::min<std::size_t>(batch, samples.size() - first));
+    Real distance[batch];
+    SlabRemainders remainder[batch];
+    for (int i = 0; i < count; ++i) distance[i] = (p.r - samples[first + i].r).norm();
+    c.slab->remainders(distance, count, remainder);
+    for (int i = 0; i < count; ++i) {
+      scalar += samples[first + i].charge * remainder[i].scalar;
+      vector += remainder[i].vector * samples[first + i].current.cast<Complex>();
+    }
+  }
+  if ((p.r - star.vertex).norm() < 2.0 * near_in_sizes * star.radius()) {
+    for (const SlabStaticImage& image : slab_static_images(c.slab->slab().thickness, c.slab->slab().permittivity,
+                                                           near_in_sizes * star.radius())) {
+      const StarPotentials exact = star_potentials(lowered(star, image.depth), p.r, c.k);
+      Complex by_points_scalar = 0.0;
+      Eigen::Vector3cd by_points_vector = Eigen::Vector3cd::Zero();
+      for (const StarSample& s : samples) {
+        const Real r = (p.r - s.r + Vec3(0.0, 0.0, image.depth)).norm();
+        const Complex g = std::polar(1.0 / (4.0 * pi * r), -c.k * r);
+        by_points_scalar += s.charge * g;
+        by_points_vector += g * s.current.cast<Complex>();
+      }
+      scalar += image.scalar_weight * (exact.scalar - by_points_scalar);
+      vector += image.vector_weight * (exact.vector - by_points_vector);
+    }
+  }
+  std::vector<SourceField> fields;
+  for (int basis : star.bases) fields.push_back({basis, scalar, vector});
+  add_terms(p, fields, c, {}, out);
+}
+
 /// Distance from point p to the segment.
 Real distance_to_segment(const Vec3& p, const Segment& seg) {
   const Vec3 d = seg.end - seg.start;
@@ -175,7 +227,13 @@ void add_star_source_terms(const FillContext& c, int e, std::vector<MatrixContri
   const int star_count = static_cast<int>(stars.size());
   // The fields of star j and of its images at p, added as terms of p's test weights.
   auto add_star = [&](const TestPoint& p, int j, std::vector<MatrixContribution>& terms) {
-    add_terms(p, star_fields(stars[j], p.r, c.k), c, {}, terms);
+    std::vector<SourceField> direct = star_fields(stars[j], p.r, c.k);
+    if (c.slab) {
+      // The free-space fields are the quasi-static term: the scalar's coefficient is 2/(εr + 1).
+      for (SourceField& f : direct) f.scalar *= c.slab->quasi_static().scalar;
+      add_slab_star_terms(p, stars[j], c, terms);
+    }
+    add_terms(p, direct, c, {}, terms);
     for (const ImagedElements& imaged : g.images)
       add_terms(p, star_fields(imaged.stars[j], p.r, c.k), c, {imaged.image.current_sign, imaged.image.charge_sign},
                 terms);
@@ -183,6 +241,7 @@ void add_star_source_terms(const FillContext& c, int e, std::vector<MatrixContri
   for (int j = 0; j < star_count; ++j) {
     std::vector<TestPoint> points;
     if (e < segment_count) {
+      if (c.slab) return;  // a probe's vertical part: solver/probe_pairs.cpp
       const auto& pieces = c.problem.basis.pieces_on(e);
       if (pieces.empty()) return;
       const Segment& seg = c.problem.mesh.segments[e];

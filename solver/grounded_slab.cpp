@@ -91,6 +91,27 @@ SlabSpectrum slab_spectrum(const GroundedSlab& slab, Complex k_rho) {
   return {sigma / te, sigma * (u0 * c + u1_squared * sigma) / (te * tm)};
 }
 
+ProbeSpectrum probe_spectrum(const GroundedSlab& slab, Complex k_rho) {
+  const Complex u0 = proper_root(k_rho * k_rho - slab.k0 * slab.k0);
+  const Complex u1 = proper_root(k_rho * k_rho - slab.permittivity * slab.k0 * slab.k0);
+  // The same finite forms as slab_spectrum.
+  const Complex x = u1 * slab.thickness, e = std::exp(-2.0 * x);
+  const Complex sigma = std::abs(x) < 1e-4 ? slab.thickness * (2.0 - 2.0 * x + (4.0 / 3.0) * x * x) : (1.0 - e) / u1;
+  const Complex c = 1.0 + e, u1_squared = u1 * u1;
+  const Complex te = u0 * sigma + c, tm = slab.permittivity * u0 * c + u1_squared * sigma;
+  return {sigma / tm, sigma * sigma / (te * tm), u0 * sigma / (u1_squared * tm)};
+}
+
+Complex probe_far_field_length(const GroundedSlab& slab, Real theta) {
+  const Real st = std::sin(theta);
+  const Complex kz0 = slab.k0 * std::cos(theta);
+  const Complex kz1 = slab.k0 * std::sqrt(slab.permittivity - st * st);
+  const Complex x = kz1 * slab.thickness;
+  const Complex tau = std::abs(x) < 1e-4 ? slab.thickness * (1.0 + x * x / 3.0) : std::tan(x) / kz1;
+  return 2.0 * j_unit * kz0 * tau * std::exp(j_unit * kz0 * slab.thickness) /
+         (j_unit * slab.permittivity * kz0 - kz1 * kz1 * tau);
+}
+
 SlabSpectrum quasi_static_coefficients(const GroundedSlab& slab) { return {1.0, 2.0 / (slab.permittivity + 1.0)}; }
 
 std::vector<SurfaceWavePole> surface_wave_poles(const GroundedSlab& slab) {
@@ -115,12 +136,18 @@ std::vector<SurfaceWavePole> surface_wave_poles(const GroundedSlab& slab) {
       SurfaceWavePole pole;
       pole.k_rho = k_rho;
       pole.transverse_magnetic = tm;
+      // p̃ = (tanh(u1 h)/u1)/(D_TE D_TM) and q̃ = u0 tanh(u1 h)/(u1³ D_TM).
+      const Complex tanh_over_u1 = (d.tm - slab.permittivity * u0) / (d.u1 * d.u1);
       if (tm) {
-        pole.residue.scalar = d.numerator / (d.te * s.tm * to_k_rho);
+        const Complex slope = s.tm * to_k_rho;
+        pole.residue.scalar = d.numerator / (d.te * slope);
+        pole.probe.coupling = tanh_over_u1 / (d.te * slope);
+        pole.probe.self = u0 * tanh_over_u1 / (d.u1 * d.u1 * slope);
       } else {
         const Complex slope = s.te * to_k_rho;
         pole.residue.vector = 1.0 / slope;
         pole.residue.scalar = d.numerator / (d.tm * slope);
+        pole.probe.coupling = tanh_over_u1 / (d.tm * slope);
       }
       poles.push_back(pole);
     }

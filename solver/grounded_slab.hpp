@@ -56,12 +56,39 @@ struct SlabStaticImage {
 /// The images down to `deepest` (m), and none whose weights are both below 1e-9.
 std::vector<SlabStaticImage> slab_static_images(Real thickness, Complex permittivity, Real deepest);
 
+/// The spectra of a probe: a vertical current of 1 A, uniform from the ground to the top
+/// face (an electrically short probe or via). Solving the slab's transmission line for the
+/// vector potential A_z of that current (∂A_z/∂z = 0 on the ground, A_z and ∂A_z/∂z/εr
+/// continuous at z = h) gives, with σ = tanh(u1 h)/u1 · (1 + e^{−2u1h}) and the forms of
+/// slab_spectrum (te = σ D_TE, tm = (1 + e^{−2u1h}) D_TM):
+///   Ã_z(z = h) = μ0 σ/tm                                   (`top`, m²),
+/// the horizontal field on the top face E_t = ∇_t Φ with Φ̃ = (j/(ωε0)) u0 σ/tm, and the
+/// voltage −∫₀^h E_z dz along the probe. Less the potential of the charge the current leaves
+/// at its top (which a junction basis carries on the plate instead), these are
+///   Φ̃_r = jωμ0 (εr − 1) p̃,                  p̃ = σ²/(te tm)            (`coupling`, m³),
+///   W̃ = jωμ0 h/u1² − jωμ0 [(εr − 1) p̃ + εr q̃],  q̃ = u0 σ/(u1² tm)    (`self`, m³);
+/// the first part of W̃ is a line current in an unbounded dielectric, (ωμ0 h/4) H0⁽²⁾(k1 ρ).
+/// For εr = 1 they are the free-space potentials of the probe and its image.
+struct ProbeSpectrum {
+  Complex top = 0.0;       ///< σ/tm
+  Complex coupling = 0.0;  ///< p̃
+  Complex self = 0.0;      ///< q̃
+};
+ProbeSpectrum probe_spectrum(const GroundedSlab& slab, Complex k_rho);
+
+/// The far-zone vector potential of the probe of 1 A at the angle θ < 90° from the zenith,
+/// as μ0 e^{−jk0 r}/(4π r) times this length (m), the phase referred to the ground:
+/// 2j k_z0 τ e^{jk_z0 h}/(j εr k_z0 − k_z1² τ), τ = tan(k_z1 h)/k_z1 (on an air board,
+/// 2 sin(k0 h cos θ)/(k0 cos θ): the probe and its image).
+Complex probe_far_field_length(const GroundedSlab& slab, Real theta);
+
 /// A surface-wave pole of the kernels: kρ = k_rho (Re > k0, Im ≤ 0), with the residues of
 /// g̃_A and g̃_V there. TM poles are zeros of D_TM (they reach g̃_V only); TE poles are
-/// zeros of D_TE.
+/// zeros of D_TE. `probe` holds the residues of p̃ and q̃.
 struct SurfaceWavePole {
   Complex k_rho = 0.0;
   SlabSpectrum residue;
+  ProbeSpectrum probe;
   bool transverse_magnetic = true;
 };
 

@@ -11,6 +11,7 @@
 
 #include "solver/antenna_problem.hpp"
 #include "solver/fill_geometry.hpp"
+#include "solver/probe_kernels.hpp"
 #include "solver/slab_kernel_table.hpp"
 #include "solver/system_matrix.hpp"
 
@@ -27,6 +28,8 @@ struct FillContext {
   /// On a substrate, its kernels at this frequency (else null): the integrators then take
   /// the quasi-static part from the free-space integrals and add the table's remainder.
   std::shared_ptr<const SlabKernelTable> slab;
+  /// With probes through the substrate, their kernels at this frequency (else null).
+  std::shared_ptr<const ProbeKernels> probe_kernels;
 };
 
 /// Segment s against segments t ≥ s (thin-wire reduced kernel; solver/segment_integrals).
@@ -35,6 +38,10 @@ void add_segment_segment_terms(const FillContext& c, int s, std::vector<MatrixCo
 
 /// Segment s observing every triangle (the wire current on its axis, exact kernel).
 void add_segment_triangle_terms(const FillContext& c, int s, std::vector<MatrixContribution>& out);
+
+/// On a substrate, the vertical part of the probe on segment s against every function
+/// (solver/probe_pairs.cpp); the segment integrators are not used there.
+void add_probe_terms(const FillContext& c, int s, std::vector<MatrixContribution>& out);
 
 /// Triangle p against triangles q ≥ p (solver/triangle_pair_integrals).
 void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<MatrixContribution>& out);

@@ -9,6 +9,7 @@
 #include "solver/phase_factor.hpp"
 #include "solver/slab_kernels.hpp"
 #include "solver/sommerfeld_integral.hpp"
+#include "solver/uniform_grid_interpolation.hpp"
 
 namespace lobe {
 namespace {
@@ -147,16 +148,11 @@ std::shared_ptr<const SlabKernelTable> shared_slab_kernel_table(const GroundedSl
 }
 
 SlabRemainders SlabKernelTable::Grid::at(Real rho) const {
-  const Real x = rho / step;
-  const int last = static_cast<int>(values.size()) - 1;
-  const int first = std::clamp(static_cast<int>(std::floor(x)) - 1, 0, last - 3);
-  // Lagrange's cubic weights on the nodes first … first + 3 at u = x − (first + 1).
-  const Real u = x - (first + 1), up = u + 1.0, um = u - 1.0, um2 = u - 2.0;
-  const Real w[4] = {-u * um * um2 / 6.0, up * um * um2 / 2.0, -up * u * um2 / 2.0, up * u * um / 6.0};
+  const CubicStencil s = cubic_stencil(rho / step, static_cast<int>(values.size()));
   SlabRemainders result;
   for (int i = 0; i < 4; ++i) {
-    result.vector += w[i] * values[first + i].vector;
-    result.scalar += w[i] * values[first + i].scalar;
+    result.vector += s.weight[i] * values[s.first + i].vector;
+    result.scalar += s.weight[i] * values[s.first + i].scalar;
   }
   return result;
 }

@@ -19,10 +19,13 @@ struct BasisPiece {
 /// construction); a node on a perfect ground has one half function per end, completed by
 /// its image; a node attached to a surface has one function per end, carrying current from
 /// that end into the surface (completed by a junction star, solver/junction_star.hpp).
+/// With `uniform_probes`, a segment from the ground to an attached node carries a single
+/// function instead, of uniform current (two ramps of one function): the probe through a
+/// substrate, electrically short, whose kernels are those of a uniform current.
 class WireBasis {
  public:
   /// `attached[node]` marks nodes that lie on a surface mesh vertex (empty: none do).
-  explicit WireBasis(const WireMesh& mesh, const std::vector<bool>& attached = {});
+  explicit WireBasis(const WireMesh& mesh, const std::vector<bool>& attached = {}, bool uniform_probes = false);
   /// The junction functions of an attached node, in the order of its ends.
   const std::vector<int>& functions_into_surface(int node) const { return m_into_surface[node]; }
   int size() const { return m_count; }

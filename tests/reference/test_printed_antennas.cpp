@@ -93,18 +93,13 @@ struct PatchCase {
   Real permittivity, height_mm, design_hz, mesh_mm;
 };
 
-/// Balanis's design (eqs. 14-6 to 14-8): W = c/(2f) √(2/(εr + 1)), L from the
-/// transmission-line model; the resonance the same model gives for that L.
-struct PatchDesign {
+/// The case's design in millimetres.
+struct PatchDesignMm {
   Real width_mm, length_mm, predicted_hz;
 };
-PatchDesign design(const PatchCase& c) {
-  const Real h = c.height_mm * 1e-3;
-  const Real width = speed_of_light / (2 * c.design_hz) * std::sqrt(2 / (c.permittivity + 1));
-  const Real effective = effective_permittivity(width, h, c.permittivity);
-  const Real length =
-      speed_of_light / (2 * c.design_hz * std::sqrt(effective)) - 2 * fringing_extension(width, h, c.permittivity);
-  return {width * 1e3, length * 1e3, transmission_line_resonance_hz(length, width, h, c.permittivity)};
+PatchDesignMm design(const PatchCase& c) {
+  const PatchDesign d = transmission_line_design(c.permittivity, c.height_mm * 1e-3, c.design_hz);
+  return {d.width * 1e3, d.length * 1e3, d.predicted_hz};
 }
 
 // The tolerance: resonance within ±4 % of the transmission-line model with
@@ -112,7 +107,7 @@ PatchDesign design(const PatchCase& c) {
 // 2.4 GHz and on a 0.8 mm low-loss laminate (2.2) at 5.8 GHz.
 TEST(PrintedReference, PatchesResonateWhereTheTransmissionLineModelSays) {
   for (const PatchCase& c : {PatchCase{"FR-4 2.4 GHz", 4.4, 1.6, 2.4e9, 3.0}, PatchCase{"laminate 5.8 GHz", 2.2, 0.8, 5.8e9, 1.5}}) {
-    const PatchDesign d = design(c);
+    const PatchDesignMm d = design(c);
     const Model model =
         parse_model(patch_text(d.length_mm, d.width_mm, c.height_mm, c.permittivity, 0.0, c.mesh_mm, c.design_hz), "patch");
     const AntennaProblem problem(model);
@@ -128,7 +123,7 @@ TEST(PrintedReference, PatchesResonateWhereTheTransmissionLineModelSays) {
 // transmission-line resonance, loss tangent 0, 0.005, 0.02 (FR-4's usual figure, from
 // memory) and 0.05. Lossless, radiation and surface waves take all the power.
 TEST(PrintedReference, EfficiencyFallsAsTheLossTangentRises) {
-  const PatchDesign d = design({"FR-4", 4.4, 1.6, 2.4e9, 4.0});
+  const PatchDesignMm d = design({"FR-4", 4.4, 1.6, 2.4e9, 4.0});
   Real previous = 2.0;
   for (const Real loss_tangent : {0.0, 0.005, 0.02, 0.05}) {
     const Solved s = solve_text(patch_text(d.length_mm, d.width_mm, 1.6, 4.4, loss_tangent, 4.0, d.predicted_hz));

@@ -26,4 +26,62 @@ inline Real transmission_line_resonance_hz(Real length, Real width, Real height,
   return speed_of_light / (2 * (length + 2 * extension) * std::sqrt(effective_permittivity(width, height, permittivity)));
 }
 
+/// Balanis's design (eqs. 14-6 to 14-8): W = c/(2f) √(2/(εr + 1)), L from the
+/// transmission-line model; and the resonance the same model gives for that L. Metres, Hz.
+struct PatchDesign {
+  Real width, length, predicted_hz;
+};
+inline PatchDesign transmission_line_design(Real permittivity, Real height, Real design_hz) {
+  const Real width = speed_of_light / (2 * design_hz) * std::sqrt(2 / (permittivity + 1));
+  const Real effective = effective_permittivity(width, height, permittivity);
+  const Real length =
+      speed_of_light / (2 * design_hz * std::sqrt(effective)) - 2 * fringing_extension(width, height, permittivity);
+  return {width, length, transmission_line_resonance_hz(length, width, height, permittivity)};
+}
+
+/// ∫₀^π f(θ) dθ by the composite Simpson rule on 2000 panels (the integrands below are smooth).
+template <class F>
+Real integral_over_half_turn(F f) {
+  constexpr int panels = 2000;
+  const Real step = pi / panels;
+  Real sum = f(0.0) + f(pi);
+  for (int i = 1; i < panels; ++i) sum += (i % 2 ? 4.0 : 2.0) * f(i * step);
+  return sum * step / 3.0;
+}
+
+/// sin(x cos θ)/cos θ, with its limit x at θ = 90°.
+inline Real slot_factor(Real x, Real theta) {
+  const Real c = std::cos(theta);
+  return std::abs(c) < 1e-12 ? x : std::sin(x * c) / c;
+}
+
+/// The conductance of one radiating slot of width W (eq. 14-12): G1 = I1/(120π²),
+/// I1 = ∫₀^π sin²(k0 W cos θ/2)/cos² θ sin³ θ dθ.
+inline Real slot_conductance(Real width, Real frequency_hz) {
+  const Real k0 = 2 * pi * frequency_hz / speed_of_light;
+  return integral_over_half_turn([&](Real t) {
+           const Real s = slot_factor(0.5 * k0 * width, t), st = std::sin(t);
+           return s * s * st * st * st;
+         }) /
+         (120 * pi * pi);
+}
+
+/// The mutual conductance of the two slots L apart (eq. 14-18a):
+/// G12 = (1/(120π²)) ∫₀^π [sin(k0 W cos θ/2)/cos θ]² J0(k0 L sin θ) sin³ θ dθ.
+inline Real slot_mutual_conductance(Real width, Real length, Real frequency_hz) {
+  const Real k0 = 2 * pi * frequency_hz / speed_of_light;
+  return integral_over_half_turn([&](Real t) {
+           const Real s = slot_factor(0.5 * k0 * width, t), st = std::sin(t);
+           return s * s * std::cyl_bessel_j(0.0, k0 * length * st) * st * st * st;
+         }) /
+         (120 * pi * pi);
+}
+
+/// The cavity model's resonant input resistance of the dominant mode at the distance y0
+/// from a radiating edge (eqs. 14-17 and 14-20a): cos²(π y0/L)/(2 (G1 + G12)).
+inline Real cavity_input_resistance(Real width, Real length, Real frequency_hz, Real inset) {
+  const Real c = std::cos(pi * inset / length);
+  return c * c / (2 * (slot_conductance(width, frequency_hz) + slot_mutual_conductance(width, length, frequency_hz)));
+}
+
 }  // namespace lobe::testing
