@@ -10,6 +10,7 @@
 #include "solver/complex_bessel.hpp"
 #include "solver/grounded_slab.hpp"
 #include "solver/pencil_of_function.hpp"
+#include "solver/probe_kernels.hpp"
 #include "solver/slab_kernel_table.hpp"
 #include "solver/slab_kernels.hpp"
 #include "solver/sommerfeld_integral.hpp"
@@ -154,6 +155,9 @@ TEST(GroundedSlab, PoleResiduesMatchTheSpectrum) {
     const SurfaceWavePole pole = surface_wave_poles(slab)[0];
     const Complex near = pole.k_rho + Complex(0.0, 1e-7 * k0);
     EXPECT_LT(relative_error((near - pole.k_rho) * slab_spectrum(slab, near).scalar, pole.residue.scalar), 1e-4);
+    const ProbeSpectrum probe = probe_spectrum(slab, near);
+    EXPECT_LT(relative_error((near - pole.k_rho) * probe.coupling, pole.probe.coupling), 1e-4);
+    EXPECT_LT(relative_error((near - pole.k_rho) * probe.self, pole.probe.self), 1e-4);
     if (permittivity.imag() != 0.0) {
       EXPECT_LT(pole.k_rho.imag(), 0.0);
     }
@@ -293,6 +297,24 @@ TEST(GroundedSlab, FarFieldFactorsMatchImageTheoryAndTheSpectrum) {
 
 // A sweep's cases share their tables: the same slab and frequency give the same table
 // (one reaching at least as far serves a shorter request); another frequency, another one.
+// A probe's far field: on an air board a uniform current of length h and its image,
+// 2 sin(k0 h cos θ)/(k0 cos θ) (image theory); on a dielectric the stationary-phase value
+// 2j k_z0 e^{jk_z0 h} Ã_z(h)/μ0 of its spectrum at kρ = k0 sin θ. An air board's probe
+// couples nothing to the top face beyond its charge (ProbeKernels::coupling is zero).
+TEST(GroundedSlab, ProbeFarFieldMatchesImageTheoryAndTheSpectrum) {
+  const Real k0 = 2 * pi, h = 0.013;
+  for (const Real degrees : {0.0, 30.0, 60.0, 89.0}) {
+    const Real theta = degrees * pi / 180, kz0 = k0 * std::cos(theta);
+    EXPECT_LT(relative_error(probe_far_field_length({h, 1.0, k0}, theta), 2 * std::sin(kz0 * h) / kz0), 1e-12) << degrees;
+    const GroundedSlab fr4{h, Complex(4.4, -0.088), k0};
+    const Complex spectral = 2.0 * j_unit * kz0 * std::exp(j_unit * kz0 * h) * probe_spectrum(fr4, k0 * std::sin(theta)).top;
+    EXPECT_LT(relative_error(probe_far_field_length(fr4, theta), spectral), 1e-10) << degrees;
+  }
+  const ProbeKernels air({h, 1.0, k0}, 0.5);
+  EXPECT_EQ(air.coupling(0.0), 0.0);
+  EXPECT_EQ(air.coupling(0.3), 0.0);
+}
+
 TEST(SlabKernelTable, TablesAreMadeOnceAndShared) {
   const Real k0 = 2 * pi * 2.4e9 / speed_of_light;
   const GroundedSlab slab{1.6e-3, Complex(4.4, -0.088), k0};

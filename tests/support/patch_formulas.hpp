@@ -84,4 +84,18 @@ inline Real cavity_input_resistance(Real width, Real length, Real frequency_hz, 
   return c * c / (2 * (slot_conductance(width, frequency_hz) + slot_mutual_conductance(width, length, frequency_hz)));
 }
 
+/// The radiation efficiency of the cavity model with dielectric loss (eqs. 14-88a to c):
+/// 1/Q = 1/Q_rad + 1/Q_d, Q_d = 1/tan δ, Q_rad = 2ωε K/(h G_t/l) with K = L/4 for the
+/// dominant mode and the radiating edges' conductance per unit length G_t/l = 2 (G1 + G12)/W
+/// (the conductance the input-resistance formula sees); efficiency Q/Q_rad. Surface waves
+/// and conductor loss are not counted.
+inline Real cavity_radiation_efficiency(Real width, Real length, Real height, Real permittivity, Real loss_tangent,
+                                        Real frequency_hz) {
+  const Real omega = 2 * pi * frequency_hz;
+  const Real conductance =
+      2 * (slot_conductance(width, frequency_hz) + slot_mutual_conductance(width, length, frequency_hz)) / width;
+  const Real q_radiation = 2 * omega * eps0 * permittivity * (length / 4) / (height * conductance);
+  return 1 / (1 + q_radiation * loss_tangent);
+}
+
 }  // namespace lobe::testing
