@@ -600,14 +600,26 @@ class ModelParser {
   }
 
   void conductor(TokenCursor& c) {
-    const Token& target = c.expect_name("a wire name or 'all'");
-    c.expect_word("conductivity", "after the wire name");
+    const Token& target = c.expect_name("a wire, plate or body name, or 'all'");
+    c.expect_word("conductivity", "after the name");
     const Token& at = c.peek();
     const Real sigma = quantity_in(c, dimension::conductivity, 1.0, "a conductivity").value;
     if (!(sigma > 0.0)) throw InputError(at.where, "conductivity must be above zero");
+    Real thickness = 0.0;
+    if (!c.at_end() && c.peek().text == "thickness") {
+      const Token& word = c.next();
+      if (target.text != "all" && !find_surface(target.text))
+        throw InputError(word.where, "'thickness' is the metal's thickness of a plate or body; a wire has its radius");
+      thickness = positive_length(c, "the thickness");
+    }
     if (target.text == "all") {
       for (auto& w : m_model.wires) w.conductivity = sigma;
+      for (auto& s : m_model.surfaces) s.conductivity = sigma, s.conductor_thickness = thickness;
       m_conductivity_for_all = sigma;
+      m_conductor_thickness_for_all = thickness;
+    } else if (SurfaceShape* surface = find_surface(target.text)) {
+      surface->conductivity = sigma;
+      surface->conductor_thickness = thickness;
     } else {
       existing_wire(target).conductivity = sigma;
     }
@@ -859,9 +871,8 @@ class ModelParser {
     if (m_model.wires.empty() && m_model.surfaces.empty())
       throw InputError(end_of_file, "the model has no wire, arc, helix, plate or body");
     if (m_model.frequencies_hz.empty()) throw InputError(end_of_file, "the model has no 'frequency' statement");
-    if (!m_model.surfaces.empty() && m_conductivity_for_all > 0.0)
-      throw InputError(m_model.surfaces.front().where,
-                       "plates and bodies are perfect conductors for now; 'conductor all' cannot apply to them");
+    for (auto& s : m_model.surfaces)
+      if (s.conductivity == 0.0) s.conductivity = m_conductivity_for_all, s.conductor_thickness = m_conductor_thickness_for_all;
     if (m_model.wave && !m_model.ports.empty())
       throw InputError(m_model.wave->where, "a model is either lit by a plane wave or driven by ports, not both");
     if (!m_model.wave && m_model.ports.empty())
@@ -896,6 +907,7 @@ class ModelParser {
   std::unordered_map<std::string, ObjectIndex> m_objects;
   std::set<std::string> m_used_overrides;
   Real m_conductivity_for_all = 0.0;
+  Real m_conductor_thickness_for_all = 0.0;
   std::optional<SourceLocation> m_ground_none_where;
   int m_last_line = 1;
   SourceLocation m_pattern_where{m_file, 1, 1};

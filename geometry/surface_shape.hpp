@@ -24,6 +24,8 @@ struct SurfaceShape {
   Vec3 size = Vec3::Zero();     ///< box extents along x, y, z
   std::vector<Vec3> polygon;    ///< polygon corners, in order
   Real mesh_size = 0.0;         ///< target triangle edge, m; 0: a tenth of the shortest wavelength
+  Real conductivity = 0.0;      ///< S/m; 0 means perfectly conducting
+  Real conductor_thickness = 0.0;  ///< m, of a plate's metal; 0: many skin depths
   Affine transform = Affine::Identity();  ///< copy/shift/turn/mirror, applied after building
   /// Holes and notches (rectangles, polygons, discs in the plate's own plane, in its
   /// coordinates before any transform), cut away before meshing.

@@ -1,6 +1,7 @@
 #include "post/power_budget.hpp"
 
 #include "solver/stamps.hpp"
+#include "solver/surface_loss.hpp"
 
 namespace lobe {
 
@@ -16,6 +17,7 @@ PowerBudget power_budget(const AntennaProblem& problem, const FrequencySolution&
     const Real squared = (std::norm(c0) + std::norm(c1) + (c0 * std::conj(c1)).real()) * seg.length() / 3.0;
     budget.conductor_loss += 0.5 * r * squared;
   }
+  budget.conductor_loss += stamp_power(surface_loss_stamp(problem, solution.frequency_hz), solution.coefficients);
   for (Real p : load_powers(problem, solution)) budget.load_loss += p;
   return budget;
 }

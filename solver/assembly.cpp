@@ -7,6 +7,7 @@
 #include "solver/frequency_limits.hpp"
 #include "solver/pair_integrators.hpp"
 #include "solver/stamps.hpp"
+#include "solver/surface_loss.hpp"
 
 namespace lobe {
 
@@ -57,6 +58,7 @@ void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMat
   if (failure) std::rethrow_exception(failure);
 
   matrix.add(conductor_loss_stamp(problem.mesh, problem.basis, frequency_hz));
+  matrix.add(surface_loss_stamp(problem, frequency_hz));
   for (std::size_t l = 0; l < problem.model.loads.size(); ++l)
     matrix.add(load_stamp(problem.load_vectors.col(static_cast<Eigen::Index>(l)),
                           load_impedance(problem.model.loads[l], frequency_hz)));

@@ -167,6 +167,23 @@ TEST(ModelParser, SubstrateStatement) {
             "m.lobe:1:23: the thickness must be at least 10 um, got 5 um");
 }
 
+// 'conductor' names a wire, a plate or body, or all of them; a plate's metal may have a
+// thickness, a wire has its radius instead.
+TEST(ModelParser, ConductorOnPlates) {
+  const std::string plates = "units mm\nplate a rectangle corner (-10, -1, 1.6) size (20, 2)\n"
+                             "plate b rectangle corner (-10, 5, 1.6) size (20, 2)\n"
+                             "port p on a along (0, -1, 1.6) to (0, 1, 1.6)\nfrequency 2.4 GHz\n";
+  const Model m = parse_model(plates + "conductor a conductivity 5.8e7 S/m thickness 35 um\n", "m.lobe");
+  EXPECT_DOUBLE_EQ(m.surfaces[0].conductivity, 5.8e7);
+  EXPECT_DOUBLE_EQ(m.surfaces[0].conductor_thickness, 35e-6);
+  EXPECT_EQ(m.surfaces[1].conductivity, 0.0);
+  const Model all = parse_model(plates + "conductor all conductivity 3.7e7 S/m\n", "m.lobe");
+  EXPECT_DOUBLE_EQ(all.surfaces[1].conductivity, 3.7e7);
+  EXPECT_EQ(all.surfaces[1].conductor_thickness, 0.0);
+  EXPECT_EQ(error_of("wire w from (0, 0, 0) to (0, 0, 1) radius 0.001\nconductor w conductivity 1e7 S/m thickness 1 mm\n"),
+            "m.lobe:2:34: 'thickness' is the metal's thickness of a plate or body; a wire has its radius");
+}
+
 TEST(ModelParser, VariedValuesAreShownInTheUnitsGiven) {
   const VariedName droop = parse_vary_option("droop=20deg:30deg:5deg", 1);
   ASSERT_EQ(droop.values.size(), 3u);

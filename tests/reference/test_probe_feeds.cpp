@@ -66,6 +66,7 @@ TEST(ProbeReference, AnAirBoardProbeIsTheWireOnThePerfectGround) {
 struct ProbePatch {
   const char* name;
   Real permittivity, height_mm, loss_tangent, design_hz, inset_fraction, mesh_mm, radius_mm;
+  Real conductivity = 0.0;  ///< of the patch's metal, S/m (0: perfect)
   PatchDesign design() const { return transmission_line_design(permittivity, height_mm * 1e-3, design_hz); }
   Real inset_mm() const { return inset_fraction * design().length * 1e3; }
   std::string text(Real low_hz, Real high_hz, int count) const {
@@ -82,7 +83,9 @@ struct ProbePatch {
                   "frequency %.17g Hz to %.17g Hz count %d\n",
                   height_mm, permittivity, loss_tangent, -length / 2, -width / 2, height_mm, length, width, mesh_mm,
                   -length / 2 + inset_mm(), -length / 2 + inset_mm(), height_mm, radius_mm, low_hz, high_hz, count);
-    return text;
+    std::string model = text;
+    if (conductivity > 0.0) model += "conductor patch conductivity " + std::to_string(conductivity) + " S/m thickness 35 um\n";
+    return model;
   }
 };
 
@@ -120,7 +123,10 @@ Peak resistance_peak(const AntennaProblem& problem, Real low, Real high, int ste
 // counts neither surface waves nor the probe), and Poynting's theorem at the resonance with
 // the probe's own radiation and surface waves. Then the FR-4 patch with the loss tangent
 // 0.02 (FR-4's usual figure, from memory): its radiation efficiency against the cavity
-// model's (eqs. 14-88a to c), within the same ±25 %.
+// model's (eqs. 14-88a to c), within the same ±25 %; and with a copper patch (5.8e7 S/m,
+// 35 um, from memory) on the lossless board: the share of the power its metal takes against
+// the cavity model's Q_rad and the patch's half of Q_c (eq. 14-88b), within ±25 %, with the
+// power still balanced.
 TEST(ProbeReference, ProbeFedPatchesMatchTheTransmissionLineAndCavityModels) {
   for (const ProbePatch& patch : {ProbePatch{"FR-4 2.4 GHz", 4.4, 1.6, 0.0, 2.4e9, 0.3, 3.0, 0.6},
                                   ProbePatch{"laminate 5.8 GHz", 2.2, 0.8, 0.0, 5.8e9, 0.3, 1.5, 0.3}}) {
@@ -155,6 +161,21 @@ TEST(ProbeReference, ProbeFedPatchesMatchTheTransmissionLineAndCavityModels) {
                 100 * lossy_power.efficiency(), 100 * handbook, 100 * lossy_power.surface_wave / lossy_power.accepted,
                 100 * lossy_power.dielectric_loss / lossy_power.accepted);
     EXPECT_NEAR(lossy_power.efficiency(), handbook, 0.25 * handbook);
+
+    ProbePatch copper = patch;
+    copper.conductivity = 5.8e7;
+    const Model copper_model = parse_model(copper.text(peak.frequency_hz, peak.frequency_hz, 1), "copper patch");
+    const AntennaProblem copper_problem(copper_model);
+    const PowerBudget copper_power =
+        evaluate_frequency(copper_problem, solve_frequency(copper_problem, peak.frequency_hz)).power;
+    const Real q_radiation = cavity_radiation_q(d.width, d.length, patch.height_mm * 1e-3, patch.permittivity, peak.frequency_hz);
+    const Real q_conductor = cavity_patch_conductor_q(patch.height_mm * 1e-3, copper.conductivity, peak.frequency_hz);
+    const Real cavity_share = (1 / q_conductor) / (1 / q_radiation + 1 / q_conductor);
+    const Real share = copper_power.conductor_loss / copper_power.accepted;
+    std::printf("  copper patch: its metal takes %.2f %% of the power (cavity model %.2f %%: Q_rad %.1f, Q_c %.0f), miss %.2e\n",
+                100 * share, 100 * cavity_share, q_radiation, q_conductor, copper_power.imbalance());
+    EXPECT_NEAR(share, cavity_share, 0.25 * cavity_share);
+    EXPECT_LT(std::abs(copper_power.imbalance()), power_balance_tolerance);
   }
 }
 

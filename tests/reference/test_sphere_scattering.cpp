@@ -26,6 +26,12 @@ struct SphereCase {
     model.file = "sphere";
     model.frequencies_hz = {frequency};
     model.wave = PlaneWave{{"sphere", 1, 1}, 0.0, 0.0, true, 1.0};
+    // The shape the hand-made mesh's triangles belong to (region 0).
+    SurfaceShape ball;
+    ball.name = "ball";
+    ball.kind = SurfaceKind::sphere;
+    ball.diameter = 2 * radius;
+    model.surfaces.push_back(ball);
     SurfaceMeshReport surfaces;
     surfaces.mesh = icosphere(radius, levels);
     surfaces.region.assign(surfaces.mesh.triangles.size(), 0);

@@ -84,18 +84,28 @@ inline Real cavity_input_resistance(Real width, Real length, Real frequency_hz, 
   return c * c / (2 * (slot_conductance(width, frequency_hz) + slot_mutual_conductance(width, length, frequency_hz)));
 }
 
-/// The radiation efficiency of the cavity model with dielectric loss (eqs. 14-88a to c):
-/// 1/Q = 1/Q_rad + 1/Q_d, Q_d = 1/tan δ, Q_rad = 2ωε K/(h G_t/l) with K = L/4 for the
+/// The cavity model's radiation Q (eq. 14-88c): Q_rad = 2ωε K/(h G_t/l) with K = L/4 for the
 /// dominant mode and the radiating edges' conductance per unit length G_t/l = 2 (G1 + G12)/W
-/// (the conductance the input-resistance formula sees); efficiency Q/Q_rad. Surface waves
-/// and conductor loss are not counted.
-inline Real cavity_radiation_efficiency(Real width, Real length, Real height, Real permittivity, Real loss_tangent,
-                                        Real frequency_hz) {
+/// (the conductance the input-resistance formula sees).
+inline Real cavity_radiation_q(Real width, Real length, Real height, Real permittivity, Real frequency_hz) {
   const Real omega = 2 * pi * frequency_hz;
   const Real conductance =
       2 * (slot_conductance(width, frequency_hz) + slot_mutual_conductance(width, length, frequency_hz)) / width;
-  const Real q_radiation = 2 * omega * eps0 * permittivity * (length / 4) / (height * conductance);
-  return 1 / (1 + q_radiation * loss_tangent);
+  return 2 * omega * eps0 * permittivity * (length / 4) / (height * conductance);
+}
+
+/// The radiation efficiency of the cavity model with dielectric loss (eqs. 14-88a, b):
+/// 1/Q = 1/Q_rad + 1/Q_d, Q_d = 1/tan δ, efficiency Q/Q_rad. Surface waves and conductor
+/// loss are not counted.
+inline Real cavity_radiation_efficiency(Real width, Real length, Real height, Real permittivity, Real loss_tangent,
+                                        Real frequency_hz) {
+  return 1 / (1 + cavity_radiation_q(width, length, height, permittivity, frequency_hz) * loss_tangent);
+}
+
+/// The cavity model's conductor Q (eq. 14-88b), Q_c = h √(π f μ0 σ), counts the patch and
+/// the ground alike; the patch's own share of the loss is half, Q_c,patch = 2 Q_c.
+inline Real cavity_patch_conductor_q(Real height, Real conductivity, Real frequency_hz) {
+  return 2 * height * std::sqrt(pi * frequency_hz * mu0 * conductivity);
 }
 
 }  // namespace lobe::testing
