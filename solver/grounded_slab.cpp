@@ -78,28 +78,34 @@ std::vector<Real> lossless_roots(Real permittivity, Real k0, Real h, bool tm) {
 
 }  // namespace
 
-SlabSpectrum slab_spectrum(const GroundedSlab& slab, Complex k_rho) {
+namespace {
+
+/// The forms both spectra are written in. With e = e^{−2u1h} (|e| ≤ 1): tanh = (1 − e)/(1 + e).
+/// σ = (1 − e)/u1 stays finite as u1 → 0, c = 1 + e, te = u0 σ + c = σ D_TE and
+/// tm = εr u0 c + u1² σ = c D_TM: no division by a vanishing tanh.
+struct SlabForms {
+  Complex u0, u1_squared, sigma, c, te, tm;
+};
+SlabForms slab_forms(const GroundedSlab& slab, Complex k_rho) {
   const Complex u0 = proper_root(k_rho * k_rho - slab.k0 * slab.k0);
   const Complex u1 = proper_root(k_rho * k_rho - slab.permittivity * slab.k0 * slab.k0);
-  // With e = e^{−2u1h} (|e| ≤ 1): tanh = (1 − e)/(1 + e). σ = (1 − e)/u1 stays finite as
-  // u1 → 0, so g̃_A = σ/(u0 σ + c) and g̃_V = σ(u0 c + u1² σ)/((u0 σ + c)(εr u0 c + u1² σ)),
-  // c = 1 + e, never divide by a vanishing tanh.
   const Complex x = u1 * slab.thickness, e = std::exp(-2.0 * x);
   const Complex sigma = std::abs(x) < 1e-4 ? slab.thickness * (2.0 - 2.0 * x + (4.0 / 3.0) * x * x) : (1.0 - e) / u1;
   const Complex c = 1.0 + e, u1_squared = u1 * u1;
-  const Complex te = u0 * sigma + c, tm = slab.permittivity * u0 * c + u1_squared * sigma;
-  return {sigma / te, sigma * (u0 * c + u1_squared * sigma) / (te * tm)};
+  return {u0, u1_squared, sigma, c, u0 * sigma + c, slab.permittivity * u0 * c + u1_squared * sigma};
+}
+
+}  // namespace
+
+SlabSpectrum slab_spectrum(const GroundedSlab& slab, Complex k_rho) {
+  // g̃_A = σ/te and g̃_V = σ(u0 c + u1² σ)/(te tm).
+  const SlabForms f = slab_forms(slab, k_rho);
+  return {f.sigma / f.te, f.sigma * (f.u0 * f.c + f.u1_squared * f.sigma) / (f.te * f.tm)};
 }
 
 ProbeSpectrum probe_spectrum(const GroundedSlab& slab, Complex k_rho) {
-  const Complex u0 = proper_root(k_rho * k_rho - slab.k0 * slab.k0);
-  const Complex u1 = proper_root(k_rho * k_rho - slab.permittivity * slab.k0 * slab.k0);
-  // The same finite forms as slab_spectrum.
-  const Complex x = u1 * slab.thickness, e = std::exp(-2.0 * x);
-  const Complex sigma = std::abs(x) < 1e-4 ? slab.thickness * (2.0 - 2.0 * x + (4.0 / 3.0) * x * x) : (1.0 - e) / u1;
-  const Complex c = 1.0 + e, u1_squared = u1 * u1;
-  const Complex te = u0 * sigma + c, tm = slab.permittivity * u0 * c + u1_squared * sigma;
-  return {sigma / tm, sigma * sigma / (te * tm), u0 * sigma / (u1_squared * tm)};
+  const SlabForms f = slab_forms(slab, k_rho);
+  return {f.sigma / f.tm, f.sigma * f.sigma / (f.te * f.tm), f.u0 * f.sigma / (f.u1_squared * f.tm)};
 }
 
 Complex probe_far_field_length(const GroundedSlab& slab, Real theta) {
