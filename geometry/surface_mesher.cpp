@@ -8,6 +8,7 @@
 #include <algorithm>
 #include <cmath>
 #include <map>
+#include <mutex>
 #include <string>
 
 #include "core/constants.hpp"
@@ -331,6 +332,9 @@ SurfaceMeshReport mesh_surfaces(const std::vector<SurfaceShape>& shapes, const M
     nothing.line_edges.resize(constraints.lines.size());
     return nothing;
   }
+  // Gmsh's state is global: cases of a sweep that run side by side mesh one at a time.
+  static std::mutex one_session_at_a_time;
+  const std::lock_guard<std::mutex> lock(one_session_at_a_time);
   GmshSession session;
   // Gmsh reports its own failures with exceptions of its choosing; turn them into ours.
   try {

@@ -1,6 +1,7 @@
 #include "study/sweep_study.hpp"
 
 #include <algorithm>
+#include <exception>
 #include <fstream>
 #include <set>
 #include <sstream>
@@ -69,6 +70,9 @@ bool saved_whole(const std::filesystem::path& path, const StudyControl& control)
   }
 }
 
+/// Cases of at most this many unknowns run side by side (measured on 2 cores: see DEVELOPERS).
+constexpr int largest_case_side_by_side = 1000;
+
 }  // namespace
 
 std::vector<Override> case_overrides(const PreparedSweep& sweep, std::size_t index) {
@@ -105,6 +109,16 @@ PreparedSweep prepare_sweep(const SweepRequest& request) {
   return sweep;
 }
 
+namespace {
+
+/// The unknowns of case c, which decide how the sweep's cases share the cores.
+int case_unknowns(const PreparedSweep& sweep, std::size_t c) {
+  const Model model = load_model(sweep.request.model_path, case_overrides(sweep, c));
+  return AntennaProblem(model).unknowns();
+}
+
+}  // namespace
+
 SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& control) {
   const std::filesystem::path directory =
       sweep.output.has_parent_path() ? sweep.output.parent_path() : std::filesystem::path(".");
@@ -119,41 +133,81 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
   remove_dead_temporaries(directory);
 
   SweepOutcome outcome;
-  std::set<std::string> warned;  // each distinct mesh warning once, not once per case
   const std::size_t total = sweep.grid.size();
+  std::vector<std::size_t> pending;
   for (std::size_t c = 0; c < total; ++c) {
     outcome.case_files.push_back(sweep.case_directory / (case_name(c) + ".h5"));
-    if (saved_whole(outcome.case_files.back(), control)) {
+    if (saved_whole(outcome.case_files.back(), control))
       ++outcome.skipped;
-      continue;
-    }
-    const Model model = load_model(sweep.request.model_path, case_overrides(sweep, c));
-    const AntennaProblem problem(model);
-    require_solvable(problem);
-    if (outcome.solved == 0 && control.workload)
-      control.workload(problem.unknowns(), static_cast<double>(model.frequencies_hz.size() * (total - c)));
-    for (const auto* list : {&problem.mesh.warnings, &problem.surfaces.warnings})
-      for (const auto& w : *list)
-        if (warned.insert(w.formatted()).second && control.warning) control.warning(w, case_name(c));
-    std::string command = "lobe sweep case " + case_name(c) + ":";
-    for (const auto& o : case_overrides(sweep, c)) command += " --set " + o.name + "=" + o.expression;
-    RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), command, std::nullopt}};
-    const bool whole = solve_each_frequency(problem, {control.cancel, {}, {}, {}, {}}, [&](FrequencySolution&& s) {
-      run.results.push_back(evaluate_frequency(problem, s));
-    });
-    if (!whole) return outcome;
-    try {
-      OutputFiles files(sweep.case_directory);
-      write_hdf5(files.staging_path(case_name(c) + ".h5"), run);
-      files.commit();
-    } catch (const OutputError& e) {
-      throw OutputError(std::string(e.what()) + "; the " + std::to_string(outcome.solved + outcome.skipped) +
-                        " finished cases are kept in " + sweep.case_directory.string() +
-                        ": make room and run the same command again to go on");
-    }
-    ++outcome.solved;
-    if (control.progress) control.progress(c + 1, total, outcome.solved, "");
+    else
+      pending.push_back(c);
   }
+
+  // Small cases run side by side, one thread each: threads inside a case that solves in
+  // milliseconds cost more than they save (a 192-unknown case ran faster on one thread
+  // than on two). Large ones run one after another with every thread inside.
+  const int threads = thread_count();
+  const bool side_by_side = threads > 1 && pending.size() > 1 &&
+                            case_unknowns(sweep, pending.front()) <= largest_case_side_by_side;
+  if (side_by_side) set_thread_count(1);
+  std::set<std::string> warned;  // each distinct mesh warning once, not once per case
+  bool estimated = false, stopped = false;
+  std::exception_ptr failure;
+#pragma omp parallel for schedule(dynamic, 1) num_threads(side_by_side ? threads : 1)
+  for (std::size_t k = 0; k < pending.size(); ++k) {
+    bool skip;
+#pragma omp critical(lobe_sweep_state)
+    skip = stopped || failure;
+    if (skip) continue;
+    try {
+      const std::size_t c = pending[k];
+      const Model model = load_model(sweep.request.model_path, case_overrides(sweep, c));
+      const AntennaProblem problem(model);
+      require_solvable(problem);
+#pragma omp critical(lobe_sweep_state)
+      {
+        if (!estimated && control.workload)
+          control.workload(problem.unknowns(), static_cast<double>(model.frequencies_hz.size() * (pending.size() - k)) /
+                                                   (side_by_side ? threads : 1));
+        estimated = true;
+        for (const auto* list : {&problem.mesh.warnings, &problem.surfaces.warnings})
+          for (const auto& w : *list)
+            if (warned.insert(w.formatted()).second && control.warning) control.warning(w, case_name(c));
+      }
+      std::string command = "lobe sweep case " + case_name(c) + ":";
+      for (const auto& o : case_overrides(sweep, c)) command += " --set " + o.name + "=" + o.expression;
+      RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), command, std::nullopt}};
+      const bool whole = solve_each_frequency(problem, {control.cancel, {}, {}, {}, {}}, [&](FrequencySolution&& s) {
+        run.results.push_back(evaluate_frequency(problem, s));
+      });
+#pragma omp critical(lobe_sweep_state)
+      {
+        if (!whole) {
+          stopped = true;
+        } else {
+          // HDF5 is not built to be called from two threads at once.
+          OutputFiles files(sweep.case_directory);
+          write_hdf5(files.staging_path(case_name(c) + ".h5"), run);
+          files.commit();
+          ++outcome.solved;
+          if (control.progress) control.progress(outcome.solved + outcome.skipped, total, outcome.solved, "");
+        }
+      }
+    } catch (const OutputError& e) {
+#pragma omp critical(lobe_sweep_state)
+      if (!failure)
+        failure = std::make_exception_ptr(OutputError(
+            std::string(e.what()) + "; the " + std::to_string(outcome.solved + outcome.skipped) +
+            " finished cases are kept in " + sweep.case_directory.string() +
+            ": make room and run the same command again to go on"));
+    } catch (...) {
+#pragma omp critical(lobe_sweep_state)
+      if (!failure) failure = std::current_exception();
+    }
+  }
+  if (side_by_side) set_thread_count(threads);
+  if (failure) std::rethrow_exception(failure);
+  if (stopped) return outcome;
   SweepTable table{sweep.grid.names(), sweep.grid.values, sweep.grid.labels, sweep.values_si};
   try {
     OutputFiles files(directory);
