@@ -20,7 +20,7 @@ FillContext::FillContext(const AntennaProblem& p, Real frequency_hz)
       slab(p.medium.has_slab() ? shared_slab_kernel_table(p.medium.slab(frequency_hz),
                                                           structure_extent_m(p.mesh, p.surfaces.mesh, p.medium))
                                : nullptr),
-      probe_kernels(slab && !p.probes.empty() ? std::make_shared<const ProbeKernels>(slab->slab(), slab->reach())
+      probe_kernels(slab && !p.probes.empty() ? shared_probe_kernels(slab->slab(), slab->reach())
                                               : nullptr) {}
 
 void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMatrix& matrix) {

@@ -21,6 +21,11 @@ struct GroundedSlab {
   Real k0 = 0.0;             ///< free-space wavenumber, rad/m
 };
 
+/// Whether two slabs are the same board at the same frequency.
+inline bool same_slab(const GroundedSlab& a, const GroundedSlab& b) {
+  return a.thickness == b.thickness && a.permittivity == b.permittivity && a.k0 == b.k0;
+}
+
 /// The normalised spectral kernels at one kρ.
 struct SlabSpectrum {
   Complex vector = 0.0;  ///< g̃_A

@@ -5,6 +5,7 @@
 
 #include "core/constants.hpp"
 #include "solver/complex_bessel.hpp"
+#include "solver/recent_tables.hpp"
 #include "solver/sommerfeld_integral.hpp"
 #include "solver/uniform_grid_interpolation.hpp"
 
@@ -34,7 +35,7 @@ Eigen::Vector2cd probe_integrals(const GroundedSlab& slab, Real rho) {
 }  // namespace
 
 ProbeKernels::ProbeKernels(const GroundedSlab& slab, Real largest_distance)
-    : m_slab(slab), m_omega_mu(slab.k0 * speed_of_light * mu0) {
+    : m_slab(slab), m_omega_mu(slab.k0 * speed_of_light * mu0), m_reach(largest_distance) {
   const Real far_scale = 1.0 / (slab.k0 * std::sqrt(std::abs(slab.permittivity)));
   m_near.step = std::min(slab.thickness, far_scale) / points_per_scale;
   m_near.end = std::min(near_thicknesses * slab.thickness, largest_distance);
@@ -48,7 +49,9 @@ ProbeKernels::ProbeKernels(const GroundedSlab& slab, Real largest_distance)
     const auto first = static_cast<std::size_t>(std::max(0.0, std::floor(read_from / grid->step) - 2.0));
     read_from = std::max(read_from, grid->end);
     if (slab.permittivity == 1.0) continue;
-    for (std::size_t i = first; i < grid->values.size(); ++i)
+    const auto count = static_cast<std::ptrdiff_t>(grid->values.size());
+#pragma omp parallel for schedule(dynamic, 4)
+    for (std::ptrdiff_t i = static_cast<std::ptrdiff_t>(first); i < count; ++i)
       grid->values[i] = scale * probe_integrals(slab, static_cast<Real>(i) * grid->step)[0];
   }
 }
@@ -60,6 +63,13 @@ Complex ProbeKernels::self(Real rho) const {
   const Complex k1 = m_slab.k0 * std::sqrt(m_slab.permittivity);
   return 0.25 * m_omega_mu * m_slab.thickness * hankel2_0(k1 * rho) -
          j_unit * m_omega_mu * ((m_slab.permittivity - 1.0) * pq[0] + m_slab.permittivity * pq[1]);
+}
+
+std::shared_ptr<const ProbeKernels> shared_probe_kernels(const GroundedSlab& slab, Real largest_distance) {
+  static RecentTables<ProbeKernels> tables(256);
+  return tables.find_or_make(
+      [&](const ProbeKernels& k) { return same_slab(k.slab(), slab) && k.reach() >= largest_distance; },
+      [&] { return std::make_shared<const ProbeKernels>(slab, largest_distance); });
 }
 
 Complex ProbeKernels::Grid::at(Real rho) const {

@@ -4,6 +4,8 @@
 /// coupling to itself and to other probes. Both leave out the potential of the charge the
 /// probe's current leaves at its top; the junction star that carries the current on into the
 /// plate holds that charge, and the surface kernels account for it.
+#include <memory>
+
 #include "solver/grounded_slab.hpp"
 
 namespace lobe {
@@ -23,6 +25,10 @@ class ProbeKernels {
   /// Sommerfeld integration: a model has few probes.
   Complex self(Real rho) const;
 
+  const GroundedSlab& slab() const { return m_slab; }
+  /// The largest distance the coupling table covers, m.
+  Real reach() const { return m_reach; }
+
  private:
   struct Grid {
     Real step = 0.0, end = 0.0;
@@ -31,7 +37,12 @@ class ProbeKernels {
   };
   GroundedSlab m_slab;
   Real m_omega_mu = 0.0;  ///< ωμ0
+  Real m_reach = 0.0;
   Grid m_near, m_far;
 };
+
+/// The kernels for `slab` reaching at least `largest_distance`, made once and kept like the
+/// slab's kernel table (solver/slab_kernel_table.hpp), so the cases of a sweep share them.
+std::shared_ptr<const ProbeKernels> shared_probe_kernels(const GroundedSlab& slab, Real largest_distance);
 
 }  // namespace lobe

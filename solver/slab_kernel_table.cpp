@@ -2,11 +2,10 @@
 
 #include <algorithm>
 #include <cmath>
-#include <deque>
-#include <mutex>
 
 #include "core/constants.hpp"
 #include "solver/phase_factor.hpp"
+#include "solver/recent_tables.hpp"
 #include "solver/slab_kernels.hpp"
 #include "solver/sommerfeld_integral.hpp"
 #include "solver/uniform_grid_interpolation.hpp"
@@ -128,23 +127,10 @@ SlabRemainders SlabKernelTable::remainder(Real rho) const {
 std::shared_ptr<const SlabKernelTable> shared_slab_kernel_table(const GroundedSlab& slab, Real largest_distance) {
   // A sweep over one band needs as many tables as it has frequencies; a table is tens of KiB
   // for a patch, a few MiB for a board many wavelengths across.
-  constexpr std::size_t kept = 256;
-  static std::mutex guard;
-  static std::deque<std::shared_ptr<const SlabKernelTable>> tables;
-  const auto same = [&](const SlabKernelTable& t) {
-    return t.slab().thickness == slab.thickness && t.slab().permittivity == slab.permittivity && t.slab().k0 == slab.k0 &&
-           t.reach() >= largest_distance;
-  };
-  {
-    const std::lock_guard<std::mutex> lock(guard);
-    for (const auto& t : tables)
-      if (same(*t)) return t;
-  }
-  auto table = std::make_shared<const SlabKernelTable>(slab, largest_distance);
-  const std::lock_guard<std::mutex> lock(guard);
-  tables.push_back(table);
-  if (tables.size() > kept) tables.pop_front();
-  return table;
+  static RecentTables<SlabKernelTable> tables(256);
+  return tables.find_or_make(
+      [&](const SlabKernelTable& t) { return same_slab(t.slab(), slab) && t.reach() >= largest_distance; },
+      [&] { return std::make_shared<const SlabKernelTable>(slab, largest_distance); });
 }
 
 SlabRemainders SlabKernelTable::Grid::at(Real rho) const {

@@ -323,6 +323,11 @@ TEST(SlabKernelTable, TablesAreMadeOnceAndShared) {
   EXPECT_EQ(shared_slab_kernel_table(slab, 0.04), first);
   EXPECT_NE(shared_slab_kernel_table(slab, 0.06), first);
   EXPECT_NE(shared_slab_kernel_table({1.6e-3, Complex(4.4, -0.088), 1.01 * k0}, 0.05), first);
+  // The probes' kernels likewise; a table read where it was made in one thread or two agrees.
+  const auto probes = shared_probe_kernels(slab, 0.05);
+  EXPECT_EQ(shared_probe_kernels(slab, 0.04), probes);
+  EXPECT_NE(shared_probe_kernels({1.6e-3, Complex(4.4, -0.088), 1.01 * k0}, 0.05), probes);
+  EXPECT_EQ(ProbeKernels(slab, 0.05).coupling(0.0123), probes->coupling(0.0123));
 }
 
 // The thickness's fine scale is tabulated only out to 40 thicknesses: a 10 um board under a
