@@ -108,12 +108,26 @@ ProbeSpectrum probe_spectrum(const GroundedSlab& slab, Complex k_rho) {
   return {f.sigma / f.tm, f.sigma * f.sigma / (f.te * f.tm), f.u0 * f.sigma / (f.u1_squared * f.tm)};
 }
 
-Complex probe_far_field_length(const GroundedSlab& slab, Real theta) {
+namespace {
+
+/// The vertical wavenumbers of the plane wave leaving at θ from the zenith, in air and in the
+/// slab, and τ = tan(k_z1 h)/k_z1 (→ h as k_z1 → 0, at grazing on an air board), the form
+/// in which the far-field factors never divide by zero.
+struct FarZoneWavenumbers {
+  Complex kz0, kz1, tau;
+};
+FarZoneWavenumbers far_zone_wavenumbers(const GroundedSlab& slab, Real theta) {
   const Real st = std::sin(theta);
   const Complex kz0 = slab.k0 * std::cos(theta);
   const Complex kz1 = slab.k0 * std::sqrt(slab.permittivity - st * st);
   const Complex x = kz1 * slab.thickness;
-  const Complex tau = std::abs(x) < 1e-4 ? slab.thickness * (1.0 + x * x / 3.0) : std::tan(x) / kz1;
+  return {kz0, kz1, std::abs(x) < 1e-4 ? slab.thickness * (1.0 + x * x / 3.0) : std::tan(x) / kz1};
+}
+
+}  // namespace
+
+Complex probe_far_field_length(const GroundedSlab& slab, Real theta) {
+  const auto [kz0, kz1, tau] = far_zone_wavenumbers(slab, theta);
   return 2.0 * j_unit * kz0 * tau * std::exp(j_unit * kz0 * slab.thickness) /
          (j_unit * slab.permittivity * kz0 - kz1 * kz1 * tau);
 }
@@ -162,13 +176,8 @@ std::vector<SurfaceWavePole> surface_wave_poles(const GroundedSlab& slab) {
 }
 
 SlabFarFieldFactors slab_far_field_factors(const GroundedSlab& slab, Real theta) {
-  const Real st = std::sin(theta);
-  const Complex kz0 = slab.k0 * std::cos(theta);
-  const Complex kz1 = slab.k0 * std::sqrt(slab.permittivity - st * st);
-  // With τ = tan(k_z1 h)/k_z1 (→ h as k_z1 → 0, at grazing on an air board) neither factor
-  // divides by zero: te = 2j k_z0 τ/(1 + j k_z0 τ), tm = 2j k_z1² τ/(εr k_z0 + j k_z1² τ).
-  const Complex x = kz1 * slab.thickness;
-  const Complex tau = std::abs(x) < 1e-4 ? slab.thickness * (1.0 + x * x / 3.0) : std::tan(x) / kz1;
+  // te = 2j k_z0 τ/(1 + j k_z0 τ), tm = 2j k_z1² τ/(εr k_z0 + j k_z1² τ).
+  const auto [kz0, kz1, tau] = far_zone_wavenumbers(slab, theta);
   const Complex kz1_squared = kz1 * kz1;
   return {2.0 * j_unit * kz0 * tau / (1.0 + j_unit * kz0 * tau),
           2.0 * j_unit * kz1_squared * tau / (slab.permittivity * kz0 + j_unit * kz1_squared * tau)};
