@@ -20,8 +20,9 @@ RunOutcome solve_and_publish(const PreparedRun& prepared, Run& run, const StudyC
                              Write write, Summary summary) {
   const AntennaProblem& problem = *prepared.problem;
   RunOutcome outcome;
-  outcome.finished = solve_each_frequency(problem, control, [&](FrequencySolution&& solution) {
-    run.results.push_back(evaluate(problem, solution));
+  run.results.resize(problem.model.frequencies_hz.size());
+  outcome.finished = solve_each_frequency(problem, control, [&](std::size_t index, FrequencySolution&& solution) {
+    run.results[index] = evaluate(problem, solution);
   });
   if (!outcome.finished) return outcome;
   OutputFiles files(prepared.directory);

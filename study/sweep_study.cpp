@@ -70,9 +70,6 @@ bool saved_whole(const std::filesystem::path& path, const StudyControl& control)
   }
 }
 
-/// Cases of at most this many unknowns run side by side (measured on 2 cores: see DEVELOPERS).
-constexpr int largest_case_side_by_side = 1000;
-
 }  // namespace
 
 std::vector<Override> case_overrides(const PreparedSweep& sweep, std::size_t index) {
@@ -148,7 +145,7 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
   // than on two). Large ones run one after another with every thread inside.
   const int threads = thread_count();
   const bool side_by_side = threads > 1 && pending.size() > 1 &&
-                            case_unknowns(sweep, pending.front()) <= largest_case_side_by_side;
+                            case_unknowns(sweep, pending.front()) <= largest_problem_side_by_side;
   if (side_by_side) set_thread_count(1);
   std::set<std::string> warned;  // each distinct mesh warning once, not once per case
   bool estimated = false, stopped = false;
@@ -177,9 +174,11 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
       std::string command = "lobe sweep case " + case_name(c) + ":";
       for (const auto& o : case_overrides(sweep, c)) command += " --set " + o.name + "=" + o.expression;
       RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), command, std::nullopt}};
-      const bool whole = solve_each_frequency(problem, {control.cancel, {}, {}, {}, {}}, [&](FrequencySolution&& s) {
-        run.results.push_back(evaluate_frequency(problem, s));
-      });
+      run.results.resize(model.frequencies_hz.size());
+      const bool whole = solve_each_frequency(problem, {control.cancel, {}, {}, {}, {}},
+                                              [&](std::size_t index, FrequencySolution&& s) {
+                                                run.results[index] = evaluate_frequency(problem, s);
+                                              });
 #pragma omp critical(lobe_sweep_state)
       {
         if (!whole) {

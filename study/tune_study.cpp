@@ -55,11 +55,10 @@ struct Evaluator {
     const Model model = load_model(r.model_path, overrides_with(r.set_options, names_of(tuned), values));
     const AntennaProblem problem(model);
     require_solvable(problem);
-    ReflectionCurve curve;
+    ReflectionCurve curve{model.frequencies_hz, std::vector<Complex>(model.frequencies_hz.size())};
     const StudyControl frequencies{control.cancel, {}, {}, {}, {}};
-    const bool whole = solve_each_frequency(problem, frequencies, [&](FrequencySolution&& solution) {
-      curve.frequency_hz.push_back(solution.frequency_hz);
-      curve.reflection.push_back(port_results(solution, model.reference_ohm)[0].reflection);
+    const bool whole = solve_each_frequency(problem, frequencies, [&](std::size_t index, FrequencySolution&& solution) {
+      curve.reflection[index] = port_results(solution, model.reference_ohm)[0].reflection;
     });
     if (!whole) return std::nullopt;
     return band_figure(band_report(curve, tuning.band.low_hz, tuning.band.high_hz), r.goal);

@@ -118,6 +118,29 @@ TEST(DemoModels, OverridesAndThreadsAreHonouredAndReported) {
   EXPECT_NE(r.out.find("1 thread"), std::string::npos) << r.out;
 }
 
+// A small model solves its frequencies side by side on two threads (one each): every
+// frequency's row must be where one thread puts it, with the same numbers to rounding.
+TEST(DemoModels, SideBySideFrequenciesGiveTheOneThreadResults) {
+  const auto dir = fresh_directory("side-by-side");
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/crossed_dipole_gnss.lobe";
+  std::vector<std::vector<Row>> ports;
+  for (const char* threads : {"1", "2"}) {
+    const auto out = dir / (std::string("threads-") + threads);
+    const ProcessResult r = run_lobe("run '" + model + "' -o '" + out.string() + "' --threads " + threads, dir);
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    ports.push_back(read_csv(out / "crossed_dipole_gnss_ports.csv"));
+  }
+  ASSERT_EQ(ports[0].size(), ports[1].size());
+  ASSERT_GT(ports[0].size(), 2u);
+  for (std::size_t i = 0; i < ports[0].size(); ++i) {
+    EXPECT_EQ(ports[0][i].at("frequency_hz"), ports[1][i].at("frequency_hz"));
+    EXPECT_EQ(ports[0][i].at("port"), ports[1][i].at("port"));
+    for (const char* column : {"resistance_ohm", "reactance_ohm"})
+      EXPECT_NEAR(number(ports[0][i], column), number(ports[1][i], column), 1e-9 * (1 + std::abs(number(ports[0][i], column))))
+          << column << " at " << ports[0][i].at("frequency_hz");
+  }
+}
+
 TEST(DemoModels, HalfWaveDipoleIsMatchedInItsBand) {
   const DemoRun run = run_demo("half_wave_dipole_ism");
   const auto band = in_band(run.ports, 863e6, 870e6);
