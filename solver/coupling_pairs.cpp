@@ -138,22 +138,13 @@ std::vector<SourceField> star_fields(const JunctionStar& star, const Vec3& r, Re
   return fields;
 }
 
-/// A star moved down by `depth` (to a quasi-static image of a substrate).
-JunctionStar lowered(const JunctionStar& star, Real depth) {
-  JunctionStar moved = star;
-  const Vec3 down(0.0, 0.0, depth);
-  moved.vertex -= down;
-  for (StarTriangle& t : moved.triangles) t.a -= down, t.b -= down;
-  return moved;
-}
-
 /// On a substrate, what the slab adds to a star's fields at p beyond the quasi-static direct
 /// term (which the caller has scaled): the table's remainder summed over the star's samples
 /// and, near the star, its quasi-static images integrated exactly in place of their share of
 /// those sums (they vary on the thickness's scale, finer than the samples).
-void add_slab_star_terms(const TestPoint& p, const JunctionStar& star, const FillContext& c,
+void add_slab_star_terms(const TestPoint& p, const JunctionStar& star, const SlabStar& slab_star, const FillContext& c,
                          std::vector<MatrixContribution>& out) {
-  const std::vector<StarSample> samples = star_samples(star, duffy_order);
+  const std::vector<StarSample>& samples = slab_star.samples;
   constexpr int batch = 64;
   Complex scalar = 0.0;
   Eigen::Vector3cd vector = Eigen::Vector3cd::Zero();
@@ -169,9 +160,8 @@ void add_slab_star_terms(const TestPoint& p, const JunctionStar& star, const Fil
     }
   }
   if ((p.r - star.vertex).norm() < 2.0 * near_in_sizes * star.radius()) {
-    for (const SlabStaticImage& image : slab_static_images(c.slab->slab().thickness, c.slab->slab().permittivity,
-                                                           near_in_sizes * star.radius())) {
-      const StarPotentials exact = star_potentials(lowered(star, image.depth), p.r, c.k);
+    for (const auto& [image, lowered] : slab_star.images) {
+      const StarPotentials exact = star_potentials(lowered, p.r, c.k);
       Complex by_points_scalar = 0.0;
       Eigen::Vector3cd by_points_vector = Eigen::Vector3cd::Zero();
       for (const StarSample& s : samples) {
@@ -231,7 +221,7 @@ void add_star_source_terms(const FillContext& c, int e, std::vector<MatrixContri
     if (c.slab) {
       // The free-space fields are the quasi-static term: the scalar's coefficient is 2/(εr + 1).
       for (SourceField& f : direct) f.scalar *= c.slab->quasi_static().scalar;
-      add_slab_star_terms(p, stars[j], c, terms);
+      add_slab_star_terms(p, stars[j], g.slab_stars[j], c, terms);
     }
     add_terms(p, direct, c, {}, terms);
     for (const ImagedElements& imaged : g.images)

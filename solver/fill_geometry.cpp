@@ -34,6 +34,18 @@ FillGeometry::FillGeometry(const WireMesh& wires, const SurfaceMesh& surface, co
       for (Vec3& v : moved.vertices) v.z() -= image.depth;
       slab_images.push_back({image, triangle_quadrature(moved)});
     }
+    for (const JunctionStar& star : stars) {
+      SlabStar slab_star{star_samples(star, slab_star_order), {}};
+      for (const SlabStaticImage& image : slab_static_images(medium.slab_thickness(), medium.slab_permittivity(),
+                                                             near_distance_in_sizes * star.radius())) {
+        JunctionStar moved = star;
+        const Vec3 down(0.0, 0.0, image.depth);
+        moved.vertex -= down;
+        for (StarTriangle& t : moved.triangles) t.a -= down, t.b -= down;
+        slab_star.images.emplace_back(image, std::move(moved));
+      }
+      slab_stars.push_back(std::move(slab_star));
+    }
   }
 }
 

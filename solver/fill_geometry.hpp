@@ -28,6 +28,17 @@ struct SlabImageTriangles {
   std::vector<TriangleQuadrature> triangles;
 };
 
+/// A junction star as the substrate's fill needs it: its Duffy samples (the table's
+/// remainder is summed over them) and the star moved down to each quasi-static image
+/// shallow enough to be near it (integrated exactly in place of the samples' share).
+/// Duffy points per direction on each star triangle for the substrate's remainder.
+constexpr int slab_star_order = 8;
+
+struct SlabStar {
+  std::vector<StarSample> samples;
+  std::vector<std::pair<SlabStaticImage, JunctionStar>> images;
+};
+
 struct FillGeometry {
   FillGeometry(const WireMesh& wires, const SurfaceMesh& surface, const std::vector<JunctionStar>& stars,
                const Medium& medium);
@@ -38,6 +49,8 @@ struct FillGeometry {
   std::vector<ImagedElements> images;  ///< one per image term of the medium
   /// On a substrate, its quasi-static images shallow enough to be near a triangle.
   std::vector<SlabImageTriangles> slab_images;
+  /// On a substrate, one per junction star.
+  std::vector<SlabStar> slab_stars;
 };
 
 }  // namespace lobe
