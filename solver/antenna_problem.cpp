@@ -118,20 +118,27 @@ std::vector<Probe> probes_of(const Model& model, const WireMesh& mesh, const std
     return std::abs(from.x() - to.x()) <= tolerance && std::abs(from.y() - to.y()) <= tolerance &&
            std::abs(from.z()) <= tolerance && std::abs(to.z() - board.thickness) <= tolerance;
   };
-  // Every wire first, so that a wire above the board is named as such, not as a probe's
-  // neighbour.
-  std::vector<int> segments_of(model.wires.size(), 0);
-  for (const Segment& seg : mesh.segments) ++segments_of[seg.wire];
+  // Every wire's ends first, so that a wire above the board is named as such, not as a
+  // probe's neighbour. A wire's segments follow each other from its start to its end.
+  struct Span {
+    Vec3 start, end;
+    int segments = 0;
+  };
+  std::vector<Span> spans(model.wires.size());
   for (const Segment& seg : mesh.segments) {
-    const Wire& wire = model.wires[seg.wire];
-    const Segment* last = &seg;
-    while (last + 1 <= &mesh.segments.back() && (last + 1)->wire == seg.wire) ++last;
-    if (!is_probe_line(seg.start, seg.end) && !is_probe_line(seg.start, last->end))
+    Span& span = spans[seg.wire];
+    if (span.segments++ == 0) span.start = seg.start;
+    span.end = seg.end;
+  }
+  for (std::size_t w = 0; w < spans.size(); ++w) {
+    const Wire& wire = model.wires[w];
+    if (spans[w].segments == 0) continue;
+    if (!is_probe_line(spans[w].start, spans[w].end))
       throw InputError(wire.where, "wire '" + wire.name + "' on substrate '" + board.name +
                                        "': only probes are modelled, straight up from the ground (z = 0) to a plate on "
                                        "the top face (z = " + millimetres(board.thickness) +
                                        "); wires in the air above the board are not modelled yet");
-    if (segments_of[seg.wire] > 1)
+    if (spans[w].segments > 1)
       throw InputError(wire.where, "probe '" + wire.name + "' must be one segment: its current is taken as uniform "
                                    "through the board (remove 'segments')");
   }
