@@ -7,7 +7,6 @@
 #include "solver/complex_bessel.hpp"
 #include "solver/recent_tables.hpp"
 #include "solver/sommerfeld_integral.hpp"
-#include "solver/uniform_grid_interpolation.hpp"
 
 namespace lobe {
 namespace {
@@ -45,8 +44,7 @@ ProbeKernels::ProbeKernels(const GroundedSlab& slab, Real largest_distance)
   const Complex scale = j_unit * m_omega_mu * (slab.permittivity - 1.0);
   Real read_from = 0.0;
   for (Grid* grid : {&m_near, &m_far}) {
-    grid->values.assign(static_cast<std::size_t>(std::ceil(grid->end / grid->step)) + 4, 0.0);
-    const auto first = static_cast<std::size_t>(std::max(0.0, std::floor(read_from / grid->step) - 2.0));
+    const std::size_t first = grid->size_for_reads_above(read_from);
     read_from = std::max(read_from, grid->end);
     if (slab.permittivity == 1.0) continue;
     const auto count = static_cast<std::ptrdiff_t>(grid->values.size());
@@ -70,13 +68,6 @@ std::shared_ptr<const ProbeKernels> shared_probe_kernels(const GroundedSlab& sla
   return tables.find_or_make(
       [&](const ProbeKernels& k) { return same_slab(k.slab(), slab) && k.reach() >= largest_distance; },
       [&] { return std::make_shared<const ProbeKernels>(slab, largest_distance); });
-}
-
-Complex ProbeKernels::Grid::at(Real rho) const {
-  const CubicStencil s = cubic_stencil(rho / step, static_cast<int>(values.size()));
-  Complex result = 0.0;
-  for (int i = 0; i < 4; ++i) result += s.weight[i] * values[s.first + i];
-  return result;
 }
 
 }  // namespace lobe

@@ -7,6 +7,7 @@
 #include <memory>
 
 #include "solver/grounded_slab.hpp"
+#include "solver/uniform_grid_interpolation.hpp"
 
 namespace lobe {
 
@@ -30,11 +31,7 @@ class ProbeKernels {
   Real reach() const { return m_reach; }
 
  private:
-  struct Grid {
-    Real step = 0.0, end = 0.0;
-    std::vector<Complex> values;
-    Complex at(Real rho) const;
-  };
+  using Grid = UniformGrid<Complex>;
   GroundedSlab m_slab;
   Real m_omega_mu = 0.0;  ///< ωμ0
   Real m_reach = 0.0;

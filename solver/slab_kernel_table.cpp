@@ -8,7 +8,6 @@
 #include "solver/recent_tables.hpp"
 #include "solver/slab_kernels.hpp"
 #include "solver/sommerfeld_integral.hpp"
-#include "solver/uniform_grid_interpolation.hpp"
 
 namespace lobe {
 namespace {
@@ -87,10 +86,8 @@ SlabKernelTable::SlabKernelTable(const GroundedSlab& slab, Real largest_distance
 
   Real read_from = 0.0;
   for (Grid& grid : m_grids) {
-    // A grid is read from the previous one's end, and its four-point stencil reaches one
-    // step below that: the points nearer ρ = 0 are never read and stay zero.
-    grid.values.resize(static_cast<std::size_t>(std::ceil(grid.end / grid.step)) + 4);
-    const auto first = static_cast<std::size_t>(std::max(0.0, std::floor(read_from / grid.step) - 2.0));
+    // Each grid is read from the previous one's end; the points nearer ρ = 0 stay zero.
+    const std::size_t first = grid.size_for_reads_above(read_from);
     read_from = std::max(read_from, grid.end);
     for (std::size_t i = first; i < grid.values.size(); ++i) {
       const Real rho = static_cast<Real>(i) * grid.step;
@@ -131,16 +128,6 @@ std::shared_ptr<const SlabKernelTable> shared_slab_kernel_table(const GroundedSl
   return tables.find_or_make(
       [&](const SlabKernelTable& t) { return same_slab(t.slab(), slab) && t.reach() >= largest_distance; },
       [&] { return std::make_shared<const SlabKernelTable>(slab, largest_distance); });
-}
-
-SlabRemainders SlabKernelTable::Grid::at(Real rho) const {
-  const CubicStencil s = cubic_stencil(rho / step, static_cast<int>(values.size()));
-  SlabRemainders result;
-  for (int i = 0; i < 4; ++i) {
-    result.vector += s.weight[i] * values[s.first + i].vector;
-    result.scalar += s.weight[i] * values[s.first + i].scalar;
-  }
-  return result;
 }
 
 }  // namespace lobe

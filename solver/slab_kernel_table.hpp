@@ -14,13 +14,20 @@
 #include <vector>
 
 #include "solver/grounded_slab.hpp"
+#include "solver/uniform_grid_interpolation.hpp"
 
 namespace lobe {
 
 struct SlabRemainders {
   Complex vector = 0.0;
   Complex scalar = 0.0;
+  SlabRemainders& operator+=(const SlabRemainders& o) {
+    vector += o.vector;
+    scalar += o.scalar;
+    return *this;
+  }
 };
+inline SlabRemainders operator*(Real w, const SlabRemainders& r) { return {w * r.vector, w * r.scalar}; }
 
 class SlabKernelTable {
  public:
@@ -46,12 +53,7 @@ class SlabKernelTable {
   }
 
  private:
-  struct Grid {
-    Real step = 0.0;
-    Real end = 0.0;  ///< read below this radius (the last grid: everywhere beyond the others)
-    std::vector<SlabRemainders> values;
-    SlabRemainders at(Real rho) const;
-  };
+  using Grid = UniformGrid<SlabRemainders>;
   /// The demodulated remainders from the grid that covers ρ.
   SlabRemainders demodulated(Real rho) const {
     return rho < m_grids[0].end ? m_grids[0].at(rho) : rho < m_grids[1].end ? m_grids[1].at(rho) : m_grids[2].at(rho);

@@ -2,6 +2,8 @@
 /// Four-point Lagrange interpolation on a uniform grid of tabulated values.
 #include <algorithm>
 #include <cmath>
+#include <cstddef>
+#include <vector>
 
 #include "core/types.hpp"
 
@@ -23,5 +25,30 @@ inline CubicStencil cubic_stencil(Real x, int size) {
   s.weight[3] = up * u * um / 6.0;
   return s;
 }
+
+/// Values on the nodes 0, step, 2 step, … of a uniform grid read below `end` (the last of
+/// several grids: everywhere beyond the others), read by the cubic above. Value needs
+/// `Value += Real * Value`.
+template <class Value>
+struct UniformGrid {
+  Real step = 0.0;
+  Real end = 0.0;
+  std::vector<Value> values;
+
+  /// Makes room for the nodes out to `end` and the stencil beyond, and returns the first
+  /// node a read above `read_from` (the previous grid's end) reaches: the stencil reaches
+  /// one step below its read, so nodes before that are never read and need no value.
+  std::size_t size_for_reads_above(Real read_from) {
+    values.assign(static_cast<std::size_t>(std::ceil(end / step)) + 4, Value{});
+    return static_cast<std::size_t>(std::max(0.0, std::floor(read_from / step) - 2.0));
+  }
+
+  Value at(Real x) const {
+    const CubicStencil s = cubic_stencil(x / step, static_cast<int>(values.size()));
+    Value result{};
+    for (int i = 0; i < 4; ++i) result += s.weight[i] * values[s.first + i];
+    return result;
+  }
+};
 
 }  // namespace lobe
