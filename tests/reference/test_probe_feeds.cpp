@@ -9,9 +9,9 @@
 #include <cstdio>
 
 #include "core/constants.hpp"
-#include "solver/assembly.hpp"
-#include "post/port_quantities.hpp"
 #include "post/frequency_result.hpp"
+#include "post/port_quantities.hpp"
+#include "solver/assembly.hpp"
 #include "solver/dense_matrix.hpp"
 #include "support/patch_formulas.hpp"
 #include "support/solve_text.hpp"
