@@ -146,14 +146,23 @@ std::string run_summary(const RunRecord& run) {
   for (const auto& band : model.bands) out += band_text(run, band);
 
   Real smallest_rcond = 1.0, largest_residual = 0.0;
+  std::size_t symmetric = 0, rechecked = 0;
   for (const auto& r : run.results) {
     smallest_rcond = std::min(smallest_rcond, r.report.reciprocal_condition);
     largest_residual = std::max(largest_residual, r.report.relative_residual);
+    symmetric += r.report.factorization == Factorization::symmetric;
+    rechecked += r.report.factorization == Factorization::lu_after_check;
   }
   const std::string condition = smallest_rcond > 0 ? formatted("%.2g", 1.0 / smallest_rcond) : "infinite";
-  out += formatted("\nmatrix: condition number up to %s, relative residual up to %.1e%s\n", condition.c_str(),
-                       largest_residual,
-                       smallest_rcond < ill_conditioned_rcond ? " (ill-conditioned: check the geometry)" : "");
+  const std::string method = symmetric == run.results.size() ? "symmetric LDLt"
+                             : symmetric == 0               ? "LU"
+                                                            : "symmetric LDLt and LU";
+  out += formatted("\nmatrix: factored by %s, condition number up to %s, relative residual up to %.1e%s\n",
+                   method.c_str(), condition.c_str(), largest_residual,
+                   smallest_rcond < ill_conditioned_rcond ? " (ill-conditioned: check the geometry)" : "");
+  if (rechecked > 0)
+    out += formatted("! at %zu frequencies the symmetric factors failed their accuracy check (pivot growth); "
+                     "those were factored by LU\n", rechecked);
 
   Real worst = 1.0, worst_hz = 0.0;
   for (const auto& r : run.results)

@@ -1,16 +1,18 @@
 #pragma once
-/// Dense complex matrix factored by LU with partial pivoting (LAPACK zgetrf, OpenBLAS).
+/// Dense complex matrix, factored by a symmetric LDLᵀ when it is symmetric and by LU otherwise.
 #include <vector>
 
+#include "solver/symmetric_factorization.hpp"
 #include "solver/system_matrix.hpp"
 
 namespace lobe {
 
-/// A Galerkin fill gives Z_mn = Z_nm, and a symmetric LDLᵀ (zsytrf) would do half an LU's
-/// work; but OpenBLAS 0.3.21's optimised kernels (Haswell, SkylakeX: what real hardware
-/// gets) crash inside zsytrf's threaded zgemv now and then (measured: 2 of 36 random
-/// factorisations of order 1,500 to 2,600), while OpenBLAS's own parallel LU never did in
-/// 204. A crash loses a night's sweep; an LU costs 1.4× the time with those kernels.
+/// A Galerkin fill gives Z_mn = Z_nm, and a symmetric matrix is factored as L D Lᵀ with
+/// Bunch–Kaufman pivoting (symmetric_factorization: half an LU's work). The factors are
+/// checked by solving one right-hand side: where the normwise backward error passes
+/// `largest_symmetric_backward_error` (the pivoting let the factors grow), or the matrix is
+/// not symmetric, the matrix is factored by LU with partial pivoting (LAPACK zgetrf) and
+/// the report says which and why.
 /// Memory: two N×N complex buffers (the factors and the original, kept for the residual).
 class DenseMatrix final : public SystemMatrix {
  public:
@@ -24,9 +26,19 @@ class DenseMatrix final : public SystemMatrix {
   ComplexMatrix solve(const ComplexMatrix& rhs, SolveReport& report) const override;
 
  private:
+  /// Solves in place with the factors.
+  void solve_in_place(ComplexMatrix& x) const;
+  /// 1/cond₁(Z) from the factors (Higham's estimator, LAPACK zlacn2).
+  Real estimate_reciprocal_condition(Real norm1) const;
+  /// Factors m_entries (a copy of m_original) by LDLᵀ; false, with m_entries restored,
+  /// when the factors fail the backward-error check.
+  bool factor_symmetric_checked();
+
   ComplexMatrix m_entries;
   ComplexMatrix m_original;
+  Factorization m_factorization = Factorization::lu;
   std::vector<int> m_pivots;
+  SymmetricPivots m_symmetric_pivots;
   Real m_reciprocal_condition = 0.0;
   bool m_factored = false;
 };

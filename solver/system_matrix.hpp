@@ -21,8 +21,16 @@ struct MatrixContribution {
   Complex value;
 };
 
+/// How a system matrix was factored.
+enum class Factorization {
+  symmetric,      ///< L D Lᵀ with Bunch–Kaufman pivoting (half an LU's work)
+  lu,             ///< LU with partial pivoting: the matrix is not symmetric
+  lu_after_check  ///< LU because the symmetric factors failed their backward-error check
+};
+
 /// How well a factor-and-solve went.
 struct SolveReport {
+  Factorization factorization = Factorization::lu;
   Real reciprocal_condition = 0.0;  ///< LAPACK's 1-norm estimate of 1/cond(Z)
   Real relative_residual = 0.0;     ///< max over columns of ‖Z x − b‖ / ‖b‖
 };

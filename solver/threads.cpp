@@ -1,5 +1,7 @@
 #include "solver/threads.hpp"
 
+#include "solver/blas_kernels.hpp"
+
 #ifdef _OPENMP
 #include <omp.h>
 #endif
@@ -9,6 +11,7 @@ extern "C" void openblas_set_num_threads(int);
 namespace lobe {
 
 void set_thread_count(int n) {
+  use_fastest_blas_kernels();
 #ifdef _OPENMP
   omp_set_num_threads(n);
 #endif
