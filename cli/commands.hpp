@@ -94,6 +94,16 @@ struct SweepOptions {
   int threads = 0;
 };
 
+struct BenchOptions {
+  std::string output = "lobe-bench.csv";
+  bool quick = false;  ///< models of a few hundred unknowns (seconds, for tests)
+  int threads = 0;
+};
+
+/// Measures this machine's rates and the solver's speed against them (bench/benchmark),
+/// prints the table and writes it as CSV.
+int bench_command(const BenchOptions& options);
+
 /// Solves every combination of the varied values, saving each finished case at once (a
 /// crash loses at most the case in flight; re-running the same command goes on where it
 /// stopped), then writes one file of all cases and, with a rank, prints the best ten.

@@ -145,6 +145,12 @@ int main(int argc, char** argv) {
   tune_app->add_option("-o,--output", tune.study.output, "The tuned model (default: MODEL-STEM-tuned.lobe)");
   tune_app->add_option("--threads", tune.threads, "Threads (default: all cores)")->check(thread_range());
 
+  lobe::cli::BenchOptions bench;
+  auto* bench_app = app.add_subcommand("bench", "Measure this machine's rates and the solver's speed against them");
+  bench_app->add_option("-o,--output", bench.output, "CSV file for the table (default: lobe-bench.csv)");
+  bench_app->add_flag("--quick", bench.quick, "Small models only: a check in seconds, not a measurement");
+  bench_app->add_option("--threads", bench.threads, "Threads (default: all cores)")->check(thread_range());
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -160,6 +166,7 @@ int main(int argc, char** argv) {
     if (*plot_app) return lobe::cli::plot_command(plot);
     if (*sweep_app) return lobe::cli::sweep_command(sweep);
     if (*tune_app) return lobe::cli::tune_command(tune);
+    if (*bench_app) return lobe::cli::bench_command(bench);
     return lobe::cli::check_command(check_path, check_sets);
   } catch (const lobe::InputError& e) {
     std::fprintf(stderr, "%s\n", e.formatted().c_str());

@@ -1,0 +1,32 @@
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+
+#include "bench/benchmark.hpp"
+#include "cli/commands.hpp"
+#include "core/output_error.hpp"
+#include "post/output_files.hpp"
+#include "solver/threads.hpp"
+#include "study/output_checks.hpp"
+
+namespace lobe::cli {
+
+int bench_command(const BenchOptions& options) {
+  if (options.threads > 0) set_thread_count(options.threads);
+  std::filesystem::path target(options.output);
+  if (target.extension() != ".csv") throw InputError({"--output", 1, 1}, "the benchmark's table must end in .csv");
+  const std::filesystem::path directory = target.has_parent_path() ? target.parent_path() : std::filesystem::path(".");
+  // Checked before the minute of measuring, not after it.
+  check_output_directory(directory);
+  const BenchmarkReport report = run_benchmark(options.quick, [](const std::string& what) {
+    std::fprintf(stderr, "measuring %s ...\n", what.c_str());
+  });
+  std::printf("%s", benchmark_table(report).c_str());
+  OutputFiles files(directory);
+  const auto staging = files.staging_path(target.filename().string());
+  std::ofstream(staging) << benchmark_csv(report);
+  for (const auto& path : files.commit()) std::printf("\nresults:\n  %s\n", path.string().c_str());
+  return 0;
+}
+
+}  // namespace lobe::cli
