@@ -375,3 +375,30 @@ TEST(Sweep, StudyChecksComeBeforeAnySolving) {
 
 }  // namespace
 }  // namespace lobe::testing
+
+namespace lobe::testing {
+namespace {
+
+// `lobe bench --quick` measures, prints its table and writes one CSV line per model and one
+// for the sweep, with positive rates; a table file not ending in .csv is refused first.
+TEST(Bench, QuickRunPrintsTheTableAndWritesTheCsv) {
+  const auto dir = fresh_directory("bench");
+  const ProcessResult result = run_lobe("bench --quick -o '" + (dir / "b.csv").string() + "'", dir);
+  ASSERT_EQ(result.exit_code, 0) << result.err;
+  EXPECT_NE(result.out.find("zgemm"), std::string::npos);
+  EXPECT_NE(result.out.find("variants an hour"), std::string::npos);
+  std::ifstream csv(dir / "b.csv");
+  std::string line;
+  std::vector<std::string> lines;
+  while (std::getline(csv, line)) lines.push_back(line);
+  ASSERT_EQ(lines.size(), 4u);  // header, two models, the sweep
+  EXPECT_EQ(lines[0].rfind("model,unknowns,fill_s", 0), 0u);
+  // The wire model's row: unknowns, then a positive fill time.
+  EXPECT_GT(std::stod(lines[1].substr(lines[1].find(',') + 1)), 100.0);
+  const ProcessResult refused = run_lobe("bench --quick -o '" + (dir / "b.txt").string() + "'", dir);
+  EXPECT_EQ(refused.exit_code, 2);
+  EXPECT_NE(refused.err.find("must end in .csv"), std::string::npos);
+}
+
+}  // namespace
+}  // namespace lobe::testing
