@@ -76,18 +76,41 @@ constexpr Real largest_symmetric_backward_error = 1e-12;
 /// Galerkin fill mirrors every term and gives exactly equal entries).
 constexpr Real symmetry_tolerance = 1e-13;
 
-bool is_symmetric(const ComplexMatrix& z) {
-  const Real limit = symmetry_tolerance * z.cwiseAbs().maxCoeff();
+/// The matrix's 1-norm, and whether it is symmetric to `symmetry_tolerance` of its largest
+/// entry: one pass over the lower triangle's tiles and their mirrors, shared among the
+/// threads (a pass over N² entries is a tenth of a second at N = 5,000).
+struct NormAndSymmetry {
+  Real norm1 = 0.0;
+  bool symmetric = true;
+};
+
+NormAndSymmetry norm_and_symmetry(const ComplexMatrix& z) {
+  const Eigen::Index n = z.rows();
+  Eigen::VectorXd column_sums(n);
+  Real largest_squared = 0.0;
+#pragma omp parallel for schedule(static) reduction(max : largest_squared)
+  for (Eigen::Index c = 0; c < n; ++c) {
+    // |z| as √(re² + im²): std::abs calls hypot, which guards against an overflow these
+    // entries cannot reach; with it this 1-norm alone took 0.44 s at N = 5,078, now the
+    // whole pass takes 0.2 s.
+    column_sums(c) = z.col(c).cwiseAbs2().cwiseSqrt().sum();
+    largest_squared = std::max(largest_squared, z.col(c).cwiseAbs2().maxCoeff());
+  }
+  const Real limit = symmetry_tolerance * symmetry_tolerance * largest_squared;
   // In tiles, so that the transposed reads stay in cache.
   constexpr Eigen::Index tile = 64;
-  const Eigen::Index n = z.rows();
-  for (Eigen::Index c0 = 0; c0 < n; c0 += tile)
+  const Eigen::Index tiles = (n + tile - 1) / tile;
+  bool symmetric = true;
+#pragma omp parallel for schedule(dynamic) reduction(&& : symmetric)
+  for (Eigen::Index t = 0; t < tiles; ++t) {
+    const Eigen::Index c0 = t * tile, columns = std::min(tile, n - c0);
     for (Eigen::Index r0 = c0; r0 < n; r0 += tile) {
-      const Eigen::Index rows = std::min(tile, n - r0), columns = std::min(tile, n - c0);
-      if ((z.block(r0, c0, rows, columns) - z.block(c0, r0, columns, rows).transpose()).cwiseAbs().maxCoeff() > limit)
-        return false;
+      const Eigen::Index rows = std::min(tile, n - r0);
+      if ((z.block(r0, c0, rows, columns) - z.block(c0, r0, columns, rows).transpose()).cwiseAbs2().maxCoeff() > limit)
+        symmetric = false;
     }
-  return true;
+  }
+  return {n > 0 ? column_sums.maxCoeff() : 0.0, symmetric};
 }
 
 /// A right-hand side with entries of unit size and scattered phases, the same every time.
@@ -99,14 +122,14 @@ ComplexMatrix check_vector(Eigen::Index n) {
 
 }  // namespace
 
-bool DenseMatrix::factor_symmetric_checked() {
+bool DenseMatrix::factor_symmetric_checked(Real norm1) {
   if (factor_symmetric(m_entries, m_symmetric_pivots)) {
     const ComplexMatrix b = check_vector(size());
     ComplexMatrix x = b;
     solve_symmetric(m_entries, m_symmetric_pivots, x);
     const ComplexMatrix residual = m_original * x - b;
-    const Real norm_inf = m_original.cwiseAbs().rowwise().sum().maxCoeff();
-    const Real backward_error = residual.cwiseAbs().maxCoeff() / (norm_inf * x.cwiseAbs().maxCoeff() + 1.0);
+    // ‖Z‖∞ = ‖Zᵀ‖₁ = ‖Z‖₁ for a symmetric matrix.
+    const Real backward_error = residual.cwiseAbs().maxCoeff() / (norm1 * x.cwiseAbs().maxCoeff() + 1.0);
     if (x.allFinite() && backward_error <= largest_symmetric_backward_error) return true;
   }
   m_entries = m_original;
@@ -118,9 +141,9 @@ void DenseMatrix::factor() {
   const auto n = static_cast<lapack_int>(size());
   if (!m_entries.allFinite()) throw NumericalError("the system matrix has non-finite entries");
   m_original = m_entries;
-  const Real norm1 = m_entries.cwiseAbs().colwise().sum().maxCoeff();
-  if (is_symmetric(m_entries)) {
-    m_factorization = factor_symmetric_checked() ? Factorization::symmetric : Factorization::lu_after_check;
+  const auto [norm1, symmetric] = norm_and_symmetry(m_entries);
+  if (symmetric) {
+    m_factorization = factor_symmetric_checked(norm1) ? Factorization::symmetric : Factorization::lu_after_check;
   } else {
     m_factorization = Factorization::lu;
   }

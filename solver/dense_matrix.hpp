@@ -30,9 +30,9 @@ class DenseMatrix final : public SystemMatrix {
   void solve_in_place(ComplexMatrix& x) const;
   /// 1/cond₁(Z) from the factors (Higham's estimator, LAPACK zlacn2).
   Real estimate_reciprocal_condition(Real norm1) const;
-  /// Factors m_entries (a copy of m_original) by LDLᵀ; false, with m_entries restored,
-  /// when the factors fail the backward-error check.
-  bool factor_symmetric_checked();
+  /// Factors m_entries (a copy of m_original, of 1-norm `norm1`) by LDLᵀ; false, with
+  /// m_entries restored, when the factors fail the backward-error check.
+  bool factor_symmetric_checked(Real norm1);
 
   ComplexMatrix m_entries;
   ComplexMatrix m_original;
