@@ -13,26 +13,33 @@ namespace {
 
 constexpr int n = TriangleQuadrature::points;
 
-/// ∫ G and ∫ G r' over Q at each of P's points, by 7 × 7 points.
-void far_inner(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k, std::array<Complex, n>& scalar,
-               std::array<Eigen::Vector3cd, n>& moment) {
-  std::array<Real, n * n> distance, weight, kernel_re, kernel_im;
-  for (int a = 0; a < n; ++a)
-    for (int b = 0; b < n; ++b) {
-      distance[a * n + b] = (p.x[a] - q.x[b]).norm();
-      weight[a * n + b] = q.w[b] * green_scale;
-    }
-  green_kernel_batch(k, distance.data(), weight.data(), kernel_re.data(), kernel_im.data(), n * n);
-  for (int a = 0; a < n; ++a) {
-    scalar[a] = 0.0;
-    moment[a].setZero();
-    for (int b = 0; b < n; ++b) {
-      const Complex g(kernel_re[a * n + b], kernel_im[a * n + b]);
-      scalar[a] += g;
-      moment[a] += g * q.x[b].cast<Complex>();
-    }
+/// A pair's integrals from four sums over P's points x_a (weights w_a), with S_a = ∫_Q G
+/// and M_a = ∫_Q G r' at x_a:  D = Σ w_a S_a,  B = Σ w_a S_a x_a,  C = Σ w_a M_a,
+/// A = Σ w_a x_a·M_a.  Then
+///   vector(i, j) = Σ_a w_a (x_a − p_i)·(M_a − q_j S_a) = A − q_j·B − p_i·C + (p_i·q_j) D,
+/// four sums per point instead of nine dot products (the outer integral had been a fifth
+/// of the fill's time).
+struct PairSums {
+  Complex a = 0.0, d = 0.0;
+  Eigen::Vector3cd b = Eigen::Vector3cd::Zero(), c = Eigen::Vector3cd::Zero();
+
+  void add(const Vec3& x, Real w, Complex scalar, const Eigen::Vector3cd& moment) {
+    d += w * scalar;
+    b += (w * scalar) * x.cast<Complex>();
+    c += w * moment;
+    a += w * (x.x() * moment.x() + x.y() * moment.y() + x.z() * moment.z());
   }
-}
+
+  TrianglePairIntegrals integrals(const TriangleQuadrature& p, const TriangleQuadrature& q) const {
+    const auto dot = [](const Vec3& r, const Eigen::Vector3cd& v) { return r.x() * v.x() + r.y() * v.y() + r.z() * v.z(); };
+    TrianglePairIntegrals result;
+    result.scalar = d;
+    for (int i = 0; i < 3; ++i)
+      for (int j = 0; j < 3; ++j)
+        result.vector(i, j) = a - dot(q.corners[j], b) - dot(p.corners[i], c) + p.corners[i].dot(q.corners[j]) * d;
+    return result;
+  }
+};
 
 }  // namespace
 
@@ -84,45 +91,45 @@ bool triangle_pair_is_near(const TriangleQuadrature& p, const TriangleQuadrature
   return (p.centroid - q.centroid).norm() < near_distance_in_sizes * std::max(p.size, q.size);
 }
 
-namespace {
-
-/// The outer 7-point integral over P of the inner potentials at P's points.
-TrianglePairIntegrals outer_integral(const TriangleQuadrature& p, const TriangleQuadrature& q,
-                                     const std::array<Complex, n>& inner_scalar,
-                                     const std::array<Eigen::Vector3cd, n>& inner_moment) {
-  TrianglePairIntegrals result;
-  for (int a = 0; a < n; ++a) {
-    result.scalar += p.w[a] * inner_scalar[a];
-    for (int i = 0; i < 3; ++i) {
-      const Eigen::Vector3cd from_corner = (p.x[a] - p.corners[i]).cast<Complex>();
-      for (int j = 0; j < 3; ++j)
-        // (r − p_i)·∫ G (r' − q_j) = (r − p_i)·(∫ G r' − q_j ∫ G)
-        result.vector(i, j) += p.w[a] * from_corner.dot(inner_moment[a] - q.corners[j].cast<Complex>() * inner_scalar[a]);
+// Compiled also for AVX-512 and AVX2 (chosen by CPU features at start-up), as the far
+// pairs are most of a surface fill.
+__attribute__((target_clones("avx512f", "avx2", "default"))) TrianglePairIntegrals triangle_pair_integrals_by_points(
+    const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
+  // The 49 kernels in one vectorised batch, then per point of P the inner sums over Q's
+  // points in real arithmetic.
+  std::array<Real, n * n> distance, weight, kernel_re, kernel_im;
+  for (int a = 0; a < n; ++a)
+    for (int b = 0; b < n; ++b) {
+      distance[a * n + b] = (p.x[a] - q.x[b]).norm();
+      weight[a * n + b] = q.w[b] * green_scale;
     }
+  green_kernel_batch(k, distance.data(), weight.data(), kernel_re.data(), kernel_im.data(), n * n);
+  PairSums sums;
+  for (int a = 0; a < n; ++a) {
+    Real s_re = 0.0, s_im = 0.0, m_re[3] = {0.0, 0.0, 0.0}, m_im[3] = {0.0, 0.0, 0.0};
+    for (int b = 0; b < n; ++b) {
+      const Real g_re = kernel_re[a * n + b], g_im = kernel_im[a * n + b];
+      s_re += g_re;
+      s_im += g_im;
+      for (int i = 0; i < 3; ++i) {
+        m_re[i] += g_re * q.x[b][i];
+        m_im[i] += g_im * q.x[b][i];
+      }
+    }
+    sums.add(p.x[a], p.w[a], Complex(s_re, s_im),
+             Eigen::Vector3cd(Complex(m_re[0], m_im[0]), Complex(m_re[1], m_im[1]), Complex(m_re[2], m_im[2])));
   }
-  return result;
-}
-
-}  // namespace
-
-TrianglePairIntegrals triangle_pair_integrals_by_points(const TriangleQuadrature& p, const TriangleQuadrature& q,
-                                                        Real k) {
-  std::array<Complex, n> inner_scalar;
-  std::array<Eigen::Vector3cd, n> inner_moment;
-  far_inner(p, q, k, inner_scalar, inner_moment);
-  return outer_integral(p, q, inner_scalar, inner_moment);
+  return sums.integrals(p, q);
 }
 
 TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
   if (!triangle_pair_is_near(p, q)) return triangle_pair_integrals_by_points(p, q, k);
-  std::array<Complex, n> inner_scalar;
-  std::array<Eigen::Vector3cd, n> inner_moment;
+  PairSums sums;
   for (int a = 0; a < n; ++a) {
     const PointPotentials inner = triangle_point_potentials(p.x[a], q.corners[0], q.corners[1], q.corners[2], q.area, k, true);
-    inner_scalar[a] = inner.scalar;
-    inner_moment[a] = inner.moment;
+    sums.add(p.x[a], p.w[a], inner.scalar, inner.moment);
   }
-  return outer_integral(p, q, inner_scalar, inner_moment);
+  return sums.integrals(p, q);
 }
 
 }  // namespace lobe
