@@ -58,6 +58,9 @@ int main(int argc, char** argv) {
       ->check(transmit_power);
   run_app->add_option("--threads", run.threads, "Threads for matrix fill and factorisation (default: all cores)")
       ->check(thread_range());
+  bool run_every_frequency = false;
+  run_app->add_flag("--every-frequency", run_every_frequency,
+                    "Solve every frequency in full (default: ranges of 21 or more are solved adaptively and interpolated)");
 
   std::string check_path;
   std::vector<std::string> check_sets;
@@ -132,6 +135,9 @@ int main(int argc, char** argv) {
       ->check(CLI::IsMember(lobe::band_figure_names()));
   sweep_app->add_option("--band", sweep.study.band, "The band to rank over: LOW:HIGH (default: the model's first band)");
   sweep_app->add_option("--threads", sweep.threads, "Threads (default: all cores)")->check(thread_range());
+  bool sweep_every_frequency = false;
+  sweep_app->add_flag("--every-frequency", sweep_every_frequency,
+                      "Solve every frequency of every case in full (default: long ranges adaptively)");
 
   lobe::cli::TuneOptions tune;
   auto* tune_app = app.add_subcommand("tune", "Search let values for the best match over a band; write the tuned model");
@@ -159,6 +165,8 @@ int main(int argc, char** argv) {
   }
 
   try {
+    if (run_every_frequency) run.study.sampling = lobe::FrequencySampling::every;
+    if (sweep_every_frequency) sweep.study.sampling = lobe::FrequencySampling::every;
     if (*run_app) return lobe::cli::run_command(run);
     if (*mesh_app) return lobe::cli::mesh_command(mesh_path, mesh_output, mesh_sets);
     if (*export_app) return lobe::cli::export_command(export_options);

@@ -22,6 +22,7 @@ FrequencyResult evaluate_frequency(const AntennaProblem& problem, const Frequenc
   result.segment_currents = solution.segment_currents;
   result.surface_currents = triangle_current_density(problem, solution.coefficients);
   result.report = solution.report;
+  result.interpolated = solution.interpolated;
 
   const FarField field(problem, solution);
   result.power = power_budget(problem, solution);

@@ -36,6 +36,7 @@ struct FrequencyResult {
   std::vector<std::array<Complex, 2>> segment_currents;
   std::vector<Eigen::Vector3cd> surface_currents;  ///< A/m at each triangle's centroid
   SolveReport report;
+  bool interpolated = false;  ///< from an adaptive sweep's interpolant, not solved
 };
 
 /// Ports, powers and the pattern on the model's grid (OpenMP-parallel over directions).

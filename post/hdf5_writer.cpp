@@ -289,6 +289,11 @@ void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
   Handle solver = group(file, "solver");
   write_reals(solver, "reciprocal_condition", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.report.reciprocal_condition; }), "1");
   write_reals(solver, "relative_residual", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.report.relative_residual; }), "1");
+  // 1 where the frequency was solved in full, 0 where an adaptive sweep interpolated it
+  // (its condition and residual are then the nearest solve's).
+  std::vector<int> solved;
+  for (const auto& r : run.results) solved.push_back(r.interpolated ? 0 : 1);
+  write_ints(solver, "solved", nf, solved);
   int_attribute(solver, "unknowns", run.problem.unknowns());
   int_attribute(solver, "segments", static_cast<long>(run.problem.mesh.segments.size()));
   file.save(path);

@@ -16,7 +16,7 @@ namespace lobe {
 ///           efficiency, balance_miss}
 ///   /pattern/{theta_deg, phi_deg}, /pattern/{gain_dbi, rhcp_dbi, ...} [f, θ, φ]
 ///   /currents/{segment_start_m, segment_end_m, radius_m, wire}, /currents/{start,end}_{re,im}_a [f, segment]
-///   /solver/{reciprocal_condition, relative_residual}
+///   /solver/{reciprocal_condition, relative_residual, solved (1: solved in full, 0: interpolated)}
 /// Root attributes: program, version, threads, command_line, time_convention.
 void write_hdf5(const std::filesystem::path& path, const RunRecord& run);
 

@@ -160,6 +160,12 @@ std::string run_summary(const RunRecord& run) {
   out += formatted("\nmatrix: factored by %s, condition number up to %s, relative residual up to %.1e%s\n",
                    method.c_str(), condition.c_str(), largest_residual,
                    smallest_rcond < ill_conditioned_rcond ? " (ill-conditioned: check the geometry)" : "");
+  const std::size_t interpolated = static_cast<std::size_t>(
+      std::count_if(run.results.begin(), run.results.end(), [](const FrequencyResult& r) { return r.interpolated; }));
+  if (interpolated > 0)
+    out += formatted("frequencies: %zu of %zu solved in full, the others interpolated (adaptive sweep: a rational "
+                     "fit whose S-parameters settled to 0.001; --every-frequency solves them all)\n",
+                     run.results.size() - interpolated, run.results.size());
   if (rechecked > 0)
     out += formatted("! at %zu frequencies the symmetric factors failed their accuracy check (pivot growth); "
                      "those were factored by LU\n", rechecked);

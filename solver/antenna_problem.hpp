@@ -80,6 +80,9 @@ struct FrequencySolution {
   /// Current at the start and end of each segment, along the segment direction, A.
   std::vector<std::array<Complex, 2>> segment_currents;
   SolveReport report;
+  /// Filled from a rational interpolant of solved frequencies, not solved here (an adaptive
+  /// sweep); the report is then the nearest solve's.
+  bool interpolated = false;
 };
 
 /// Fills (solver/assembly.hpp), factors and solves once for all ports and the model's wave.

@@ -9,6 +9,7 @@
 
 #include "post/run_summary.hpp"
 #include "solver/threads.hpp"
+#include "study/adaptive_frequencies.hpp"
 
 namespace lobe {
 namespace {
@@ -23,16 +24,17 @@ bool inside_parallel_region() {
 
 }  // namespace
 
-bool solve_each_frequency(const AntennaProblem& problem, const StudyControl& control,
-                          const std::function<void(std::size_t, FrequencySolution&&)>& use) {
+bool solve_frequencies(const AntennaProblem& problem, const std::vector<std::size_t>& indices,
+                       const StudyControl& control, const std::function<void(std::size_t, FrequencySolution&&)>& use) {
   const std::vector<Real>& frequencies = problem.model.frequencies_hz;
-  const std::size_t count = frequencies.size();
+  const std::size_t count = indices.size();
   const int threads = thread_count();
   if (threads < 2 || count < 2 || problem.unknowns() > largest_problem_side_by_side || inside_parallel_region()) {
-    for (std::size_t i = 0; i < count; ++i) {
+    for (std::size_t n = 0; n < count; ++n) {
       if (control.cancelled()) return false;
+      const std::size_t i = indices[n];
       use(i, solve_frequency(problem, frequencies[i]));
-      if (control.progress) control.progress(i + 1, count, i + 1, frequency_text(frequencies[i]));
+      if (control.progress) control.progress(n + 1, count, n + 1, frequency_text(frequencies[i]));
     }
     return true;
   }
@@ -43,13 +45,14 @@ bool solve_each_frequency(const AntennaProblem& problem, const StudyControl& con
   std::size_t done = 0;
   std::exception_ptr failure;
 #pragma omp parallel for schedule(dynamic, 1) num_threads(threads)
-  for (std::size_t i = 0; i < count; ++i) {
+  for (std::size_t n = 0; n < count; ++n) {
     if (stopped.load()) continue;
     if (control.cancelled()) {
       stopped.store(true);
       continue;
     }
     try {
+      const std::size_t i = indices[n];
       use(i, solve_frequency(problem, frequencies[i]));
       const std::lock_guard<std::mutex> lock(progress_guard);
       ++done;
@@ -63,6 +66,16 @@ bool solve_each_frequency(const AntennaProblem& problem, const StudyControl& con
   set_thread_count(threads);
   if (failure) std::rethrow_exception(failure);
   return !stopped.load();
+}
+
+bool solve_each_frequency(const AntennaProblem& problem, const StudyControl& control,
+                          const std::function<void(std::size_t, FrequencySolution&&)>& use, FrequencySampling sampling) {
+  const std::size_t count = problem.model.frequencies_hz.size();
+  if (sampling == FrequencySampling::adaptive && count >= fewest_adaptive_frequencies)
+    return solve_adaptively(problem, control, use);
+  std::vector<std::size_t> all(count);
+  for (std::size_t i = 0; i < count; ++i) all[i] = i;
+  return solve_frequencies(problem, all, control, use);
 }
 
 }  // namespace lobe

@@ -16,14 +16,14 @@ namespace {
 /// Solves every frequency into `run`, then publishes the files `write` stages, the currents
 /// as VTK, and the summary. Antennas and scatterers differ only in what they evaluate and write.
 template <class Run, class Evaluate, class Write, class Summary>
-RunOutcome solve_and_publish(const PreparedRun& prepared, Run& run, const StudyControl& control, Evaluate evaluate,
-                             Write write, Summary summary) {
+RunOutcome solve_and_publish(const PreparedRun& prepared, Run& run, const StudyControl& control,
+                             FrequencySampling sampling, Evaluate evaluate, Write write, Summary summary) {
   const AntennaProblem& problem = *prepared.problem;
   RunOutcome outcome;
   run.results.resize(problem.model.frequencies_hz.size());
-  outcome.finished = solve_each_frequency(problem, control, [&](std::size_t index, FrequencySolution&& solution) {
-    run.results[index] = evaluate(problem, solution);
-  });
+  outcome.finished = solve_each_frequency(
+      problem, control, [&](std::size_t index, FrequencySolution&& solution) { run.results[index] = evaluate(problem, solution); },
+      sampling);
   if (!outcome.finished) return outcome;
   OutputFiles files(prepared.directory);
   write(files, prepared.stem, run);
@@ -57,6 +57,7 @@ PreparedRun prepare_run(const RunRequest& request) {
   run.stem = std::filesystem::path(request.model_path).stem().string();
   run.directory = request.output_directory.empty() ? std::filesystem::path(run.stem + "-results")
                                                    : std::filesystem::path(request.output_directory);
+  run.sampling = request.sampling;
   run.problem = std::make_unique<AntennaProblem>(*run.model);
   require_solvable(*run.problem);
   check_output_directory(run.directory);
@@ -67,10 +68,10 @@ PreparedRun prepare_run(const RunRequest& request) {
 RunOutcome execute_run(const PreparedRun& run, const RunInfo& info, const StudyControl& control) {
   if (run.model->wave) {
     ScatteringRun scattering{*run.problem, {}, info};
-    return solve_and_publish(run, scattering, control, evaluate_scattering, write_scattering_files, scattering_summary);
+    return solve_and_publish(run, scattering, control, FrequencySampling::every, evaluate_scattering, write_scattering_files, scattering_summary);
   }
   RunRecord antenna{*run.problem, {}, info};
-  return solve_and_publish(run, antenna, control, evaluate_frequency, write_antenna_files, run_summary);
+  return solve_and_publish(run, antenna, control, run.sampling, evaluate_frequency, write_antenna_files, run_summary);
 }
 
 }  // namespace lobe

@@ -19,6 +19,7 @@ struct RunRequest {
   std::vector<std::string> set_options;   ///< NAME=EXPRESSION
   std::vector<std::string> band_options;  ///< extra bands, LOW:HIGH
   std::string output_directory;           ///< empty: MODEL-STEM-results
+  FrequencySampling sampling = FrequencySampling::adaptive;
 };
 
 /// A run with everything checked that can be checked before solving: the model and its
@@ -28,6 +29,7 @@ struct PreparedRun {
   std::unique_ptr<AntennaProblem> problem;
   std::filesystem::path directory;
   std::string stem;
+  FrequencySampling sampling = FrequencySampling::adaptive;
 };
 
 /// Throws InputError (exit 2) for anything that would make the run fail later.

@@ -21,6 +21,12 @@ class CancelToken {
   std::atomic<bool> m_requested{false};
 };
 
+/// How a range of frequencies is covered.
+enum class FrequencySampling {
+  every,    ///< every frequency solved in full
+  adaptive  ///< long ranges: some frequencies solved, the rest interpolated (study/frequency_loop)
+};
+
 struct StudyControl {
   const CancelToken* cancel = nullptr;
   /// Called after each step (a frequency, a case, an evaluation): `done` of `total`, of

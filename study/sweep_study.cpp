@@ -26,6 +26,8 @@ std::string manifest(const std::string& model_text, const SweepRequest& request,
   std::ostringstream m;
   m << "lobe sweep cases\nmodel:\n" << model_text << "\nfixed:";
   for (const auto& s : request.set_options) m << ' ' << s;
+  // Solving every frequency gives other numbers than the adaptive sweep's interpolants.
+  if (request.sampling == FrequencySampling::every) m << "\nevery frequency solved";
   m << "\nvaried:";
   for (const auto& v : grid.varied) m << ' ' << v.name;
   m << '\n';
@@ -175,10 +177,10 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
       for (const auto& o : case_overrides(sweep, c)) command += " --set " + o.name + "=" + o.expression;
       RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), command, std::nullopt}};
       run.results.resize(model.frequencies_hz.size());
-      const bool whole = solve_each_frequency(problem, {control.cancel, {}, {}, {}, {}},
-                                              [&](std::size_t index, FrequencySolution&& s) {
-                                                run.results[index] = evaluate_frequency(problem, s);
-                                              });
+      const bool whole = solve_each_frequency(
+          problem, {control.cancel, {}, {}, {}, {}},
+          [&](std::size_t index, FrequencySolution&& s) { run.results[index] = evaluate_frequency(problem, s); },
+          sweep.request.sampling);
 #pragma omp critical(lobe_sweep_state)
       {
         if (!whole) {

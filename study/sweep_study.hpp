@@ -19,6 +19,7 @@ struct SweepRequest {
   std::string output;                     ///< the sweep's HDF5 file; empty: MODEL-STEM-sweep.h5
   std::string rank;                       ///< a band figure to rank by; empty: no ranking
   std::string band;                       ///< LOW:HIGH for the ranking; default the model's first band
+  FrequencySampling sampling = FrequencySampling::adaptive;
 };
 
 /// A sweep checked completely before the first solve: every case loads, the ranking band

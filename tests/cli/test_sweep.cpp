@@ -16,6 +16,7 @@
 
 #include "cli/run_process.hpp"
 #include "post/band_report.hpp"
+#include "post/hdf5_reading.hpp"
 #include "post/result_reader.hpp"
 #include "post/touchstone.hpp"
 #include "support/xml_check.hpp"
@@ -398,6 +399,49 @@ TEST(Bench, QuickRunPrintsTheTableAndWritesTheCsv) {
   const ProcessResult refused = run_lobe("bench --quick -o '" + (dir / "b.txt").string() + "'", dir);
   EXPECT_EQ(refused.exit_code, 2);
   EXPECT_NE(refused.err.find("must end in .csv"), std::string::npos);
+}
+
+}  // namespace
+}  // namespace lobe::testing
+
+namespace lobe::testing {
+namespace {
+
+/// The values of an HDF5 result's dataset.
+std::vector<Real> dataset(const std::filesystem::path& file, const std::string& name) {
+  const hid_t h = open_hdf5_for_reading(file);
+  std::vector<hsize_t> dims;
+  std::vector<Real> values = read_reals(h, name, dims);
+  H5Fclose(h);
+  return values;
+}
+
+// A run of 31 frequencies is adaptive by default: the summary says how many were solved,
+// the HDF5 file marks them, and the reflection agrees with --every-frequency's within the
+// 0.01 the speed issue sets; --every-frequency solves and marks all 31.
+TEST(AdaptiveRun, MarksSolvedFrequenciesAndAgreesWithEveryFrequency) {
+  const auto dir = fresh_directory("adaptive-run");
+  const std::string model = models + "crossed_dipole_gnss.lobe";
+  const ProcessResult adaptive = run_lobe("run '" + model + "' -o '" + (dir / "a").string() + "'", dir);
+  const ProcessResult every = run_lobe("run '" + model + "' --every-frequency -o '" + (dir / "e").string() + "'", dir);
+  ASSERT_EQ(adaptive.exit_code, 0) << adaptive.err;
+  ASSERT_EQ(every.exit_code, 0) << every.err;
+  const std::vector<Real> solved = dataset(dir / "a" / "crossed_dipole_gnss.h5", "solver/solved");
+  const std::vector<Real> all = dataset(dir / "e" / "crossed_dipole_gnss.h5", "solver/solved");
+  ASSERT_EQ(solved.size(), 31u);
+  const auto count = static_cast<std::size_t>(std::count(solved.begin(), solved.end(), 1.0));
+  EXPECT_LT(count, 31u);
+  EXPECT_EQ(solved.front(), 1.0);  // the ends are always solved
+  EXPECT_EQ(solved.back(), 1.0);
+  EXPECT_EQ(std::count(all.begin(), all.end(), 1.0), 31);
+  EXPECT_NE(adaptive.out.find(std::to_string(count) + " of 31 solved in full"), std::string::npos) << adaptive.out;
+  EXPECT_EQ(every.out.find("solved in full"), std::string::npos);
+  for (const char* part : {"ports/reflection_re", "ports/reflection_im"}) {
+    const std::vector<Real> a = dataset(dir / "a" / "crossed_dipole_gnss.h5", part);
+    const std::vector<Real> e = dataset(dir / "e" / "crossed_dipole_gnss.h5", part);
+    ASSERT_EQ(a.size(), e.size());
+    for (std::size_t i = 0; i < a.size(); ++i) EXPECT_NEAR(a[i], e[i], 0.01) << part << " at " << i;
+  }
 }
 
 }  // namespace
