@@ -124,10 +124,28 @@ __attribute__((target_clones("avx512f", "avx2", "default"))) TrianglePairIntegra
 
 TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
   if (!triangle_pair_is_near(p, q)) return triangle_pair_integrals_by_points(p, q, k);
+  // As triangle_point_potentials(near) at each of P's points: the static part in closed
+  // form, the smooth rest by Q's 7 points, here all 49 smooth kernels in one batch.
+  std::array<Real, n * n> distance, weight, smooth_re, smooth_im;
+  for (int a = 0; a < n; ++a)
+    for (int b = 0; b < n; ++b) {
+      distance[a * n + b] = (p.x[a] - q.x[b]).norm();
+      weight[a * n + b] = q.w[b];
+    }
+  green_kernel_smooth_batch(k, distance.data(), weight.data(), smooth_re.data(), smooth_im.data(), n * n);
+  const Vec3 normal = (q.corners[1] - q.corners[0]).cross(q.corners[2] - q.corners[0]).normalized();
   PairSums sums;
   for (int a = 0; a < n; ++a) {
-    const PointPotentials inner = triangle_point_potentials(p.x[a], q.corners[0], q.corners[1], q.corners[2], q.area, k, true);
-    sums.add(p.x[a], p.w[a], inner.scalar, inner.moment);
+    const StaticPotentials s = triangle_static_potentials(p.x[a], q.corners[0], q.corners[1], q.corners[2]);
+    const Vec3 rho = p.x[a] - normal.dot(p.x[a] - q.corners[0]) * normal;
+    Complex scalar = s.scalar;
+    Eigen::Vector3cd moment = (s.vector + rho * s.scalar).cast<Complex>();  // ∫ r'/R = ∫ (r' − ρ)/R + ρ ∫ 1/R
+    for (int b = 0; b < n; ++b) {
+      const Complex g(smooth_re[a * n + b], smooth_im[a * n + b]);
+      scalar += g;
+      moment += g * q.x[b].cast<Complex>();
+    }
+    sums.add(p.x[a], p.w[a], green_scale * scalar, green_scale * moment);
   }
   return sums.integrals(p, q);
 }
