@@ -32,9 +32,9 @@ Real largest_difference(const ComplexMatrix& a, const ComplexMatrix& b) { return
 class AdaptiveSweep {
  public:
   AdaptiveSweep(const AntennaProblem& problem) : m_problem(problem), m_solved(problem.model.frequencies_hz.size()) {
-    const std::vector<Real>& f = problem.model.frequencies_hz;
-    m_centre = 0.5 * (f.front() + f.back());
-    m_half_span = std::max(0.5 * (f.back() - f.front()), 1e-300);
+    const auto [low, high] = std::minmax_element(problem.model.frequencies_hz.begin(), problem.model.frequencies_hz.end());
+    m_centre = 0.5 * (*low + *high);
+    m_half_span = std::max(0.5 * (*high - *low), 1e-300);
   }
 
   bool run(const StudyControl& control, const std::function<void(std::size_t, FrequencySolution&&)>& use);
@@ -217,6 +217,14 @@ bool AdaptiveSweep::run(const StudyControl& control, const std::function<void(st
   for (std::size_t i = 0; i < count; ++i) {
     if (!m_solved[i]) filled[i] = interpolated(final_fit, i);
   }
+  // A pole of the fit on a frequency left unsolved would give no number: solve it instead.
+  std::vector<std::size_t> unfit;
+  for (std::size_t i = 0; i < count; ++i)
+    if (filled[i] && !(filled[i]->port_admittance.allFinite() && filled[i]->coefficients.allFinite())) unfit.push_back(i);
+  if (!unfit.empty()) {
+    if (!solve(unfit, control)) return false;
+    for (std::size_t i : unfit) filled[i].reset();
+  }
 #pragma omp parallel for schedule(dynamic)
   for (std::size_t i = 0; i < count; ++i) {
     try {
@@ -227,7 +235,8 @@ bool AdaptiveSweep::run(const StudyControl& control, const std::function<void(st
     }
   }
   if (failure) std::rethrow_exception(failure);
-  if (control.progress) control.progress(count, count, m_solves, "the rest interpolated");
+  // Every frequency was worked here (none was found done), solved or interpolated.
+  if (control.progress) control.progress(count, count, count, "the rest interpolated");
   return true;
 }
 
