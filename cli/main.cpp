@@ -12,6 +12,7 @@
 #include "core/output_error.hpp"
 #include "post/band_report.hpp"
 #include "solver/system_matrix.hpp"
+#include "study/process_ranks.hpp"
 
 namespace {
 
@@ -42,6 +43,7 @@ CLI::Range thread_range() {
 }  // namespace
 
 int main(int argc, char** argv) {
+  const lobe::ProcessRanks ranks(&argc, &argv);
   CLI::App app{"lobe: method-of-moments antenna simulator for wire antennas"};
   app.set_version_flag("--version", LOBE_VERSION);
   app.require_subcommand(1);
@@ -165,6 +167,11 @@ int main(int argc, char** argv) {
   }
 
   try {
+    // Only a sweep shares its work among processes; any other command would run whole in
+    // each of them and write the same files at once.
+    if (lobe::process_count() > 1 && !*sweep_app)
+      throw lobe::InputError({"mpirun", 1, 1}, "only 'lobe sweep' runs under mpirun; start '" +
+                                                 app.get_subcommands().front()->get_name() + "' as one process");
     if (run_every_frequency) run.study.sampling = lobe::FrequencySampling::every;
     if (sweep_every_frequency) sweep.study.sampling = lobe::FrequencySampling::every;
     if (*run_app) return lobe::cli::run_command(run);
@@ -178,15 +185,15 @@ int main(int argc, char** argv) {
     return lobe::cli::check_command(check_path, check_sets);
   } catch (const lobe::InputError& e) {
     std::fprintf(stderr, "%s\n", e.formatted().c_str());
-    return exit_bad_input;
+    return lobe::end_all_processes(exit_bad_input);
   } catch (const lobe::OutputError& e) {
     std::fprintf(stderr, "\nlobe: %s; earlier results were left as they were\n", e.what());
-    return exit_internal_failure;
+    return lobe::end_all_processes(exit_internal_failure);
   } catch (const lobe::NumericalError& e) {
     std::fprintf(stderr, "lobe: numerical failure: %s; no results were written\n", e.what());
-    return exit_internal_failure;
+    return lobe::end_all_processes(exit_internal_failure);
   } catch (const std::exception& e) {
     std::fprintf(stderr, "lobe: internal failure: %s; no results were written\n", e.what());
-    return exit_internal_failure;
+    return lobe::end_all_processes(exit_internal_failure);
   }
 }

@@ -1,5 +1,7 @@
+#include <algorithm>
 #include <cstdio>
 #include <optional>
+#include <thread>
 
 #include "cli/commands.hpp"
 #include "cli/interrupt.hpp"
@@ -7,21 +9,32 @@
 #include "post/run_summary.hpp"
 #include "post/sweep_file.hpp"
 #include "solver/threads.hpp"
+#include "study/process_ranks.hpp"
 #include "study/sweep_study.hpp"
 
 namespace lobe::cli {
 int sweep_command(const SweepOptions& options) {
-  if (options.threads > 0) set_thread_count(options.threads);
+  // Processes started together on one machine share its cores unless told otherwise.
+  const int cores = static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
+  if (options.threads > 0)
+    set_thread_count(options.threads);
+  else if (processes_on_this_machine() > 1)
+    set_thread_count(std::max(1, cores / processes_on_this_machine()));
   const PreparedSweep sweep = prepare_sweep(options.study);
-  std::optional<ProgressLine> progress(std::in_place, "case", sweep.grid.size());
+  // Under mpirun the first process reports for the job; the others work quietly.
+  const bool reporting = process_rank() == 0;
+  std::optional<ProgressLine> progress;
+  if (reporting) progress.emplace("case", sweep.grid.size());
   StudyControl control;
   control.cancel = &cancel_on_interrupt();
-  control.progress = [&](std::size_t done, std::size_t, std::size_t timed, const std::string&) { progress->update(done, timed); };
-  control.warning = [](const MeshWarning& w, const std::string& where) {
-    std::fprintf(stderr, "\n%s (%s)\n", w.formatted().c_str(), where.c_str());
-  };
-  control.notice = [](const std::string& text) { std::fprintf(stderr, "\n%s\n", text.c_str()); };
-  control.workload = [](double unknowns, double solves) { print_long_run_estimate(unknowns, solves); };
+  if (reporting) {
+    control.progress = [&](std::size_t done, std::size_t, std::size_t timed, const std::string&) { progress->update(done, timed); };
+    control.warning = [](const MeshWarning& w, const std::string& where) {
+      std::fprintf(stderr, "\n%s (%s)\n", w.formatted().c_str(), where.c_str());
+    };
+    control.notice = [](const std::string& text) { std::fprintf(stderr, "\n%s\n", text.c_str()); };
+    control.workload = [](double unknowns, double solves) { print_long_run_estimate(unknowns, solves); };
+  }
   SweepOutcome outcome;
   try {
     outcome = execute_sweep(sweep, control);
@@ -30,6 +43,7 @@ int sweep_command(const SweepOptions& options) {
     throw;
   }
   progress.reset();
+  if (!reporting) return outcome.finished ? 0 : 130;
   if (!outcome.finished) {
     std::fprintf(stderr, "interrupted: %zu of %zu cases are saved in %s; run the same command again to go on\n",
                  outcome.solved + outcome.skipped, sweep.grid.size(), sweep.case_directory.string().c_str());

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <exception>
 #include <fstream>
+#include <optional>
 #include <set>
 #include <sstream>
 
@@ -16,6 +17,7 @@
 #include "study/frequency_loop.hpp"
 #include "study/model_loading.hpp"
 #include "study/output_checks.hpp"
+#include "study/process_ranks.hpp"
 
 namespace lobe {
 namespace {
@@ -121,26 +123,42 @@ int case_unknowns(const PreparedSweep& sweep, std::size_t c) {
 SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& control) {
   const std::filesystem::path directory =
       sweep.output.has_parent_path() ? sweep.output.parent_path() : std::filesystem::path(".");
-  std::filesystem::create_directories(sweep.case_directory);
-  const DirectoryLock lock(sweep.case_directory);
-  if (!lock.held())
-    throw InputError({sweep.output.string(), 1, 1}, "another sweep is writing into '" + sweep.case_directory.string() +
-                                                        "' now; wait for it to finish or choose another -o");
-  claim_case_directory(sweep);
-  // Half-written cases of a sweep that was killed: never published, safe to remove.
-  remove_dead_temporaries(sweep.case_directory);
-  remove_dead_temporaries(directory);
-
+  // Under MPI the first process speaks for the job: it holds the directory's lock, checks
+  // the manifest, clears a killed run's leftovers and the damaged cases; the others look
+  // at the cases after it (an error on it ends them all: see end_all_processes).
+  const bool first_process = process_rank() == 0;
+  std::optional<DirectoryLock> lock;
+  if (first_process) {
+    std::filesystem::create_directories(sweep.case_directory);
+    lock.emplace(sweep.case_directory);
+    if (!lock->held())
+      throw InputError({sweep.output.string(), 1, 1}, "another sweep is writing into '" + sweep.case_directory.string() +
+                                                          "' now; wait for it to finish or choose another -o");
+    claim_case_directory(sweep);
+    // Half-written cases of a sweep that was killed: never published, safe to remove.
+    remove_dead_temporaries(sweep.case_directory);
+    remove_dead_temporaries(directory);
+  }
   SweepOutcome outcome;
   const std::size_t total = sweep.grid.size();
   std::vector<std::size_t> pending;
-  for (std::size_t c = 0; c < total; ++c) {
-    outcome.case_files.push_back(sweep.case_directory / (case_name(c) + ".h5"));
-    if (saved_whole(outcome.case_files.back(), control))
-      ++outcome.skipped;
-    else
-      pending.push_back(c);
-  }
+  const auto find_pending = [&] {
+    for (std::size_t c = 0; c < total; ++c) {
+      outcome.case_files.push_back(sweep.case_directory / (case_name(c) + ".h5"));
+      if (saved_whole(outcome.case_files.back(), control))
+        ++outcome.skipped;
+      else
+        pending.push_back(c);
+    }
+  };
+  if (first_process) find_pending();
+  wait_for_all_processes();
+  if (!first_process) find_pending();
+  // Each process takes every count-th pending case.
+  std::vector<std::size_t> mine;
+  for (std::size_t k = 0; k < pending.size(); ++k)
+    if (k % static_cast<std::size_t>(process_count()) == static_cast<std::size_t>(process_rank())) mine.push_back(pending[k]);
+  pending = std::move(mine);
 
   // Small cases run side by side, one thread each: threads inside a case that solves in
   // milliseconds cost more than they save (a 192-unknown case ran faster on one thread
@@ -207,8 +225,20 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
     }
   }
   if (side_by_side) set_thread_count(threads);
+  // Every process reaches these two before any rethrows or returns.
+  const bool any_stopped = any_process(stopped || failure);
+  const std::size_t solved_here = outcome.solved;
+  outcome.solved = sum_over_processes(solved_here);
   if (failure) std::rethrow_exception(failure);
-  if (stopped) return outcome;
+  if (any_stopped) {
+    outcome.solved = solved_here;
+    return outcome;
+  }
+  // The first process assembles the sweep file from every process's cases.
+  if (!first_process) {
+    outcome.finished = true;
+    return outcome;
+  }
   SweepTable table{sweep.grid.names(), sweep.grid.values, sweep.grid.labels, sweep.values_si};
   try {
     OutputFiles files(directory);
