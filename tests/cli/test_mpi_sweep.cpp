@@ -7,7 +7,7 @@
 #include <filesystem>
 
 #include "cli/run_process.hpp"
-#include "post/hdf5_reading.hpp"
+#include "cli/result_datasets.hpp"
 
 namespace lobe::testing {
 namespace {
@@ -18,14 +18,6 @@ const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
 /// always there in containers), root allowed (CI runs as root), slots not counted.
 const std::string two_processes =
     std::string(LOBE_MPIRUN) + " -np 2 --oversubscribe --allow-run-as-root --mca btl self,tcp --mca btl_tcp_if_include lo";
-
-std::vector<Real> dataset(const std::filesystem::path& file, const std::string& name) {
-  const hid_t h = open_hdf5_for_reading(file);
-  std::vector<hsize_t> dims;
-  std::vector<Real> values = read_reals(h, name, dims);
-  H5Fclose(h);
-  return values;
-}
 
 TEST(MpiSweep, TwoProcessesGiveOneProcessesCases) {
   const auto dir = fresh_directory("mpi-sweep");

@@ -16,7 +16,7 @@
 
 #include "cli/run_process.hpp"
 #include "post/band_report.hpp"
-#include "post/hdf5_reading.hpp"
+#include "cli/result_datasets.hpp"
 #include "post/result_reader.hpp"
 #include "post/touchstone.hpp"
 #include "support/xml_check.hpp"
@@ -374,11 +374,6 @@ TEST(Sweep, StudyChecksComeBeforeAnySolving) {
   EXPECT_FALSE(std::filesystem::exists(dir / "c.h5.cases"));
 }
 
-}  // namespace
-}  // namespace lobe::testing
-
-namespace lobe::testing {
-namespace {
 
 // `lobe bench --quick` measures, prints its table and writes one CSV line per model and one
 // for the sweep, with positive rates; a table file not ending in .csv is refused first.
@@ -401,20 +396,6 @@ TEST(Bench, QuickRunPrintsTheTableAndWritesTheCsv) {
   EXPECT_NE(refused.err.find("must end in .csv"), std::string::npos);
 }
 
-}  // namespace
-}  // namespace lobe::testing
-
-namespace lobe::testing {
-namespace {
-
-/// The values of an HDF5 result's dataset.
-std::vector<Real> dataset(const std::filesystem::path& file, const std::string& name) {
-  const hid_t h = open_hdf5_for_reading(file);
-  std::vector<hsize_t> dims;
-  std::vector<Real> values = read_reals(h, name, dims);
-  H5Fclose(h);
-  return values;
-}
 
 // A run of 31 frequencies is adaptive by default: the summary says how many were solved,
 // the HDF5 file marks them, and the reflection agrees with --every-frequency's within the

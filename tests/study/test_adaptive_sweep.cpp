@@ -97,6 +97,15 @@ SweepComparison compare_sweeps(const std::string& text) {
 constexpr std::size_t most_solves = 25;
 constexpr Real largest_s11_difference = 0.01;
 
+/// Prints the comparison and holds it to the targets and the resonances expected.
+void expect_targets(const char* name, const SweepComparison& c, std::size_t resonances) {
+  std::printf("%s: %zu full solves of 201, largest |dS11| %.2e at %.4g MHz\n", name, c.solves, c.worst_s11,
+              c.worst_at_hz / 1e6);
+  EXPECT_EQ(c.dips_hz.size(), resonances);
+  EXPECT_LE(c.solves, most_solves);
+  EXPECT_LE(c.worst_s11, largest_s11_difference);
+}
+
 TEST(AdaptiveSweep, SingleResonancePatchNeedsFewSolves) {
   // A probe-fed air patch for 2.45 GHz over a perfect ground (54.5 × 60 mm, 3.7 mm up,
   // the probe a sixth of the length off centre): one resonance inside 2.2–2.7 GHz.
@@ -104,10 +113,7 @@ TEST(AdaptiveSweep, SingleResonancePatchNeedsFewSolves) {
       "units mm\nground perfect\nplate patch rectangle corner (-27.25, -30, 3.7) size (54.5, 60)\nmesh patch size 5\n"
       "wire pin from (-9.0833, 0, 0) to (-9.0833, 0, 3.7) radius 0.4\nport n_type on pin at start\n"
       "frequency 2.2 GHz to 2.7 GHz count 201\n");
-  std::printf("patch: %zu full solves of 201, largest |dS11| %.2e at %.4g GHz\n", c.solves, c.worst_s11, c.worst_at_hz / 1e9);
-  EXPECT_EQ(c.dips_hz.size(), 1u);
-  EXPECT_LE(c.solves, most_solves);
-  EXPECT_LE(c.worst_s11, largest_s11_difference);
+  expect_targets("patch", c, 1);
 }
 
 TEST(AdaptiveSweep, DualResonanceWireAntennaNeedsFewSolves) {
@@ -121,10 +127,7 @@ TEST(AdaptiveSweep, DualResonanceWireAntennaNeedsFewSolves) {
       "wire short_up from (0, 0, 0.005) to (0.06, 0, 0.16) radius 1e-3 segments 9\n"
       "wire short_down from (0, 0, -0.005) to (0.06, 0, -0.16) radius 1e-3 segments 9\n"
       "port p on feed at middle\nfrequency 100 MHz to 450 MHz count 201\n");
-  std::printf("two-resonance dipole: %zu full solves of 201, largest |dS11| %.2e at %.4g MHz\n", c.solves, c.worst_s11, c.worst_at_hz / 1e6);
-  EXPECT_EQ(c.dips_hz.size(), 2u);
-  EXPECT_LE(c.solves, most_solves);
-  EXPECT_LE(c.worst_s11, largest_s11_difference);
+  expect_targets("two-resonance dipole", c, 2);
 }
 
 }  // namespace
