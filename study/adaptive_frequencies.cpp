@@ -121,9 +121,10 @@ RationalInterpolant AdaptiveSweep::fit() const {
 ComplexMatrix AdaptiveSweep::predicted_scattering(const RationalInterpolant& r, std::size_t i) const {
   const FrequencySolution& any = *m_solved[solved_indices().front()];
   const Eigen::Index p = any.port_admittance.rows();
-  const ComplexVector values = r(axis(i));
+  // The fit's first p² values are z0·Y; the basis currents after them are not needed here.
+  const ComplexVector values = r(axis(i), p * p);
   const Real z0 = m_problem.model.reference_ohm;
-  return scattering(values.head(p * p).reshaped(p, p) / z0, z0);
+  return scattering(values.reshaped(p, p) / z0, z0);
 }
 
 FrequencySolution AdaptiveSweep::interpolated(const RationalInterpolant& r, std::size_t i) const {

@@ -76,11 +76,12 @@ std::vector<Complex> RationalInterpolant::combination(Real x) const {
   return c;
 }
 
-ComplexVector RationalInterpolant::operator()(Real x) const {
+ComplexVector RationalInterpolant::operator()(Real x, Eigen::Index rows) const {
+  if (rows < 0) rows = m_values.rows();
   const std::vector<Complex> c = combination(x);
-  ComplexVector r = ComplexVector::Zero(m_values.rows());
+  ComplexVector r = ComplexVector::Zero(rows);
   for (std::size_t i = 0; i < c.size(); ++i)
-    if (c[i] != 0.0) r += c[i] * m_values.col(static_cast<Eigen::Index>(i));
+    if (c[i] != 0.0) r += c[i] * m_values.col(static_cast<Eigen::Index>(i)).head(rows);
   return r;
 }
 

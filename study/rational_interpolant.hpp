@@ -22,8 +22,8 @@ class RationalInterpolant {
   /// one). Any quantity linear in the samples is interpolated by the same combination.
   std::vector<Complex> combination(Real x) const;
 
-  /// The fitted values at x.
-  ComplexVector operator()(Real x) const;
+  /// The fitted values at x: all of them, or the first `rows`.
+  ComplexVector operator()(Real x, Eigen::Index rows = -1) const;
 
   std::size_t support_size() const { return m_support.size(); }
 
