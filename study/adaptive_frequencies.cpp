@@ -195,8 +195,9 @@ bool AdaptiveSweep::run(const StudyControl& control, const std::function<void(st
     // This round's solves: the most doubtful, spread apart when several run side by side.
     std::vector<std::size_t> round;
     const std::size_t spacing = std::max<std::size_t>(1, count / (8 * lanes));
-    for (const auto& [estimate, i] : doubt) {
-      if (round.size() == lanes || (!round.empty() && previous && estimate < adaptive_s_tolerance)) break;
+    for (const auto& entry : doubt) {
+      const std::size_t i = entry.second;  // (a structured binding cannot be captured by clang 14)
+      if (round.size() == lanes || (!round.empty() && previous && entry.first < adaptive_s_tolerance)) break;
       if (std::all_of(round.begin(), round.end(), [&](std::size_t j) { return (j > i ? j - i : i - j) >= spacing; }))
         round.push_back(i);
     }
