@@ -101,11 +101,8 @@ SlabKernelTable::SlabKernelTable(const GroundedSlab& slab, Real largest_distance
   }
 }
 
-// Compiled also for AVX-512 and AVX2 (chosen by CPU feature at start-up): the table's reads
-// are most of a printed plate's fill.
-__attribute__((target_clones("avx512f", "avx2", "default"))) void SlabKernelTable::remainders(
-    const Real* rho, int count, SlabRemainders* out) const {
-  Real phase[64]{}, sine[64], cosine[64];
+void SlabKernelTable::remainders(const Real* rho, int count, SlabRemainders* out) const {
+  Real phase[64], sine[64], cosine[64];
   for (int i = 0; i < count; ++i) {
     out[i] = demodulated(rho[i]);
     phase[i] = m_slab.k0 * rho[i];

@@ -8,10 +8,8 @@ namespace {
 /// rule serves even the self pair): with S = Σ w R, S_x = Σ w R x, S_y = Σ w R y and
 /// S_xy = Σ w R x·y over the point pairs, (x − p_i)·(y − q_j) sums to
 /// S_xy − S_x·q_j − p_i·S_y + (p_i·q_j) S.
-/// Compiled also for AVX-512 and AVX2 (chosen by CPU feature at start-up).
-__attribute__((target_clones("avx512f", "avx2", "default"))) void add_slab_remainders(
-    const SlabKernelTable& table, const TriangleQuadrature& p, const TriangleQuadrature& q,
-    TrianglePairIntegrals& integrals) {
+void add_slab_remainders(const SlabKernelTable& table, const TriangleQuadrature& p, const TriangleQuadrature& q,
+                         TrianglePairIntegrals& integrals) {
   constexpr int n = TriangleQuadrature::points;
   Complex s = 0.0, s_vector = 0.0, s_xy = 0.0;
   Eigen::Vector3cd s_x = Eigen::Vector3cd::Zero(), s_y = Eigen::Vector3cd::Zero();
