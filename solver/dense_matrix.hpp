@@ -13,14 +13,14 @@ namespace lobe {
 /// `largest_symmetric_backward_error` (the pivoting let the factors grow), or the matrix is
 /// not symmetric, the matrix is factored by LU with partial pivoting (LAPACK zgetrf) and
 /// the report says which and why.
-/// Memory: two N×N complex buffers (the factors and the original, kept for the residual).
+/// Memory: two N×N complex buffers (the factors and the original, kept for the residual;
+/// during the fill the second holds the mirrored terms).
 class DenseMatrix final : public SystemMatrix {
  public:
   explicit DenseMatrix(Eigen::Index n);
   Eigen::Index size() const override { return m_entries.rows(); }
-  /// The entries to fill (full square; both triangles must hold the same values).
-  ComplexMatrix& entries() { return m_entries; }
-  const ComplexMatrix& entries() const { return m_entries; }
+  /// The entries, with every term added so far (full square).
+  ComplexMatrix& entries();
   void add(std::span<const MatrixContribution> terms) override;
   void factor() override;
   ComplexMatrix solve(const ComplexMatrix& rhs, SolveReport& report) const override;
@@ -33,6 +33,8 @@ class DenseMatrix final : public SystemMatrix {
   /// Factors m_entries (a copy of m_original, of 1-norm `norm1`) by LDLᵀ; false, with
   /// m_entries restored, when the factors fail the backward-error check.
   bool factor_symmetric_checked(Real norm1);
+  /// Adds the mirrored terms held in m_original (see add()) to m_entries.
+  void settle_mirrors();
 
   ComplexMatrix m_entries;
   ComplexMatrix m_original;
@@ -41,6 +43,7 @@ class DenseMatrix final : public SystemMatrix {
   SymmetricPivots m_symmetric_pivots;
   Real m_reciprocal_condition = 0.0;
   bool m_factored = false;
+  bool m_mirrors_pending = false;
 };
 
 }  // namespace lobe
