@@ -69,6 +69,8 @@ PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const V
 
 std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh) {
   const TriangleRule& rule = triangle_rule_degree5();
+  const TriangleRule& distant = triangle_rule_degree4();
+  const int distant_points = static_cast<int>(distant.points.size());
   std::vector<TriangleQuadrature> all(mesh.triangles.size());
   for (std::size_t t = 0; t < all.size(); ++t) {
     TriangleQuadrature& q = all[t];
@@ -83,6 +85,26 @@ std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh) {
       q.x[a] = b[0] * q.corners[0] + b[1] * q.corners[1] + b[2] * q.corners[2];
       q.w[a] = rule.weights[a] * q.area;
     }
+    for (int b = 0; b < TriangleQuadrature::lanes; ++b) {
+      const int point = b < n ? b : 0;
+      q.lane_x[b] = q.x[point].x();
+      q.lane_y[b] = q.x[point].y();
+      q.lane_z[b] = q.x[point].z();
+      q.lane_w[b] = b < n ? q.w[b] : 0.0;
+    }
+    const auto point = [&](int i) {
+      const auto& b = distant.points[i];
+      return Vec3(b[0] * q.corners[0] + b[1] * q.corners[1] + b[2] * q.corners[2]);
+    };
+    for (int l = 0; l < TriangleQuadrature::distant_lanes; ++l) {
+      const bool pad = l >= distant_points * distant_points;
+      const int a = pad ? 0 : l / distant_points, b = pad ? 0 : l % distant_points;
+      const Vec3 x = point(a), y = point(b);
+      q.observer_x[l] = x.x(), q.observer_y[l] = x.y(), q.observer_z[l] = x.z();
+      q.source_x[l] = y.x(), q.source_y[l] = y.y(), q.source_z[l] = y.z();
+      q.observer_w[l] = pad ? 0.0 : distant.weights[a] * q.area;
+      q.source_w[l] = pad ? 0.0 : distant.weights[b] * q.area;
+    }
   }
   return all;
 }
@@ -91,38 +113,116 @@ bool triangle_pair_is_near(const TriangleQuadrature& p, const TriangleQuadrature
   return (p.centroid - q.centroid).norm() < near_distance_in_sizes * std::max(p.size, q.size);
 }
 
+bool triangle_pair_is_distant(const TriangleQuadrature& p, const TriangleQuadrature& q) {
+  return (p.centroid - q.centroid).norm() >= distant_distance_in_sizes * std::max(p.size, q.size);
+}
+
+__attribute__((target_clones("avx512f", "avx2", "default"))) TrianglePairIntegrals triangle_pair_integrals_distant(
+    const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
+  // One lane per point pair (x_a, y_b), g = w_a w_b G: D = Σ g, B = Σ g x_a, C = Σ g y_b,
+  // A = Σ g x_a·y_b, each loop a whole number of vector registers.
+  constexpr int lanes = TriangleQuadrature::distant_lanes;
+  alignas(64) Real distance[lanes], phase[lanes], sine[lanes], cosine[lanes];
+#pragma omp simd
+  for (int l = 0; l < lanes; ++l) {
+    const Real dx = p.observer_x[l] - q.source_x[l], dy = p.observer_y[l] - q.source_y[l],
+               dz = p.observer_z[l] - q.source_z[l];
+    distance[l] = std::sqrt(dx * dx + dy * dy + dz * dz);
+    phase[l] = k * distance[l];
+  }
+  sine_cosine(phase, sine, cosine, lanes);
+  Real d_re = 0, d_im = 0, a_re = 0, a_im = 0;
+  Real bx_re = 0, bx_im = 0, by_re = 0, by_im = 0, bz_re = 0, bz_im = 0;
+  Real cx_re = 0, cx_im = 0, cy_re = 0, cy_im = 0, cz_re = 0, cz_im = 0;
+#pragma omp simd reduction(+ : d_re, d_im, a_re, a_im, bx_re, bx_im, by_re, by_im, bz_re, bz_im, cx_re, cx_im, cy_re, \
+                               cy_im, cz_re, cz_im)
+  for (int l = 0; l < lanes; ++l) {
+    const Real g = p.observer_w[l] * q.source_w[l] / distance[l];
+    const Real g_re = g * cosine[l], g_im = -g * sine[l];
+    const Real xy = p.observer_x[l] * q.source_x[l] + p.observer_y[l] * q.source_y[l] +
+                    p.observer_z[l] * q.source_z[l];
+    d_re += g_re, d_im += g_im;
+    a_re += xy * g_re, a_im += xy * g_im;
+    bx_re += p.observer_x[l] * g_re, bx_im += p.observer_x[l] * g_im;
+    by_re += p.observer_y[l] * g_re, by_im += p.observer_y[l] * g_im;
+    bz_re += p.observer_z[l] * g_re, bz_im += p.observer_z[l] * g_im;
+    cx_re += q.source_x[l] * g_re, cx_im += q.source_x[l] * g_im;
+    cy_re += q.source_y[l] * g_re, cy_im += q.source_y[l] * g_im;
+    cz_re += q.source_z[l] * g_re, cz_im += q.source_z[l] * g_im;
+  }
+  PairSums sums;
+  sums.d = green_scale * Complex(d_re, d_im);
+  sums.a = green_scale * Complex(a_re, a_im);
+  sums.b = green_scale * Eigen::Vector3cd(Complex(bx_re, bx_im), Complex(by_re, by_im), Complex(bz_re, bz_im));
+  sums.c = green_scale * Eigen::Vector3cd(Complex(cx_re, cx_im), Complex(cy_re, cy_im), Complex(cz_re, cz_im));
+  return sums.integrals(p, q);
+}
+
 // Compiled also for AVX-512 and AVX2 (chosen by CPU features at start-up), as the far
 // pairs are most of a surface fill.
 __attribute__((target_clones("avx512f", "avx2", "default"))) TrianglePairIntegrals triangle_pair_integrals_by_points(
     const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
-  // The 49 kernels in one vectorised batch, then per point of P the inner sums over Q's
-  // points in real arithmetic.
-  std::array<Real, n * n> distance, weight, kernel_re, kernel_im;
-  for (int a = 0; a < n; ++a)
-    for (int b = 0; b < n; ++b) {
-      distance[a * n + b] = (p.x[a] - q.x[b]).norm();
-      weight[a * n + b] = q.w[b] * green_scale;
-    }
-  green_kernel_batch(k, distance.data(), weight.data(), kernel_re.data(), kernel_im.data(), n * n);
-  PairSums sums;
+  // Every loop runs over Q's points in the eight lanes, so that it compiles to whole-
+  // register operations: the distances, the 56 phases' sines and cosines in one call,
+  // then, with u_a = w_a of P's points x_a and G_ab the kernel times Q's weight,
+  //   W_b = Σ_a u_a G_ab  and  V_b = Σ_a u_a x_a G_ab,
+  // from which PairSums' four sums follow as D = Σ_b W_b, C = Σ_b W_b y_b, B = Σ_b V_b and
+  // A = Σ_b y_b·V_b, y_b being Q's points.
+  constexpr int lanes = TriangleQuadrature::lanes;
+  alignas(64) Real distance[n * lanes], phase[n * lanes], sine[n * lanes], cosine[n * lanes];
   for (int a = 0; a < n; ++a) {
-    Real s_re = 0.0, s_im = 0.0, m_re[3] = {0.0, 0.0, 0.0}, m_im[3] = {0.0, 0.0, 0.0};
-    for (int b = 0; b < n; ++b) {
-      const Real g_re = kernel_re[a * n + b], g_im = kernel_im[a * n + b];
-      s_re += g_re;
-      s_im += g_im;
-      for (int i = 0; i < 3; ++i) {
-        m_re[i] += g_re * q.x[b][i];
-        m_im[i] += g_im * q.x[b][i];
-      }
+#pragma omp simd
+    for (int b = 0; b < lanes; ++b) {
+      const Real dx = p.x[a].x() - q.lane_x[b], dy = p.x[a].y() - q.lane_y[b], dz = p.x[a].z() - q.lane_z[b];
+      distance[a * lanes + b] = std::sqrt(dx * dx + dy * dy + dz * dz);
+      phase[a * lanes + b] = k * distance[a * lanes + b];
     }
-    sums.add(p.x[a], p.w[a], Complex(s_re, s_im),
-             Eigen::Vector3cd(Complex(m_re[0], m_im[0]), Complex(m_re[1], m_im[1]), Complex(m_re[2], m_im[2])));
+  }
+  sine_cosine(phase, sine, cosine, n * lanes);
+  alignas(64) Real w_re[lanes] = {}, w_im[lanes] = {}, v_re[3][lanes] = {}, v_im[3][lanes] = {};
+  for (int a = 0; a < n; ++a) {
+    const Real u = p.w[a], ux = u * p.x[a].x(), uy = u * p.x[a].y(), uz = u * p.x[a].z();
+#pragma omp simd
+    for (int b = 0; b < lanes; ++b) {
+      const Real g = q.lane_w[b] / distance[a * lanes + b];
+      const Real g_re = g * cosine[a * lanes + b], g_im = -g * sine[a * lanes + b];
+      w_re[b] += u * g_re;
+      w_im[b] += u * g_im;
+      v_re[0][b] += ux * g_re;
+      v_im[0][b] += ux * g_im;
+      v_re[1][b] += uy * g_re;
+      v_im[1][b] += uy * g_im;
+      v_re[2][b] += uz * g_re;
+      v_im[2][b] += uz * g_im;
+    }
+  }
+  Real d_re = 0.0, d_im = 0.0, a_re = 0.0, a_im = 0.0;
+  Real b_re[3] = {}, b_im[3] = {}, c_re[3] = {}, c_im[3] = {};
+  const Real* y[3] = {q.lane_x.data(), q.lane_y.data(), q.lane_z.data()};
+  for (int b = 0; b < lanes; ++b) {
+    d_re += w_re[b];
+    d_im += w_im[b];
+    for (int i = 0; i < 3; ++i) {
+      c_re[i] += w_re[b] * y[i][b];
+      c_im[i] += w_im[b] * y[i][b];
+      b_re[i] += v_re[i][b];
+      b_im[i] += v_im[i][b];
+      a_re += y[i][b] * v_re[i][b];
+      a_im += y[i][b] * v_im[i][b];
+    }
+  }
+  PairSums sums;
+  sums.d = green_scale * Complex(d_re, d_im);
+  sums.a = green_scale * Complex(a_re, a_im);
+  for (int i = 0; i < 3; ++i) {
+    sums.b(i) = green_scale * Complex(b_re[i], b_im[i]);
+    sums.c(i) = green_scale * Complex(c_re[i], c_im[i]);
   }
   return sums.integrals(p, q);
 }
 
 TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
+  if (triangle_pair_is_distant(p, q)) return triangle_pair_integrals_distant(p, q, k);
   if (!triangle_pair_is_near(p, q)) return triangle_pair_integrals_by_points(p, q, k);
   // As triangle_point_potentials(near) at each of P's points: the static part in closed
   // form, the smooth rest by Q's 7 points, here all 49 smooth kernels in one batch.

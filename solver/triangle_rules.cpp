@@ -20,6 +20,19 @@ const TriangleRule& triangle_rule_degree5() {
   return rule;
 }
 
+const TriangleRule& triangle_rule_degree4() {
+  static const TriangleRule rule = [] {
+    // Dunavant (1985), Table degree 4.
+    const Real a1 = 0.445948490915964886, b1 = 1.0 - 2.0 * a1, w1 = 0.223381589678011466;
+    const Real a2 = 0.091576213509770743, b2 = 1.0 - 2.0 * a2, w2 = 0.109951743655321868;
+    TriangleRule r;
+    r.points = {{a1, a1, b1}, {a1, b1, a1}, {b1, a1, a1}, {a2, a2, b2}, {a2, b2, a2}, {b2, a2, a2}};
+    r.weights = {w1, w1, w1, w2, w2, w2};
+    return r;
+  }();
+  return rule;
+}
+
 TriangleRule subdivided_triangle_rule(int levels) {
   // Sub-triangles as barycentric corner triples, split 4-fold per level.
   using Corner = std::array<Real, 3>;

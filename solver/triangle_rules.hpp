@@ -18,6 +18,9 @@ struct TriangleRule {
 /// polynomials of degree ≤ 5 over the triangle.
 const TriangleRule& triangle_rule_degree5();
 
+/// The 6-point rule of degree 4 (Dunavant 1985): two orbits of three points.
+const TriangleRule& triangle_rule_degree4();
+
 /// The 7-point rule applied on each of the 4^levels congruent sub-triangles obtained by
 /// joining edge midpoints: a fine rule for slow reference integrals in tests and for
 /// near-singular smooth parts.

@@ -30,19 +30,22 @@ StaticPotentials brute_force(const Vec3& r) {
   return sum;
 }
 
-// A degree-5 rule integrates x^a y^b (a + b ≤ 5) exactly (Dunavant 1985): check against the
+// A degree-d rule integrates x^a y^b (a + b ≤ d) exactly (Dunavant 1985): check against the
 // closed form over the unit right triangle, ∫ x^a y^b = a! b! / (a + b + 2)!.
-TEST(TriangleRules, DegreeFiveIsExact) {
-  const TriangleRule& rule = triangle_rule_degree5();
+void expect_exact_to_degree(const TriangleRule& rule, int degree) {
   auto factorial = [](int n) { Real f = 1; for (int i = 2; i <= n; ++i) f *= i; return f; };
-  for (int a = 0; a <= 5; ++a)
-    for (int b = 0; a + b <= 5; ++b) {
+  for (int a = 0; a <= degree; ++a)
+    for (int b = 0; a + b <= degree; ++b) {
       Real sum = 0;
       for (std::size_t i = 0; i < rule.points.size(); ++i)
         sum += rule.weights[i] * 0.5 * std::pow(rule.points[i][1], a) * std::pow(rule.points[i][2], b);
       EXPECT_NEAR(sum, factorial(a) * factorial(b) / factorial(a + b + 2), 1e-15) << a << " " << b;
     }
 }
+
+TEST(TriangleRules, DegreeFiveIsExact) { expect_exact_to_degree(triangle_rule_degree5(), 5); }
+
+TEST(TriangleRules, DegreeFourIsExact) { expect_exact_to_degree(triangle_rule_degree4(), 4); }
 
 // The closed forms of Wilton et al. (1984) against brute-force quadrature, off the plane
 // where the integrand is smooth enough for the reference to converge (1e-6 relative).
