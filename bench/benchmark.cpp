@@ -24,8 +24,6 @@ namespace {
 
 using Clock = std::chrono::steady_clock;
 constexpr int repetitions = 3;
-/// Points per triangle of the far-pair rule: 7 × 7 kernel evaluations per triangle pair.
-constexpr double far_pair_evaluations = 49.0;
 
 double seconds_since(Clock::time_point start) { return std::chrono::duration<double>(Clock::now() - start).count(); }
 
@@ -106,8 +104,7 @@ BenchmarkRow measure(const std::string& name, const std::string& text) {
   row.model = name;
   row.unknowns = static_cast<long>(n);
   row.fill_seconds = median(fill);
-  const double triangles = static_cast<double>(problem.surfaces.mesh.triangles.size());
-  row.kernel_evaluations = far_pair_evaluations * triangles * (triangles + 1) / 2;
+  row.kernel_evaluations = triangle_pair_kernel_evaluations(problem);
   row.factor_seconds = median(factor);
   row.factorization = factorization;
   row.solve_seconds = median(solve);
@@ -156,13 +153,14 @@ BenchmarkReport run_benchmark(bool quick, const std::function<void(const std::st
   struct Case {
     std::string name, text;
   };
-  const std::vector<Case> cases =
-      quick ? std::vector<Case>{{"wire curtain", curtain(4)}, {"plate + monopole", plate_with_monopole(0.12)}}
-            : std::vector<Case>{{"wire curtain", curtain(40)},
-                                {"plate + monopole", plate_with_monopole(0.049)},
-                                {"plate + monopole", plate_with_monopole(0.031)},
-                                {"patch, free space", printed_patch("ground none")},
-                                {"patch on FR-4", printed_patch("substrate fr4 thickness 1.6 permittivity 4.4 loss-tangent 0.02")}};
+  std::vector<Case> cases{{"wire curtain", curtain(quick ? 4 : 40)}};
+  // Pushed one by one: GCC 12 warns falsely about a long initializer list of strings.
+  for (const double size : quick ? std::vector<double>{0.12} : std::vector<double>{0.049, 0.04, 0.031})
+    cases.push_back({"plate + monopole", plate_with_monopole(size)});
+  if (!quick) {
+    cases.push_back({"patch, free space", printed_patch("ground none")});
+    cases.push_back({"patch on FR-4", printed_patch("substrate fr4 thickness 1.6 permittivity 4.4 loss-tangent 0.02")});
+  }
   for (const Case& c : cases) {
     progress(c.name);
     report.rows.push_back(measure(c.name, c.text));
@@ -195,7 +193,7 @@ std::string benchmark_table(const BenchmarkReport& r) {
   out += formatted("\nfactorisation: %s; GFLOP/s counts an LU's (8/3) N^3, so a symmetric factorisation "
                    "(half the work) can pass 100%% of zgemm\n",
                    r.rows.empty() ? "-" : r.rows.front().factorization.c_str());
-  out += "kernels/s: 49 evaluations per pair of triangles (the far-pair rule) over the fill's time\n";
+  out += "kernels/s: the triangle pairs' kernel evaluations (49 a near or far pair, 36 a distant one) over the fill's time\n";
   const double per_case = r.sweep_seconds / std::max(1, r.sweep_cases);
   out += formatted("\nsweep: %s, %ld unknowns, %d frequencies: %d cases in %.2f s, %.3f s a case, %.0f variants an hour\n",
                    r.sweep_model.c_str(), r.sweep_unknowns, r.sweep_frequencies, r.sweep_cases, r.sweep_seconds,

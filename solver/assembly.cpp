@@ -62,6 +62,7 @@ void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMat
   for (std::size_t l = 0; l < problem.model.loads.size(); ++l)
     matrix.add(load_stamp(problem.load_vectors.col(static_cast<Eigen::Index>(l)),
                           load_impedance(problem.model.loads[l], frequency_hz)));
+  matrix.finish_fill();
 }
 
 }  // namespace lobe

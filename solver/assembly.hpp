@@ -13,4 +13,9 @@ namespace lobe {
 /// Cost: O((S + T + J)²) pair integrals.
 void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMatrix& matrix);
 
+/// The Green's-function kernels the triangle–triangle fill evaluates in free space or over
+/// a perfect ground (direct and image terms): 49 for a near pair (the smooth part, beside
+/// its closed-form static part) or a far pair, 36 for a distant one. For speed reports.
+double triangle_pair_kernel_evaluations(const AntennaProblem& problem);
+
 }  // namespace lobe

@@ -22,6 +22,7 @@ class DenseMatrix final : public SystemMatrix {
   /// The entries, with every term added so far (full square).
   ComplexMatrix& entries();
   void add(std::span<const MatrixContribution> terms) override;
+  void finish_fill() override { settle_mirrors(); }
   void factor() override;
   ComplexMatrix solve(const ComplexMatrix& rhs, SolveReport& report) const override;
 

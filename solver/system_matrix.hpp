@@ -47,6 +47,9 @@ class SystemMatrix {
   virtual Eigen::Index size() const = 0;
   /// Adds terms during the fill; called from one thread at a time.
   virtual void add(std::span<const MatrixContribution> terms) = 0;
+  /// Ends a fill: whatever add() deferred is put in place, so that the fill's time is the
+  /// fill's and not the factorisation's. Terms may still be added afterwards.
+  virtual void finish_fill() {}
   /// Factors in place; throws NumericalError when the matrix is singular.
   virtual void factor() = 0;
   /// Solves Z X = B for all columns of B at once; requires factor() first. The report

@@ -1,5 +1,7 @@
 // Triangle–triangle terms of the surface (RWG) fill.
+#include "solver/assembly.hpp"
 #include "solver/pair_integrators.hpp"
+#include "solver/triangle_rules.hpp"
 
 namespace lobe {
 namespace {
@@ -81,6 +83,26 @@ void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<Matrix
         out.push_back({pm.basis, pn.basis, p != q, value});
       }
   }
+}
+
+double triangle_pair_kernel_evaluations(const AntennaProblem& problem) {
+  const FillGeometry& g = *problem.geometry;
+  const int count = static_cast<int>(g.triangles.size());
+  const auto distant_points = static_cast<double>(triangle_rule_degree4().points.size());
+  const auto kernels = [distant_points](const TriangleQuadrature& p, const TriangleQuadrature& q) {
+    constexpr int points = TriangleQuadrature::points;
+    return triangle_pair_is_distant(p, q) ? distant_points * distant_points : static_cast<double>(points * points);
+  };
+  double total = 0.0;
+  for (int p = 0; p < count; ++p) {
+    if (problem.rwg.pieces_on(p).empty()) continue;
+    for (int q = p; q < count; ++q) {
+      if (problem.rwg.pieces_on(q).empty()) continue;
+      total += kernels(g.triangles[p], g.triangles[q]);
+      for (const ImagedElements& imaged : g.images) total += kernels(g.triangles[p], imaged.triangles[q]);
+    }
+  }
+  return total;
 }
 
 }  // namespace lobe
