@@ -1,6 +1,5 @@
 #include "geometry/surface_mesher.hpp"
 
-#include <gmsh.h>
 #ifdef _OPENMP
 #include <omp.h>
 #endif
@@ -13,10 +12,14 @@
 
 #include "core/constants.hpp"
 #include "core/formatted_text.hpp"
+#include "geometry/gmsh_library.hpp"
 #include "geometry/surface_contact.hpp"
 
 namespace lobe {
 namespace {
+
+namespace gmsh = gmsh_library;
+using gmsh::DimTags;
 
 /// Gmsh keeps global state; this opens and always closes one session. Gmsh also sets the
 /// OpenMP thread count for its own use, so the caller's count is restored afterwards.
@@ -27,11 +30,15 @@ class GmshSession {
     m_threads = omp_get_max_threads();
 #endif
     gmsh::initialize();
-    gmsh::option::setNumber("General.Terminal", 0);
-    gmsh::model::add("lobe");
+    gmsh::set_number_option("General.Terminal", 0);
+    gmsh::add_model("lobe");
   }
   ~GmshSession() {
-    gmsh::finalize();
+    try {
+      gmsh::finalize();
+    } catch (const std::exception&) {
+      // Nothing is left to save; the mesh, or the error that ended it, is already out.
+    }
 #ifdef _OPENMP
     omp_set_num_threads(m_threads);
 #endif
@@ -90,10 +97,9 @@ int plane_from_points(const SurfaceShape& shape, const std::vector<Vec3>& corner
       throw InputError(shape.where, "plate '" + shape.name + "' is not flat: its corners do not lie in one plane");
   require_simple_outline(shape, corners, normal.normalized());
   std::vector<int> points, lines;
-  for (const Vec3& c : corners) points.push_back(gmsh::model::occ::addPoint(c.x(), c.y(), c.z()));
-  for (std::size_t i = 0; i < points.size(); ++i)
-    lines.push_back(gmsh::model::occ::addLine(points[i], points[(i + 1) % points.size()]));
-  return gmsh::model::occ::addPlaneSurface({gmsh::model::occ::addCurveLoop(lines)});
+  for (const Vec3& c : corners) points.push_back(gmsh::add_point(c));
+  for (std::size_t i = 0; i < points.size(); ++i) lines.push_back(gmsh::add_line(points[i], points[(i + 1) % points.size()]));
+  return gmsh::add_plane_surface({gmsh::add_curve_loop(lines)});
 }
 
 /// The unit normal of a flat outline (rectangle, disc or polygon).
@@ -102,32 +108,23 @@ Vec3 outline_normal(const SurfaceShape& s) {
   return (s.polygon[1] - s.polygon[0]).cross(s.polygon[2] - s.polygon[0]).normalized();
 }
 
-gmsh::vectorpair add_outline(const SurfaceShape& s);
+DimTags add_outline(const SurfaceShape& s);
 
-Real area_of(int tag) {
-  double mass = 0.0;
-  gmsh::model::occ::getMass(2, tag, mass);
-  return mass;
-}
+Real area_of(int tag) { return gmsh::mass(2, tag); }
 
 /// Cuts the plate's holes out of `plate` one by one; refuses a cut off the plate's plane,
 /// one that misses what is left of the plate and one that leaves nothing.
-gmsh::vectorpair cut_holes(const SurfaceShape& s, int plate) {
+DimTags cut_holes(const SurfaceShape& s, int plate) {
   const Real original = area_of(plate);
-  double x = 0, y = 0, z = 0;
-  gmsh::model::occ::getCenterOfMass(2, plate, x, y, z);
-  const Vec3 centre(x, y, z), normal = outline_normal(s);
-  gmsh::vectorpair remaining{{2, plate}};
+  const Vec3 centre = gmsh::centre_of_mass(2, plate), normal = outline_normal(s);
+  DimTags remaining{{2, plate}};
   Real area = original;
   for (const SurfaceShape& hole : s.cuts) {
     const int tool = add_outline(hole).front().second;
-    gmsh::model::occ::getCenterOfMass(2, tool, x, y, z);
-    if (std::abs(normal.dot(Vec3(x, y, z) - centre)) > 1e-9 * std::sqrt(original) ||
+    if (std::abs(normal.dot(gmsh::centre_of_mass(2, tool) - centre)) > 1e-9 * std::sqrt(original) ||
         outline_normal(hole).cross(normal).norm() > 1e-9)
       throw InputError(hole.where, "this cut does not lie in the plane of plate '" + s.name + "'");
-    gmsh::vectorpair out;
-    std::vector<gmsh::vectorpair> map;
-    gmsh::model::occ::cut(remaining, {{2, tool}}, out, map);
+    const DimTags out = gmsh::cut(remaining, {{2, tool}}).out;
     Real after = 0.0;
     for (const auto& [dim, tag] : out) after += area_of(tag);
     if (after < 1e-9 * original) throw InputError(hole.where, "this cut removes all that is left of plate '" + s.name + "'");
@@ -139,14 +136,14 @@ gmsh::vectorpair cut_holes(const SurfaceShape& s, int plate) {
 }
 
 /// Adds one shape to the OpenCASCADE model, holes cut; returns its (dimension, tag) entities.
-gmsh::vectorpair add_shape(const SurfaceShape& s) {
-  gmsh::vectorpair entities = add_outline(s);
+DimTags add_shape(const SurfaceShape& s) {
+  DimTags entities = add_outline(s);
   if (s.cuts.empty()) return entities;
   return cut_holes(s, entities.front().second);
 }
 
 /// The shape's outline or body as built, without holes.
-gmsh::vectorpair add_outline(const SurfaceShape& s) {
+DimTags add_outline(const SurfaceShape& s) {
   switch (s.kind) {
     case SurfaceKind::rectangle: {
       if (!(s.width > 0.0 && s.length > 0.0))
@@ -159,20 +156,20 @@ gmsh::vectorpair add_outline(const SurfaceShape& s) {
       return {{2, plane_from_points(s, s.polygon)}};
     case SurfaceKind::disc: {
       if (!(s.diameter > 0.0)) throw InputError(s.where, "disc '" + s.name + "' needs a diameter above zero");
-      const int disc = gmsh::model::occ::addDisk(0, 0, 0, s.diameter / 2, s.diameter / 2);
+      const int disc = gmsh::add_disk(Vec3::Zero(), s.diameter / 2, s.diameter / 2);
       const Vec3 n = s.normal.normalized(), axis = Vec3::UnitZ().cross(n);
       const Real angle = std::atan2(axis.norm(), Vec3::UnitZ().dot(n));
-      if (axis.norm() > 1e-12) gmsh::model::occ::rotate({{2, disc}}, 0, 0, 0, axis.x(), axis.y(), axis.z(), angle);
-      else if (angle > 0.5 * pi) gmsh::model::occ::rotate({{2, disc}}, 0, 0, 0, 1, 0, 0, pi);
-      gmsh::model::occ::translate({{2, disc}}, s.corner.x(), s.corner.y(), s.corner.z());
+      if (axis.norm() > 1e-12) gmsh::rotate({{2, disc}}, Vec3::Zero(), axis, angle);
+      else if (angle > 0.5 * pi) gmsh::rotate({{2, disc}}, Vec3::Zero(), Vec3::UnitX(), pi);
+      gmsh::translate({{2, disc}}, s.corner);
       return {{2, disc}};
     }
     case SurfaceKind::sphere:
       if (!(s.diameter > 0.0)) throw InputError(s.where, "sphere '" + s.name + "' needs a diameter above zero");
-      return {{3, gmsh::model::occ::addSphere(s.corner.x(), s.corner.y(), s.corner.z(), s.diameter / 2)}};
+      return {{3, gmsh::add_sphere(s.corner, s.diameter / 2)}};
     case SurfaceKind::box:
       if (!(s.size.minCoeff() > 0.0)) throw InputError(s.where, "box '" + s.name + "' needs sizes above zero");
-      return {{3, gmsh::model::occ::addBox(s.corner.x(), s.corner.y(), s.corner.z(), s.size.x(), s.size.y(), s.size.z())}};
+      return {{3, gmsh::add_box(s.corner, s.size)}};
   }
   return {};
 }
@@ -188,18 +185,15 @@ Real smallest_angle_of(const SurfaceMesh& mesh, int t) {
 
 /// Vertex indices of the nodes Gmsh placed on one model entity.
 std::vector<int> entity_vertices(int dim, int tag, const std::map<std::size_t, int>& index_of) {
-  std::vector<std::size_t> tags;
-  std::vector<double> coordinates, parametric;
-  gmsh::model::mesh::getNodes(tags, coordinates, parametric, dim, tag, true, false);
   std::vector<int> vertices;
-  for (std::size_t t : tags) vertices.push_back(index_of.at(t));
+  for (std::size_t t : gmsh::nodes(dim, tag, true).tags) vertices.push_back(index_of.at(t));
   return vertices;
 }
 
 SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes, const MeshConstraints& constraints) {
   SurfaceMeshReport report;
-  std::vector<gmsh::vectorpair> entities;
-  gmsh::vectorpair all;
+  std::vector<DimTags> entities;
+  DimTags all;
   for (const auto& s : shapes) {
     if (!(s.mesh_size > 0.0)) throw InputError(s.where, "'" + s.name + "' needs a mesh size above zero");
     entities.push_back(add_shape(s));
@@ -208,27 +202,24 @@ SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes, const
       std::vector<double> rows;
       for (int r = 0; r < 3; ++r)
         for (int c = 0; c < 4; ++c) rows.push_back(s.transform.matrix()(r, c));
-      gmsh::model::occ::affineTransform(entities.back(), rows);
+      gmsh::affine_transform(entities.back(), rows);
     }
     all.insert(all.end(), entities.back().begin(), entities.back().end());
   }
-  const auto add_point = [](const Vec3& p) { return gmsh::model::occ::addPoint(p.x(), p.y(), p.z()); };
   for (const Vec3& p : constraints.points) {
-    entities.push_back({{0, add_point(p)}});
+    entities.push_back({{0, gmsh::add_point(p)}});
     all.push_back(entities.back().front());
   }
   for (const MeshLine& line : constraints.lines) {
-    entities.push_back({{1, gmsh::model::occ::addLine(add_point(line.from), add_point(line.to))}});
+    entities.push_back({{1, gmsh::add_line(gmsh::add_point(line.from), gmsh::add_point(line.to))}});
     all.push_back(entities.back().front());
   }
   // Fragment everything against everything so that touching shapes share mesh edges and
   // constraints become part of the surfaces they lie on; the map tells which new entities
   // came from which input.
-  std::vector<gmsh::vectorpair> pieces_of = entities;
+  std::vector<DimTags> pieces_of = entities;
   if (all.size() > 1) {
-    gmsh::vectorpair out;
-    std::vector<gmsh::vectorpair> map;
-    gmsh::model::occ::fragment(all, {}, out, map);
+    const std::vector<DimTags> map = gmsh::fragment(all, {}).map;
     std::size_t index = 0;
     for (std::size_t s = 0; s < entities.size(); ++s) {
       pieces_of[s].clear();
@@ -236,31 +227,28 @@ SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes, const
         pieces_of[s].insert(pieces_of[s].end(), map[index].begin(), map[index].end());
     }
   }
-  gmsh::model::occ::synchronize();
+  gmsh::synchronize();
   // Mesh size per shape, set on every point of the shape's boundary.
   Real largest = 0.0;
   for (std::size_t s = 0; s < shapes.size(); ++s) {
-    gmsh::vectorpair points;
-    gmsh::model::getBoundary(pieces_of[s], points, false, false, true);
-    gmsh::model::mesh::setSize(points, shapes[s].mesh_size);
+    gmsh::set_mesh_size(gmsh::boundary(pieces_of[s], false, false, true), shapes[s].mesh_size);
     largest = std::max(largest, shapes[s].mesh_size);
   }
   // Finer around constraints, where a feed concentrates the current.
   Real smallest = shapes.front().mesh_size;
   for (const auto& s : shapes) smallest = std::min(smallest, s.mesh_size);
   for (std::size_t c = shapes.size(); c < entities.size(); ++c) {
-    gmsh::vectorpair points;
-    gmsh::model::getBoundary(pieces_of[c], points, false, false, true);
+    DimTags points = gmsh::boundary(pieces_of[c], false, false, true);
     for (const auto& piece : pieces_of[c])
       if (piece.first == 0) points.push_back(piece);
-    gmsh::model::mesh::setSize(points, 0.5 * smallest);
+    gmsh::set_mesh_size(points, 0.5 * smallest);
   }
-  gmsh::option::setNumber("Mesh.MeshSizeMax", largest);
-  gmsh::model::mesh::generate(2);
+  gmsh::set_number_option("Mesh.MeshSizeMax", largest);
+  gmsh::generate_mesh(2);
 
-  std::vector<std::size_t> node_tags;
-  std::vector<double> coordinates, parametric;
-  gmsh::model::mesh::getNodes(node_tags, coordinates, parametric);
+  const gmsh::Nodes all_nodes = gmsh::nodes();
+  const std::vector<std::size_t>& node_tags = all_nodes.tags;
+  const std::vector<double>& coordinates = all_nodes.coordinates;
   std::map<std::size_t, int> index_of;
   for (std::size_t i = 0; i < node_tags.size(); ++i) {
     index_of[node_tags[i]] = static_cast<int>(i);
@@ -269,12 +257,11 @@ SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes, const
   // Triangles of each shape's surfaces (a body's surfaces are its boundary).
   std::map<int, int> shape_of_surface;
   for (std::size_t s = 0; s < shapes.size(); ++s) {
-    gmsh::vectorpair surfaces;
+    DimTags surfaces;
     for (const auto& [dim, tag] : pieces_of[s]) {
       if (dim == 2) surfaces.emplace_back(dim, tag);
       if (dim == 3) {
-        gmsh::vectorpair boundary;
-        gmsh::model::getBoundary({{dim, tag}}, boundary, false, false, false);
+        const DimTags boundary = gmsh::boundary({{dim, tag}}, false, false, false);
         surfaces.insert(surfaces.end(), boundary.begin(), boundary.end());
       }
     }
@@ -282,8 +269,7 @@ SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes, const
   }
   constexpr int three_node_triangle = 2;
   for (const auto& [surface, shape] : shape_of_surface) {
-    std::vector<std::size_t> element_tags, element_nodes;
-    gmsh::model::mesh::getElementsByType(three_node_triangle, element_tags, element_nodes, surface);
+    const auto [element_tags, element_nodes] = gmsh::elements_of_type(three_node_triangle, surface);
     for (std::size_t e = 0; e < element_tags.size(); ++e) {
       report.mesh.triangles.push_back(
           {index_of.at(element_nodes[3 * e]), index_of.at(element_nodes[3 * e + 1]), index_of.at(element_nodes[3 * e + 2])});
@@ -311,8 +297,7 @@ SurfaceMeshReport mesh_in_session(const std::vector<SurfaceShape>& shapes, const
     std::vector<std::array<int, 2>> edges;
     for (const auto& [dim, tag] : pieces_of[c]) {
       if (dim != 1) continue;
-      std::vector<std::size_t> element_tags, element_nodes;
-      gmsh::model::mesh::getElementsByType(two_node_line, element_tags, element_nodes, tag);
+      const auto [element_tags, element_nodes] = gmsh::elements_of_type(two_node_line, tag);
       for (std::size_t e = 0; e < element_tags.size(); ++e) {
         const int a = index_of.at(element_nodes[2 * e]), b = index_of.at(element_nodes[2 * e + 1]);
         if (used[a] && used[b]) edges.push_back({a, b});

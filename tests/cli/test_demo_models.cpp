@@ -108,6 +108,21 @@ TEST(DemoModels, CheckCountsWithoutSolving) {
   EXPECT_NE(r.out.find("31 frequencies"), std::string::npos) << r.out;
 }
 
+// The mesher's libraries take about 0.1 s to load: a model of wires alone must not load
+// them, and one with a plate must. The dynamic loader's own log (LD_DEBUG=files, glibc)
+// says which files a process opened.
+TEST(DemoModels, MesherLibrariesLoadOnlyForPlatesAndBodies) {
+  const auto dir = fresh_directory("lazy_mesher");
+  const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
+  const ProcessResult wires = run_lobe("check '" + models + "ground_plane_433.lobe'", dir, 0, "env LD_DEBUG=files");
+  EXPECT_EQ(wires.exit_code, 0) << wires.err;
+  EXPECT_NE(wires.err.find("libhdf5"), std::string::npos) << "the loader's log is missing";
+  EXPECT_EQ(wires.err.find("libgmsh"), std::string::npos);
+  const ProcessResult plate = run_lobe("check '" + models + "monopole_plate_1090.lobe'", dir, 0, "env LD_DEBUG=files");
+  EXPECT_EQ(plate.exit_code, 0) << plate.err;
+  EXPECT_NE(plate.err.find("libgmsh"), std::string::npos);
+}
+
 TEST(DemoModels, OverridesAndThreadsAreHonouredAndReported) {
   const auto dir = fresh_directory("set");
   const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
