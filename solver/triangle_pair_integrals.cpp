@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "core/check.hpp"
 #include "core/constants.hpp"
 #include "solver/green_function.hpp"
 #include "solver/triangle_potentials.hpp"
@@ -82,7 +83,8 @@ PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const V
 std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh) {
   const TriangleRule& rule = triangle_rule_degree5();
   const TriangleRule& distant = triangle_rule_degree4();
-  const int distant_points = static_cast<int>(distant.points.size());
+  constexpr int distant_points = TriangleQuadrature::distant_points;
+  LOBE_CHECK(static_cast<int>(distant.points.size()) == distant_points, "distant-pair rule of the wrong size");
   std::vector<TriangleQuadrature> all(mesh.triangles.size());
   for (std::size_t t = 0; t < all.size(); ++t) {
     TriangleQuadrature& q = all[t];
@@ -104,18 +106,12 @@ std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh) {
       q.lane_z[b] = q.x[point].z();
       q.lane_w[b] = b < n ? q.w[b] : 0.0;
     }
-    const auto point = [&](int i) {
-      const auto& b = distant.points[i];
-      return Vec3(b[0] * q.corners[0] + b[1] * q.corners[1] + b[2] * q.corners[2]);
-    };
-    for (int l = 0; l < TriangleQuadrature::distant_lanes; ++l) {
-      const bool pad = l >= distant_points * distant_points;
-      const int a = pad ? 0 : l / distant_points, b = pad ? 0 : l % distant_points;
-      const Vec3 x = point(a), y = point(b);
-      q.observer_x[l] = x.x(), q.observer_y[l] = x.y(), q.observer_z[l] = x.z();
-      q.source_x[l] = y.x(), q.source_y[l] = y.y(), q.source_z[l] = y.z();
-      q.observer_w[l] = pad ? 0.0 : distant.weights[a] * q.area;
-      q.source_w[l] = pad ? 0.0 : distant.weights[b] * q.area;
+    for (int b = 0; b < TriangleQuadrature::lanes; ++b) {
+      const int i = b < distant_points ? b : 0;
+      const auto& c = distant.points[i];
+      const Vec3 y = c[0] * q.corners[0] + c[1] * q.corners[1] + c[2] * q.corners[2];
+      q.distant_x[b] = y.x(), q.distant_y[b] = y.y(), q.distant_z[b] = y.z();
+      q.distant_w[b] = b < distant_points ? distant.weights[i] * q.area : 0.0;
     }
   }
   return all;
@@ -131,42 +127,51 @@ bool triangle_pair_is_distant(const TriangleQuadrature& p, const TriangleQuadrat
 
 __attribute__((target_clones("avx512f", "avx2", "default"))) TrianglePairIntegrals triangle_pair_integrals_distant(
     const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
-  // One lane per point pair (x_a, y_b), g = w_a w_b G: D = Σ g, B = Σ g x_a, C = Σ g y_b,
-  // A = Σ g x_a·y_b, each loop a whole number of vector registers.
-  constexpr int lanes = TriangleQuadrature::distant_lanes;
-  alignas(64) Real distance[lanes], phase[lanes], sine[lanes], cosine[lanes];
+  // P's points x_a in the lanes, Q's points y_b one at a time, g_ab = w_a w_b G(|x_a − y_b|).
+  // Per lane, S_a = Σ_b g_ab and T_a = Σ_b g_ab y_b; then D = Σ_a S_a, B = Σ_a S_a x_a,
+  // C = Σ_a T_a and A = Σ_a x_a·T_a.
+  constexpr int lanes = TriangleQuadrature::lanes, points = TriangleQuadrature::distant_points;
+  alignas(64) Real distance[points * lanes], phase[points * lanes], sine[points * lanes], cosine[points * lanes];
+  for (int b = 0; b < points; ++b) {
+    const Real yx = q.distant_x[b], yy = q.distant_y[b], yz = q.distant_z[b];
 #pragma omp simd
-  for (int l = 0; l < lanes; ++l) {
-    const Real dx = p.observer_x[l] - q.source_x[l], dy = p.observer_y[l] - q.source_y[l],
-               dz = p.observer_z[l] - q.source_z[l];
-    distance[l] = std::sqrt(dx * dx + dy * dy + dz * dz);
-    phase[l] = k * distance[l];
+    for (int a = 0; a < lanes; ++a) {
+      const Real dx = p.distant_x[a] - yx, dy = p.distant_y[a] - yy, dz = p.distant_z[a] - yz;
+      distance[b * lanes + a] = std::sqrt(dx * dx + dy * dy + dz * dz);
+      phase[b * lanes + a] = k * distance[b * lanes + a];
+    }
   }
-  sine_cosine(phase, sine, cosine, lanes);
-  Real d_re = 0, d_im = 0, a_re = 0, a_im = 0;
-  Real bx_re = 0, bx_im = 0, by_re = 0, by_im = 0, bz_re = 0, bz_im = 0;
-  Real cx_re = 0, cx_im = 0, cy_re = 0, cy_im = 0, cz_re = 0, cz_im = 0;
-#pragma omp simd reduction(+ : d_re, d_im, a_re, a_im, bx_re, bx_im, by_re, by_im, bz_re, bz_im, cx_re, cx_im, cy_re, \
-                               cy_im, cz_re, cz_im)
-  for (int l = 0; l < lanes; ++l) {
-    const Real g = p.observer_w[l] * q.source_w[l] / distance[l];
-    const Real g_re = g * cosine[l], g_im = -g * sine[l];
-    const Real xy = p.observer_x[l] * q.source_x[l] + p.observer_y[l] * q.source_y[l] +
-                    p.observer_z[l] * q.source_z[l];
-    d_re += g_re, d_im += g_im;
-    a_re += xy * g_re, a_im += xy * g_im;
-    bx_re += p.observer_x[l] * g_re, bx_im += p.observer_x[l] * g_im;
-    by_re += p.observer_y[l] * g_re, by_im += p.observer_y[l] * g_im;
-    bz_re += p.observer_z[l] * g_re, bz_im += p.observer_z[l] * g_im;
-    cx_re += q.source_x[l] * g_re, cx_im += q.source_x[l] * g_im;
-    cy_re += q.source_y[l] * g_re, cy_im += q.source_y[l] * g_im;
-    cz_re += q.source_z[l] * g_re, cz_im += q.source_z[l] * g_im;
+  sine_cosine(phase, sine, cosine, points * lanes);
+  alignas(64) Real s_re[lanes] = {}, s_im[lanes] = {}, t_re[3][lanes] = {}, t_im[3][lanes] = {};
+  for (int b = 0; b < points; ++b) {
+    const Real w = q.distant_w[b], yx = q.distant_x[b], yy = q.distant_y[b], yz = q.distant_z[b];
+#pragma omp simd
+    for (int a = 0; a < lanes; ++a) {
+      const Real g = w * p.distant_w[a] / distance[b * lanes + a];
+      const Real g_re = g * cosine[b * lanes + a], g_im = -g * sine[b * lanes + a];
+      s_re[a] += g_re, s_im[a] += g_im;
+      t_re[0][a] += yx * g_re, t_im[0][a] += yx * g_im;
+      t_re[1][a] += yy * g_re, t_im[1][a] += yy * g_im;
+      t_re[2][a] += yz * g_re, t_im[2][a] += yz * g_im;
+    }
+  }
+  Real d_re = 0, d_im = 0, a_re = 0, a_im = 0, b_re[3] = {}, b_im[3] = {}, c_re[3] = {}, c_im[3] = {};
+  const Real* x[3] = {p.distant_x.data(), p.distant_y.data(), p.distant_z.data()};
+  for (int a = 0; a < lanes; ++a) {
+    d_re += s_re[a], d_im += s_im[a];
+    for (int i = 0; i < 3; ++i) {
+      b_re[i] += x[i][a] * s_re[a], b_im[i] += x[i][a] * s_im[a];
+      c_re[i] += t_re[i][a], c_im[i] += t_im[i][a];
+      a_re += x[i][a] * t_re[i][a], a_im += x[i][a] * t_im[i][a];
+    }
   }
   PairSums sums;
   sums.d = green_scale * Complex(d_re, d_im);
   sums.a = green_scale * Complex(a_re, a_im);
-  sums.b = green_scale * Eigen::Vector3cd(Complex(bx_re, bx_im), Complex(by_re, by_im), Complex(bz_re, bz_im));
-  sums.c = green_scale * Eigen::Vector3cd(Complex(cx_re, cx_im), Complex(cy_re, cy_im), Complex(cz_re, cz_im));
+  for (int i = 0; i < 3; ++i) {
+    sums.b(i) = green_scale * Complex(b_re[i], b_im[i]);
+    sums.c(i) = green_scale * Complex(c_re[i], c_im[i]);
+  }
   return sums.integrals(p, q);
 }
 

@@ -42,12 +42,11 @@ struct TriangleQuadrature {
   std::array<Vec3, points> x;
   std::array<Real, points> w;
   alignas(64) std::array<Real, lanes> lane_x, lane_y, lane_z, lane_w;
-  /// For distant pairs, the 6-point rule's 36 point pairs, padded to 40 lanes (l = 6a + b,
-  /// the pad repeating l = 0 with weight zero): this triangle's point a as the observer's
-  /// and its point b as the source's, with their weights times the area.
-  static constexpr int distant_lanes = 40;
-  alignas(64) std::array<Real, distant_lanes> observer_x, observer_y, observer_z, observer_w;
-  alignas(64) std::array<Real, distant_lanes> source_x, source_y, source_z, source_w;
+  /// For distant pairs, the 6-point rule's points by coordinate and their weights times the
+  /// area, padded to eight lanes like the above: 256 bytes a source triangle brings into
+  /// cache, where a layout of all 36 point pairs had made the fill wait on memory.
+  static constexpr int distant_points = 6;
+  alignas(64) std::array<Real, lanes> distant_x, distant_y, distant_z, distant_w;
 };
 std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh);
 
