@@ -24,6 +24,19 @@ struct PairSums {
   Complex a = 0.0, d = 0.0;
   Eigen::Vector3cd b = Eigen::Vector3cd::Zero(), c = Eigen::Vector3cd::Zero();
 
+  /// The sums from their real and imaginary parts, each times G's 1/(4π).
+  static PairSums scaled_by_green(Real d_re, Real d_im, Real a_re, Real a_im, const Real* b_re, const Real* b_im,
+                                  const Real* c_re, const Real* c_im) {
+    PairSums sums;
+    sums.d = green_scale * Complex(d_re, d_im);
+    sums.a = green_scale * Complex(a_re, a_im);
+    for (int i = 0; i < 3; ++i) {
+      sums.b(i) = green_scale * Complex(b_re[i], b_im[i]);
+      sums.c(i) = green_scale * Complex(c_re[i], c_im[i]);
+    }
+    return sums;
+  }
+
   void add(const Vec3& x, Real w, Complex scalar, const Eigen::Vector3cd& moment) {
     d += w * scalar;
     b += (w * scalar) * x.cast<Complex>();
@@ -165,14 +178,7 @@ __attribute__((target_clones("avx512f", "avx2", "default"))) TrianglePairIntegra
       a_re += x[i][a] * t_re[i][a], a_im += x[i][a] * t_im[i][a];
     }
   }
-  PairSums sums;
-  sums.d = green_scale * Complex(d_re, d_im);
-  sums.a = green_scale * Complex(a_re, a_im);
-  for (int i = 0; i < 3; ++i) {
-    sums.b(i) = green_scale * Complex(b_re[i], b_im[i]);
-    sums.c(i) = green_scale * Complex(c_re[i], c_im[i]);
-  }
-  return sums.integrals(p, q);
+  return PairSums::scaled_by_green(d_re, d_im, a_re, a_im, b_re, b_im, c_re, c_im).integrals(p, q);
 }
 
 // Compiled also for AVX-512 and AVX2 (chosen by CPU features at start-up), as the far
@@ -228,14 +234,7 @@ __attribute__((target_clones("avx512f", "avx2", "default"))) TrianglePairIntegra
       a_im += y[i][b] * v_im[i][b];
     }
   }
-  PairSums sums;
-  sums.d = green_scale * Complex(d_re, d_im);
-  sums.a = green_scale * Complex(a_re, a_im);
-  for (int i = 0; i < 3; ++i) {
-    sums.b(i) = green_scale * Complex(b_re[i], b_im[i]);
-    sums.c(i) = green_scale * Complex(c_re[i], c_im[i]);
-  }
-  return sums.integrals(p, q);
+  return PairSums::scaled_by_green(d_re, d_im, a_re, a_im, b_re, b_im, c_re, c_im).integrals(p, q);
 }
 
 TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
