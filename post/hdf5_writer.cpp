@@ -269,6 +269,7 @@ void write_run_attributes(hid_t file, const RunInfo& info) {
   string_attribute(file, "program", "lobe");
   string_attribute(file, "version", info.version);
   int_attribute(file, "threads", info.threads);
+  int_attribute(file, "processes", info.processes);
   string_attribute(file, "command_line", info.command_line);
   string_attribute(file, "time_convention", "exp(+j omega t)");
   string_attribute(file, "angles", "theta from +z, phi from +x toward +y");

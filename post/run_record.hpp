@@ -13,6 +13,7 @@ struct RunInfo {
   int threads = 1;
   std::string command_line;
   std::optional<Real> tx_power_w;  ///< forward power at each driven port, for reflected-power figures
+  int processes = 1;               ///< MPI processes that shared the frequencies (a sweep's case)
 };
 
 struct RunRecord {

@@ -2,7 +2,9 @@
 
 #include <atomic>
 #include <exception>
+#include <map>
 #include <mutex>
+#include <stdexcept>
 #ifdef _OPENMP
 #include <omp.h>
 #endif
@@ -10,6 +12,8 @@
 #include "post/run_summary.hpp"
 #include "solver/threads.hpp"
 #include "study/adaptive_frequencies.hpp"
+#include "study/process_ranks.hpp"
+#include "study/solution_packing.hpp"
 
 namespace lobe {
 namespace {
@@ -22,10 +26,67 @@ bool inside_parallel_region() {
 #endif
 }
 
+/// solve_frequencies over several processes: each solves every process_count()-th of the
+/// indices, then all exchange their solutions, and every process hands every solution to
+/// `use`, in the order of `indices`. A failure or a cancellation on one process ends the
+/// set on all, after the exchange (which every process must reach).
+bool solve_frequencies_shared(const AntennaProblem& problem, const std::vector<std::size_t>& indices,
+                              const StudyControl& control,
+                              const std::function<void(std::size_t, FrequencySolution&&)>& use) {
+  const auto count = static_cast<std::size_t>(process_count()), rank = static_cast<std::size_t>(process_rank());
+  std::vector<std::size_t> mine;
+  for (std::size_t n = rank; n < indices.size(); n += count) mine.push_back(indices[n]);
+  StudyControl alone = control;
+  alone.share_frequencies = false;
+  alone.progress = nullptr;
+  std::map<std::size_t, FrequencySolution> solved;
+  std::mutex guard;
+  bool whole = false;
+  std::exception_ptr failure;
+  try {
+    whole = solve_frequencies(problem, mine, alone, [&](std::size_t i, FrequencySolution&& s) {
+      const std::lock_guard<std::mutex> lock(guard);
+      solved.emplace(i, std::move(s));
+    });
+  } catch (...) {
+    failure = std::current_exception();
+  }
+  // [failed, whole, solutions, then index and solution for each]
+  std::vector<double> packed{failure ? 1.0 : 0.0, whole ? 1.0 : 0.0, static_cast<double>(solved.size())};
+  for (const auto& [index, solution] : solved) {
+    packed.push_back(static_cast<double>(index));
+    pack_solution(solution, packed);
+  }
+  const std::vector<std::vector<double>> all = gather_from_all_processes(packed);
+  if (failure) std::rethrow_exception(failure);
+  std::map<std::size_t, FrequencySolution> everything;
+  bool every_whole = true;
+  for (const std::vector<double>& from : all) {
+    if (from.size() < 3) throw std::runtime_error("a process sent no solutions");
+    if (from[0] != 0.0) throw std::runtime_error("another process of this job failed in this case (its message is above)");
+    every_whole = every_whole && from[1] != 0.0;
+    std::size_t at = 3;
+    for (std::size_t k = 0; k < static_cast<std::size_t>(from[2]); ++k) {
+      const auto index = static_cast<std::size_t>(from.at(at++));
+      everything.emplace(index, unpack_solution(from, at));
+    }
+  }
+  if (!every_whole) return false;
+  for (std::size_t n = 0; n < indices.size(); ++n) {
+    const auto found = everything.find(indices[n]);
+    if (found == everything.end()) throw std::runtime_error("a frequency's solution went missing between processes");
+    const Real frequency = found->second.frequency_hz;
+    use(indices[n], std::move(found->second));
+    if (control.progress) control.progress(n + 1, indices.size(), mine.size(), frequency_text(frequency));
+  }
+  return true;
+}
+
 }  // namespace
 
 bool solve_frequencies(const AntennaProblem& problem, const std::vector<std::size_t>& indices,
                        const StudyControl& control, const std::function<void(std::size_t, FrequencySolution&&)>& use) {
+  if (control.share_frequencies && process_count() > 1) return solve_frequencies_shared(problem, indices, control, use);
   const std::vector<Real>& frequencies = problem.model.frequencies_hz;
   const std::size_t count = indices.size();
   const int threads = thread_count();

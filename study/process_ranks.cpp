@@ -1,7 +1,9 @@
 #include "study/process_ranks.hpp"
 
+#include <climits>
 #include <cstdlib>
 #include <initializer_list>
+#include <stdexcept>
 
 #ifdef LOBE_HAVE_MPI
 // The C interface only (MPI's C++ bindings are deprecated and need their own library).
@@ -78,6 +80,34 @@ std::size_t sum_over_processes(std::size_t value) {
   }
 #endif
   return value;
+}
+
+std::vector<std::vector<double>> gather_from_all_processes(const std::vector<double>& mine) {
+#ifdef LOBE_HAVE_MPI
+  if (g_started && g_count > 1) {
+    // Sizes first, then the values into one buffer (MPI counts in int).
+    long long size = static_cast<long long>(mine.size());
+    std::vector<long long> sizes(static_cast<std::size_t>(g_count));
+    MPI_Allgather(&size, 1, MPI_LONG_LONG, sizes.data(), 1, MPI_LONG_LONG, MPI_COMM_WORLD);
+    std::vector<int> counts, offsets;
+    long long total = 0;
+    for (long long n : sizes) {
+      if (total + n > INT_MAX) throw std::runtime_error("too much to exchange between processes in one message");
+      counts.push_back(static_cast<int>(n));
+      offsets.push_back(static_cast<int>(total));
+      total += n;
+    }
+    std::vector<double> all(static_cast<std::size_t>(total));
+    MPI_Allgatherv(mine.data(), static_cast<int>(mine.size()), MPI_DOUBLE, all.data(), counts.data(), offsets.data(),
+                   MPI_DOUBLE, MPI_COMM_WORLD);
+    std::vector<std::vector<double>> out;
+    for (int r = 0; r < g_count; ++r)
+      out.emplace_back(all.begin() + offsets[static_cast<std::size_t>(r)],
+                       all.begin() + offsets[static_cast<std::size_t>(r)] + counts[static_cast<std::size_t>(r)]);
+    return out;
+  }
+#endif
+  return {mine};
 }
 
 int end_all_processes(int code) {

@@ -3,6 +3,7 @@
 /// mpirun (or another launcher that sets Open MPI's, MPICH's or PMIx's rank variables);
 /// then every process runs the same command and the sweep shares its cases among them.
 #include <cstddef>
+#include <vector>
 
 namespace lobe {
 
@@ -26,6 +27,8 @@ void wait_for_all_processes();
 bool any_process(bool flag);
 /// The sum of `value` over the processes, on every process.
 std::size_t sum_over_processes(std::size_t value);
+/// Every process's `mine`, in rank order, on every process (just `mine` without MPI).
+std::vector<std::vector<double>> gather_from_all_processes(const std::vector<double>& mine);
 /// Ends every process of the job with `code` (after an error one of them cannot recover
 /// from while the others may be waiting for it); returns `code` without MPI.
 int end_all_processes(int code);

@@ -39,6 +39,10 @@ struct StudyControl {
   std::function<void(const std::string& text)> notice;
   /// Called with the unknowns and the solves ahead, before the first solve, for a time estimate.
   std::function<void(double unknowns, double solves)> workload;
+  /// Under MPI, every process takes part in each set of frequencies solved, each solving its
+  /// share and all receiving every solution (a sweep of fewer cases than processes). Every
+  /// process must then make the same calls in the same order.
+  bool share_frequencies = false;
 
   bool cancelled() const { return cancel && cancel->requested(); }
 };

@@ -154,17 +154,25 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
   if (first_process) find_pending();
   wait_for_all_processes();
   if (!first_process) find_pending();
-  // Each process takes every count-th pending case.
-  std::vector<std::size_t> mine;
-  for (std::size_t k = 0; k < pending.size(); ++k)
-    if (k % static_cast<std::size_t>(process_count()) == static_cast<std::size_t>(process_rank())) mine.push_back(pending[k]);
-  pending = std::move(mine);
+  // Each process takes every count-th pending case; with fewer cases than processes, every
+  // process takes every case and they share each case's frequencies instead (the first
+  // process writes the case files).
+  const auto processes = static_cast<std::size_t>(process_count());
+  const bool share_frequencies = processes > 1 && pending.size() < processes;
+  if (!share_frequencies) {
+    std::vector<std::size_t> mine;
+    for (std::size_t k = 0; k < pending.size(); ++k)
+      if (k % processes == static_cast<std::size_t>(process_rank())) mine.push_back(pending[k]);
+    pending = std::move(mine);
+  }
+  const bool writes_cases = !share_frequencies || first_process;
 
   // Small cases run side by side, one thread each: threads inside a case that solves in
   // milliseconds cost more than they save (a 192-unknown case ran faster on one thread
-  // than on two). Large ones run one after another with every thread inside.
+  // than on two). Large ones run one after another with every thread inside. Cases whose
+  // frequencies are shared run one after another: only the main thread may exchange them.
   const int threads = thread_count();
-  const bool side_by_side = threads > 1 && pending.size() > 1 &&
+  const bool side_by_side = threads > 1 && pending.size() > 1 && !share_frequencies &&
                             case_unknowns(sweep, pending.front()) <= largest_problem_side_by_side;
   if (side_by_side) set_thread_count(1);
   std::set<std::string> warned;  // each distinct mesh warning once, not once per case
@@ -194,16 +202,17 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
       std::string command = "lobe sweep case " + case_name(c) + ":";
       for (const auto& o : case_overrides(sweep, c)) command += " --set " + o.name + "=" + o.expression;
       RunRecord run{problem, {}, {LOBE_VERSION, thread_count(), command, std::nullopt}};
+      run.info.processes = share_frequencies ? process_count() : 1;
       run.results.resize(model.frequencies_hz.size());
       const bool whole = solve_each_frequency(
-          problem, {control.cancel, {}, {}, {}, {}},
+          problem, {control.cancel, {}, {}, {}, {}, share_frequencies},
           [&](std::size_t index, FrequencySolution&& s) { run.results[index] = evaluate_frequency(problem, s); },
           sweep.request.sampling);
 #pragma omp critical(lobe_sweep_state)
       {
         if (!whole) {
           stopped = true;
-        } else {
+        } else if (writes_cases) {
           // HDF5 is not built to be called from two threads at once.
           OutputFiles files(sweep.case_directory);
           write_hdf5(files.staging_path(case_name(c) + ".h5"), run);

@@ -1,5 +1,5 @@
 #pragma once
-/// One dataset of an HDF5 result file as numbers, for the command-line tests.
+/// One dataset or root attribute of an HDF5 result file, for the command-line tests.
 #include <filesystem>
 #include <string>
 #include <vector>
@@ -14,6 +14,19 @@ inline std::vector<Real> dataset(const std::filesystem::path& file, const std::s
   std::vector<Real> values = read_reals(h, name, dims);
   H5Fclose(h);
   return values;
+}
+
+/// An integer attribute of the file's root group.
+inline int root_int_attribute(const std::filesystem::path& file, const std::string& name) {
+  const hid_t h = open_hdf5_for_reading(file);
+  int value = -1;
+  const hid_t attribute = H5Aopen(h, name.c_str(), H5P_DEFAULT);
+  if (attribute >= 0) {
+    H5Aread(attribute, H5T_NATIVE_INT, &value);
+    H5Aclose(attribute);
+  }
+  H5Fclose(h);
+  return value;
 }
 
 }  // namespace lobe::testing

@@ -1,6 +1,7 @@
 // A sweep spread over two MPI processes on this machine (Open MPI, loopback): the same
 // case results as one process, bit for bit (one thread each makes solves repeatable), one
-// sweep file, and a resumed run solves only what is missing.
+// sweep file, and a resumed run solves only what is missing; a sweep of one case shares
+// its frequencies between the processes instead.
 #include <gtest/gtest.h>
 
 #include <algorithm>
@@ -42,6 +43,22 @@ TEST(MpiSweep, TwoProcessesGiveOneProcessesCases) {
   ASSERT_EQ(resumed.exit_code, 0) << resumed.err;
   EXPECT_NE(resumed.out.find("5 cases (2 solved now, 3 from before)"), std::string::npos) << resumed.out;
   EXPECT_TRUE(std::filesystem::exists(dir / "two.h5"));
+}
+
+TEST(MpiSweep, OneCaseSharesItsFrequenciesBetweenTwoProcesses) {
+  const auto dir = fresh_directory("mpi-frequencies");
+  // 21 frequencies: sampled adaptively, so the processes also share each round's solves.
+  const std::string sweep = "sweep '" + models + "half_wave_dipole_ism.lobe' --vary rod=2 --threads 1 -o '";
+  const ProcessResult one = run_lobe(sweep + (dir / "one.h5").string() + "'", dir / "one");
+  ASSERT_EQ(one.exit_code, 0) << one.err;
+  const ProcessResult two = run_lobe(sweep + (dir / "two.h5").string() + "'", dir / "two", 0, two_processes);
+  ASSERT_EQ(two.exit_code, 0) << two.out << two.err;
+  EXPECT_NE(two.out.find("1 cases (1 solved now, 0 from before)"), std::string::npos) << two.out;
+  const auto case_file = [&](const char* run) { return dir / (std::string(run) + ".h5.cases") / "case-000001.h5"; };
+  EXPECT_EQ(root_int_attribute(case_file("one"), "processes"), 1);
+  EXPECT_EQ(root_int_attribute(case_file("two"), "processes"), 2);
+  for (const char* part : {"ports/reflection_re", "ports/reflection_im", "pattern/gain_dbi", "solver/solved"})
+    EXPECT_EQ(dataset(case_file("one"), part), dataset(case_file("two"), part)) << part;
 }
 
 TEST(MpiSweep, OtherCommandsRefuseToRunUnderMpirun) {
