@@ -57,7 +57,7 @@ void DenseMatrix::add(std::span<const MatrixContribution> terms) {
   // the integrators' row is the observing element's function, so these writes run down a
   // few columns, and settle_mirrors() adds the transpose in cache-sized tiles. Written at
   // (row, column) of a column-major matrix directly, they were a cache miss each and a
-  // quarter of a surface fill.
+  // fifth of a surface fill.
   for (const MatrixContribution& c : terms) {
     LOBE_ASSERT(c.row < size() && c.column < size());
     if (c.mirror) {

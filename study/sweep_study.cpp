@@ -183,6 +183,9 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
     bool skip;
 #pragma omp critical(lobe_sweep_state)
     skip = stopped || failure;
+    // Sharing, every process must go on or stop alike (a case file the first could not
+    // write stops it alone), or the others would wait for it in the next exchange.
+    if (share_frequencies) skip = any_process(skip);
     if (skip) continue;
     try {
       const std::size_t c = pending[k];
@@ -206,7 +209,9 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
       run.results.resize(model.frequencies_hz.size());
       const bool whole = solve_each_frequency(
           problem, {control.cancel, {}, {}, {}, {}, share_frequencies},
-          [&](std::size_t index, FrequencySolution&& s) { run.results[index] = evaluate_frequency(problem, s); },
+          [&](std::size_t index, FrequencySolution&& s) {
+            if (writes_cases) run.results[index] = evaluate_frequency(problem, s);
+          },
           sweep.request.sampling);
 #pragma omp critical(lobe_sweep_state)
       {
