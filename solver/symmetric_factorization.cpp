@@ -7,12 +7,7 @@
 
 #include "core/check.hpp"
 #include "solver/blas_kernels.hpp"
-
-
-extern "C" {
-void openblas_set_num_threads(int);
-int openblas_get_num_threads(void);
-}
+#include "solver/threads.hpp"
 
 namespace lobe {
 namespace {
@@ -148,8 +143,7 @@ bool factor_symmetric(ComplexMatrix& a, SymmetricPivots& pivots, int block) {
   pivots.pair.assign(n, false);
   // The threads share the work by OpenMP, each product in BLAS on one thread: BLAS's own
   // threads would spin beside OpenMP's between the products and slow both.
-  const int blas_threads = openblas_get_num_threads();
-  openblas_set_num_threads(1);
+  const SingleThreadedBlas one_blas_thread;
   ComplexMatrix w;
   std::vector<int> interchange;
   std::vector<bool> pair;
@@ -159,17 +153,13 @@ bool factor_symmetric(ComplexMatrix& a, SymmetricPivots& pivots, int block) {
     interchange.clear();
     pair.clear();
     const int done = factor_panel(trailing, block, w, interchange, pair);
-    if (done == 0) {
-      openblas_set_num_threads(blas_threads);
-      return false;
-    }
+    if (done == 0) return false;
     for (int j = 0; j < done; ++j) {
       pivots.interchange[k0 + j] = k0 + interchange[j];
       pivots.pair[k0 + j] = pair[j];
     }
     k0 += done;
   }
-  openblas_set_num_threads(blas_threads);
   return true;
 }
 

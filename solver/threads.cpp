@@ -6,7 +6,10 @@
 #include <omp.h>
 #endif
 
-extern "C" void openblas_set_num_threads(int);
+extern "C" {
+void openblas_set_num_threads(int);
+int openblas_get_num_threads(void);
+}
 
 namespace lobe {
 
@@ -17,6 +20,10 @@ void set_thread_count(int n) {
 #endif
   openblas_set_num_threads(n);
 }
+
+SingleThreadedBlas::SingleThreadedBlas() : m_threads(openblas_get_num_threads()) { openblas_set_num_threads(1); }
+
+SingleThreadedBlas::~SingleThreadedBlas() { openblas_set_num_threads(m_threads); }
 
 int thread_count() {
 #ifdef _OPENMP
