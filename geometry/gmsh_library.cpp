@@ -94,12 +94,6 @@ BooleanResult boolean(BooleanFunction* function, DimTags objects, DimTags tools,
 
 }  // namespace
 
-bool load(std::string& error) {
-  open_library();
-  error = load_error;
-  return library != nullptr;
-}
-
 void initialize() {
   int ierr = 0;
   // Without the user's Gmsh configuration files: meshes must not depend on them.

@@ -16,9 +16,6 @@ namespace lobe::gmsh_library {
 /// (dimension, tag) pairs, Gmsh's way of naming model entities.
 using DimTags = std::vector<std::pair<int, int>>;
 
-/// Loads the library (once per process); false with the loader's message when it cannot.
-bool load(std::string& error);
-
 void initialize();
 void finalize();
 void set_number_option(const std::string& name, double value);
