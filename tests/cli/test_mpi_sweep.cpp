@@ -6,6 +6,8 @@
 
 #include <algorithm>
 #include <filesystem>
+#include <string>
+#include <vector>
 
 #include "cli/run_process.hpp"
 #include "cli/result_datasets.hpp"
@@ -20,26 +22,42 @@ const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
 const std::string two_processes =
     std::string(LOBE_MPIRUN) + " -np 2 --oversubscribe --allow-run-as-root --mca btl self,tcp --mca btl_tcp_if_include lo";
 
+/// The demo dipole swept over `vary`, one thread a process, into `output`.
+std::string sweep_command(const std::string& vary, const std::filesystem::path& output) {
+  return "sweep '" + models + "half_wave_dipole_ism.lobe' --vary " + vary + " --threads 1 -o '" + output.string() + "'";
+}
+
+/// Runs the sweep in one process into one.h5 and in two into two.h5, both to success; the
+/// two processes' output.
+ProcessResult sweep_in_one_and_two(const std::filesystem::path& dir, const std::string& vary) {
+  const ProcessResult one = run_lobe(sweep_command(vary, dir / "one.h5"), dir / "one");
+  EXPECT_EQ(one.exit_code, 0) << one.err;
+  const ProcessResult two = run_lobe(sweep_command(vary, dir / "two.h5"), dir / "two", 0, two_processes);
+  EXPECT_EQ(two.exit_code, 0) << two.out << two.err;
+  return two;
+}
+
+/// The case file `name` holds the same `parts` in both sweeps, bit for bit.
+void expect_same_case(const std::filesystem::path& dir, const std::string& name, const std::vector<std::string>& parts) {
+  for (const std::string& part : parts)
+    EXPECT_EQ(dataset(dir / "one.h5.cases" / name, part), dataset(dir / "two.h5.cases" / name, part)) << name << " " << part;
+}
+
 TEST(MpiSweep, TwoProcessesGiveOneProcessesCases) {
   const auto dir = fresh_directory("mpi-sweep");
-  const std::string sweep = "sweep '" + models + "half_wave_dipole_ism.lobe' --vary rod=1,1.5,2,2.5,3 --threads 1 -o '";
-  const ProcessResult one = run_lobe(sweep + (dir / "one.h5").string() + "'", dir / "one");
-  ASSERT_EQ(one.exit_code, 0) << one.err;
-  const ProcessResult two = run_lobe(sweep + (dir / "two.h5").string() + "'", dir / "two", 0, two_processes);
-  ASSERT_EQ(two.exit_code, 0) << two.out << two.err;
+  const ProcessResult two = sweep_in_one_and_two(dir, "rod=1,1.5,2,2.5,3");
   // One report, from the first process.
   EXPECT_NE(two.out.find("5 cases (5 solved now, 0 from before)"), std::string::npos) << two.out;
   EXPECT_TRUE(std::filesystem::exists(dir / "two.h5"));
-  for (int c = 1; c <= 5; ++c) {
-    const std::string name = "case-00000" + std::to_string(c) + ".h5";
-    for (const char* part : {"ports/reflection_re", "ports/reflection_im", "pattern/gain_dbi"})
-      EXPECT_EQ(dataset(dir / "one.h5.cases" / name, part), dataset(dir / "two.h5.cases" / name, part)) << name << " " << part;
-  }
+  for (int c = 1; c <= 5; ++c)
+    expect_same_case(dir, "case-00000" + std::to_string(c) + ".h5",
+                     {"ports/reflection_re", "ports/reflection_im", "pattern/gain_dbi"});
   // Two cases lost: the same command solves those two and assembles the file again.
   std::filesystem::remove(dir / "two.h5");
   std::filesystem::remove(dir / "two.h5.cases" / "case-000002.h5");
   std::filesystem::remove(dir / "two.h5.cases" / "case-000005.h5");
-  const ProcessResult resumed = run_lobe(sweep + (dir / "two.h5").string() + "'", dir / "two", 0, two_processes);
+  const ProcessResult resumed =
+      run_lobe(sweep_command("rod=1,1.5,2,2.5,3", dir / "two.h5"), dir / "two", 0, two_processes);
   ASSERT_EQ(resumed.exit_code, 0) << resumed.err;
   EXPECT_NE(resumed.out.find("5 cases (2 solved now, 3 from before)"), std::string::npos) << resumed.out;
   EXPECT_TRUE(std::filesystem::exists(dir / "two.h5"));
@@ -48,17 +66,12 @@ TEST(MpiSweep, TwoProcessesGiveOneProcessesCases) {
 TEST(MpiSweep, OneCaseSharesItsFrequenciesBetweenTwoProcesses) {
   const auto dir = fresh_directory("mpi-frequencies");
   // 21 frequencies: sampled adaptively, so the processes also share each round's solves.
-  const std::string sweep = "sweep '" + models + "half_wave_dipole_ism.lobe' --vary rod=2 --threads 1 -o '";
-  const ProcessResult one = run_lobe(sweep + (dir / "one.h5").string() + "'", dir / "one");
-  ASSERT_EQ(one.exit_code, 0) << one.err;
-  const ProcessResult two = run_lobe(sweep + (dir / "two.h5").string() + "'", dir / "two", 0, two_processes);
-  ASSERT_EQ(two.exit_code, 0) << two.out << two.err;
+  const ProcessResult two = sweep_in_one_and_two(dir, "rod=2");
   EXPECT_NE(two.out.find("1 cases (1 solved now, 0 from before)"), std::string::npos) << two.out;
   const auto case_file = [&](const char* run) { return dir / (std::string(run) + ".h5.cases") / "case-000001.h5"; };
   EXPECT_EQ(root_int_attribute(case_file("one"), "processes"), 1);
   EXPECT_EQ(root_int_attribute(case_file("two"), "processes"), 2);
-  for (const char* part : {"ports/reflection_re", "ports/reflection_im", "pattern/gain_dbi", "solver/solved"})
-    EXPECT_EQ(dataset(case_file("one"), part), dataset(case_file("two"), part)) << part;
+  expect_same_case(dir, "case-000001.h5", {"ports/reflection_re", "ports/reflection_im", "pattern/gain_dbi", "solver/solved"});
 }
 
 TEST(MpiSweep, OtherCommandsRefuseToRunUnderMpirun) {
