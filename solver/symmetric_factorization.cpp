@@ -165,9 +165,10 @@ bool factor_symmetric(ComplexMatrix& a, SymmetricPivots& pivots, int block) {
 
 namespace {
 
-/// solve_symmetric for one right-hand side, in vector operations: the condition estimate
-/// and the factors' check solve one vector at a time, six or so per factorisation, and the
-/// general path's matrix expressions made those a third of the factor step at N = 5,078.
+/// solve_symmetric for one right-hand side, in vector operations (LAPACK's zsytrs, a
+/// column at a time: the condition estimate and the factors' check solve six or so single
+/// vectors per factorisation, and matrix expressions over rows had made those a third of
+/// the factor step at N = 5,078).
 void solve_symmetric_vector(const ComplexMatrix& factors, const SymmetricPivots& pivots,
                             Eigen::Ref<Eigen::VectorXcd> x) {
   const int n = static_cast<int>(factors.rows());
@@ -215,51 +216,8 @@ void solve_symmetric_vector(const ComplexMatrix& factors, const SymmetricPivots&
 }  // namespace
 
 void solve_symmetric(const ComplexMatrix& factors, const SymmetricPivots& pivots, ComplexMatrix& b) {
-  const int n = static_cast<int>(factors.rows());
-  LOBE_CHECK(b.rows() == n, "solve_symmetric: right-hand side has the wrong size");
-  if (b.cols() == 1) {
-    solve_symmetric_vector(factors, pivots, b.col(0));
-    return;
-  }
-  // L D y = b, one elimination step at a time (LAPACK's zsytrs).
-  for (int k = 0; k < n;) {
-    if (!pivots.pair[k]) {
-      if (pivots.interchange[k] != k) b.row(k).swap(b.row(pivots.interchange[k]));
-      if (k + 1 < n) b.bottomRows(n - k - 1).noalias() -= factors.col(k).tail(n - k - 1) * b.row(k);
-      b.row(k) /= factors(k, k);
-      k += 1;
-    } else {
-      if (pivots.interchange[k] != k + 1) b.row(k + 1).swap(b.row(pivots.interchange[k]));
-      if (k + 2 < n) {
-        b.bottomRows(n - k - 2).noalias() -= factors.col(k).tail(n - k - 2) * b.row(k);
-        b.bottomRows(n - k - 2).noalias() -= factors.col(k + 1).tail(n - k - 2) * b.row(k + 1);
-      }
-      const Complex d21 = factors(k + 1, k);
-      const Complex d11 = factors(k, k) / d21, d22 = factors(k + 1, k + 1) / d21;
-      const Complex denominator = d11 * d22 - Complex(1.0);
-      for (Eigen::Index c = 0; c < b.cols(); ++c) {
-        const Complex first = b(k, c) / d21, second = b(k + 1, c) / d21;
-        b(k, c) = (d22 * first - second) / denominator;
-        b(k + 1, c) = (d11 * second - first) / denominator;
-      }
-      k += 2;
-    }
-  }
-  // Lᵀ x = y, backwards.
-  for (int k = n - 1; k >= 0;) {
-    if (!pivots.pair[k]) {
-      if (k + 1 < n) b.row(k).noalias() -= factors.col(k).tail(n - k - 1).transpose() * b.bottomRows(n - k - 1);
-      if (pivots.interchange[k] != k) b.row(k).swap(b.row(pivots.interchange[k]));
-      k -= 1;
-    } else {
-      if (k + 1 < n) {
-        b.row(k).noalias() -= factors.col(k).tail(n - k - 1).transpose() * b.bottomRows(n - k - 1);
-        b.row(k - 1).noalias() -= factors.col(k - 1).tail(n - k - 1).transpose() * b.bottomRows(n - k - 1);
-      }
-      if (pivots.interchange[k] != k) b.row(k).swap(b.row(pivots.interchange[k]));
-      k -= 2;
-    }
-  }
+  LOBE_CHECK(b.rows() == factors.rows(), "solve_symmetric: right-hand side has the wrong size");
+  for (Eigen::Index c = 0; c < b.cols(); ++c) solve_symmetric_vector(factors, pivots, b.col(c));
 }
 
 }  // namespace lobe
