@@ -27,26 +27,29 @@ struct PointPotentials {
 PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const Vec3& q1, const Vec3& q2, Real area,
                                           Real k, bool near);
 
+/// A rule's points on one triangle by coordinate, with their weights times the area,
+/// padded to a vector register's eight lanes (the pad repeats the first point with weight
+/// zero), for the far pairs' vectorised loops.
+struct PointLanes {
+  static constexpr int lanes = 8;
+  int points = 0;
+  alignas(64) std::array<Real, lanes> x, y, z, w;
+};
+
 /// What a fill needs of one triangle, computed once per triangle rather than per pair:
 /// corners, area, longest edge, centroid, and the 7-point degree-5 rule's points with their
-/// weights times the area; the points again by coordinate, padded to a vector register's
-/// eight lanes (the pad repeats the first point with weight zero), for the far pairs'
-/// vectorised loops.
+/// weights times the area, also as lanes; the 6-point degree-4 rule's as lanes for distant
+/// pairs (256 bytes a source triangle brings into cache).
 struct TriangleQuadrature {
   static constexpr int points = 7;
-  static constexpr int lanes = 8;
   std::array<Vec3, 3> corners;
   Real area = 0.0;
   Real size = 0.0;
   Vec3 centroid = Vec3::Zero();
   std::array<Vec3, points> x;
   std::array<Real, points> w;
-  alignas(64) std::array<Real, lanes> lane_x, lane_y, lane_z, lane_w;
-  /// For distant pairs, the 6-point rule's points by coordinate and their weights times the
-  /// area, padded to eight lanes like the above: 256 bytes a source triangle brings into
-  /// cache, where a layout of all 36 point pairs had made the fill wait on memory.
-  static constexpr int distant_points = 6;
-  alignas(64) std::array<Real, lanes> distant_x, distant_y, distant_z, distant_w;
+  PointLanes far;
+  PointLanes distant;
 };
 std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh);
 
