@@ -5,6 +5,7 @@
 #include <cmath>
 #include <vector>
 
+#include "core/vector_clones.hpp"
 #include "solver/threads.hpp"
 #include "solver/time_estimate.hpp"
 
@@ -13,8 +14,8 @@ namespace {
 
 /// One pass of the kernel over `count` source points seen from the origin. Compiled with
 /// the fast-math flags the vector math library needs (bench/CMakeLists.txt) and for
-/// AVX-512 and AVX2 beside the generic build.
-__attribute__((target_clones("avx512f", "avx2", "default"))) void evaluate_kernel(
+/// wider vectors beside the generic build (core/vector_clones.hpp).
+LOBE_VECTOR_CLONES void evaluate_kernel(
     const double* __restrict x, const double* __restrict y, const double* __restrict z, int count, double k,
     double* __restrict real, double* __restrict imaginary) {
 #pragma omp simd

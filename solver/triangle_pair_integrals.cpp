@@ -5,7 +5,9 @@
 
 #include "core/check.hpp"
 #include "core/constants.hpp"
+#include "core/vector_clones.hpp"
 #include "solver/green_function.hpp"
+#include "solver/phase_factor.hpp"
 #include "solver/triangle_potentials.hpp"
 #include "solver/triangle_rules.hpp"
 
@@ -57,61 +59,79 @@ PointLanes point_lanes(const TriangleRule& rule, const TriangleQuadrature& q) {
   return l;
 }
 
-/// A far pair's integrals by the product of the rules behind `p` (observer) and `q`
-/// (source): P's points x_a in the lanes, Q's points y_b one at a time,
-/// g_ab = w_a w_b G(|x_a − y_b|). Per lane, S_a = Σ_b g_ab and T_a = Σ_b g_ab y_b; then
-/// PairSums' D = Σ_a S_a, B = Σ_a S_a x_a, C = Σ_a T_a and A = Σ_a x_a·T_a. Always inlined,
-/// so that each CPU-feature clone of its callers compiles it for its own registers; the
-/// source's point count is a template argument, so that the loops unroll (as a run-time
-/// bound they were 14 % slower).
-template <int source_points>
-[[gnu::always_inline]] inline TrianglePairIntegrals integrals_in_lanes(const TriangleQuadrature& observer,
-                                                                         const TriangleQuadrature& source,
-                                                                         const PointLanes& p, const PointLanes& q,
-                                                                         Real k) {
-  constexpr int lanes = PointLanes::lanes, count = source_points * lanes;
-  LOBE_ASSERT(q.points == source_points);
-  alignas(64) Real distance[count], phase[count], sine[count], cosine[count];
-  for (int b = 0; b < source_points; ++b) {
-#pragma omp simd
-    for (int a = 0; a < lanes; ++a) {
-      const Real dx = p.x[a] - q.x[b], dy = p.y[a] - q.y[b], dz = p.z[a] - q.z[b];
-      distance[b * lanes + a] = std::sqrt(dx * dx + dy * dy + dz * dz);
-      phase[b * lanes + a] = k * distance[b * lanes + a];
+/// Eight source triangles' points by one rule, a triangle to a vector lane: x[b][l] is
+/// point b of source l.
+template <int points>
+struct SourceLanes {
+  static constexpr int lanes = PointLanes::lanes;
+  alignas(64) Real x[points][lanes], y[points][lanes], z[points][lanes], w[points][lanes];
+};
+
+/// The integrals of up to eight pairs sharing the observer P, by the product of one rule
+/// (`rule` picks it from the triangles' quadrature data): each vector lane holds one source
+/// triangle Q, and P's points x_a come one at a time, so that every lane does useful work
+/// (with P's points in the lanes instead, six points filled eight lanes, and each pair's
+/// sums ended in a reduction across the lanes). g_ab = w_a w_b G(|x_a − y_b|); per P point,
+/// S_a = Σ_b g_ab and T_a = Σ_b g_ab y_b; then PairSums' D = Σ_a S_a, B = Σ_a S_a x_a,
+/// C = Σ_a T_a and A = Σ_a x_a·T_a. Always inlined, so that each CPU-feature clone of its
+/// callers compiles it for its own registers; the point count is a template argument, so
+/// that the loops unroll.
+template <int points>
+[[gnu::always_inline]] inline void pair_integrals_in_lanes(const TriangleQuadrature& observer,
+                                                            const TriangleQuadrature* const* sources, int count,
+                                                            PointLanes TriangleQuadrature::*rule, Real k,
+                                                            TrianglePairIntegrals* out) {
+  constexpr int lanes = PointLanes::lanes;
+  LOBE_ASSERT(count >= 1 && count <= lanes);
+  const PointLanes& p = observer.*rule;
+  LOBE_ASSERT(p.points == points);
+  SourceLanes<points> q;
+  for (int l = 0; l < lanes; ++l) {
+    const PointLanes& source = (*sources[l < count ? l : 0]).*rule;  // spare lanes repeat the first
+    for (int b = 0; b < points; ++b) {
+      q.x[b][l] = source.x[b], q.y[b][l] = source.y[b], q.z[b][l] = source.z[b], q.w[b][l] = source.w[b];
     }
   }
-  sine_cosine(phase, sine, cosine, count);
-  alignas(64) Real s_re[lanes] = {}, s_im[lanes] = {}, t_re[3][lanes] = {}, t_im[3][lanes] = {};
-  for (int b = 0; b < source_points; ++b) {
-    const Real w = q.w[b], yx = q.x[b], yy = q.y[b], yz = q.z[b];
+  alignas(64) Real d_re[lanes] = {}, d_im[lanes] = {}, a_re[lanes] = {}, a_im[lanes] = {};
+  alignas(64) Real b_re[3][lanes] = {}, b_im[3][lanes] = {}, c_re[3][lanes] = {}, c_im[3][lanes] = {};
+  for (int a = 0; a < points; ++a) {
+    const Real x[3] = {p.x[a], p.y[a], p.z[a]}, w = p.w[a];
+    alignas(64) Real s_re[lanes] = {}, s_im[lanes] = {}, t_re[3][lanes] = {}, t_im[3][lanes] = {};
+    for (int b = 0; b < points; ++b) {
 #pragma omp simd
-    for (int a = 0; a < lanes; ++a) {
-      const Real g = w * p.w[a] / distance[b * lanes + a];
-      const Real g_re = g * cosine[b * lanes + a], g_im = -g * sine[b * lanes + a];
-      s_re[a] += g_re, s_im[a] += g_im;
-      t_re[0][a] += yx * g_re, t_im[0][a] += yx * g_im;
-      t_re[1][a] += yy * g_re, t_im[1][a] += yy * g_im;
-      t_re[2][a] += yz * g_re, t_im[2][a] += yz * g_im;
+      for (int l = 0; l < lanes; ++l) {
+        const Real dx = x[0] - q.x[b][l], dy = x[1] - q.y[b][l], dz = x[2] - q.z[b][l];
+        const Real distance = std::sqrt(dx * dx + dy * dy + dz * dz);
+        Real sine, cosine;
+        sine_cosine_of(k * distance, sine, cosine);
+        const Real g = w * q.w[b][l] / distance;
+        const Real g_re = g * cosine, g_im = -g * sine;
+        s_re[l] += g_re, s_im[l] += g_im;
+        t_re[0][l] += q.x[b][l] * g_re, t_im[0][l] += q.x[b][l] * g_im;
+        t_re[1][l] += q.y[b][l] * g_re, t_im[1][l] += q.y[b][l] * g_im;
+        t_re[2][l] += q.z[b][l] * g_re, t_im[2][l] += q.z[b][l] * g_im;
+      }
+    }
+#pragma omp simd
+    for (int l = 0; l < lanes; ++l) {
+      d_re[l] += s_re[l], d_im[l] += s_im[l];
+      for (int i = 0; i < 3; ++i) {
+        b_re[i][l] += x[i] * s_re[l], b_im[i][l] += x[i] * s_im[l];
+        c_re[i][l] += t_re[i][l], c_im[i][l] += t_im[i][l];
+        a_re[l] += x[i] * t_re[i][l], a_im[l] += x[i] * t_im[i][l];
+      }
     }
   }
-  Real d_re = 0, d_im = 0, a_re = 0, a_im = 0, b_re[3] = {}, b_im[3] = {}, c_re[3] = {}, c_im[3] = {};
-  const Real* x[3] = {p.x.data(), p.y.data(), p.z.data()};
-  for (int a = 0; a < lanes; ++a) {
-    d_re += s_re[a], d_im += s_im[a];
+  for (int l = 0; l < count; ++l) {
+    PairSums sums;
+    sums.d = green_scale * Complex(d_re[l], d_im[l]);
+    sums.a = green_scale * Complex(a_re[l], a_im[l]);
     for (int i = 0; i < 3; ++i) {
-      b_re[i] += x[i][a] * s_re[a], b_im[i] += x[i][a] * s_im[a];
-      c_re[i] += t_re[i][a], c_im[i] += t_im[i][a];
-      a_re += x[i][a] * t_re[i][a], a_im += x[i][a] * t_im[i][a];
+      sums.b(i) = green_scale * Complex(b_re[i][l], b_im[i][l]);
+      sums.c(i) = green_scale * Complex(c_re[i][l], c_im[i][l]);
     }
+    out[l] = sums.integrals(observer, *sources[l]);
   }
-  PairSums sums;
-  sums.d = green_scale * Complex(d_re, d_im);
-  sums.a = green_scale * Complex(a_re, a_im);
-  for (int i = 0; i < 3; ++i) {
-    sums.b(i) = green_scale * Complex(b_re[i], b_im[i]);
-    sums.c(i) = green_scale * Complex(c_re[i], c_im[i]);
-  }
-  return sums.integrals(observer, source);
 }
 
 }  // namespace
@@ -175,24 +195,34 @@ std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh) {
   return all;
 }
 
-bool triangle_pair_is_near(const TriangleQuadrature& p, const TriangleQuadrature& q) {
-  return (p.centroid - q.centroid).norm() < near_distance_in_sizes * std::max(p.size, q.size);
+// Compiled also for wider vectors (core/vector_clones.hpp), as the far pairs are most of a
+// surface fill.
+LOBE_VECTOR_CLONES void triangle_pair_integrals_distant(
+    const TriangleQuadrature& observer, const TriangleQuadrature* const* sources, int count, Real k,
+    TrianglePairIntegrals* out) {
+  pair_integrals_in_lanes<6>(observer, sources, count, &TriangleQuadrature::distant, k, out);
 }
 
-bool triangle_pair_is_distant(const TriangleQuadrature& p, const TriangleQuadrature& q) {
-  return (p.centroid - q.centroid).norm() >= distant_distance_in_sizes * std::max(p.size, q.size);
+LOBE_VECTOR_CLONES void triangle_pair_integrals_by_points(
+    const TriangleQuadrature& observer, const TriangleQuadrature* const* sources, int count, Real k,
+    TrianglePairIntegrals* out) {
+  pair_integrals_in_lanes<TriangleQuadrature::points>(observer, sources, count, &TriangleQuadrature::far, k, out);
 }
 
-// Compiled also for AVX-512 and AVX2 (chosen by CPU features at start-up), as the far
-// pairs are most of a surface fill.
-__attribute__((target_clones("avx512f", "avx2", "default"))) TrianglePairIntegrals triangle_pair_integrals_distant(
-    const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
-  return integrals_in_lanes<6>(p, q, p.distant, q.distant, k);
+TrianglePairIntegrals triangle_pair_integrals_distant(const TriangleQuadrature& p, const TriangleQuadrature& q,
+                                                      Real k) {
+  const TriangleQuadrature* source = &q;
+  TrianglePairIntegrals result;
+  triangle_pair_integrals_distant(p, &source, 1, k, &result);
+  return result;
 }
 
-__attribute__((target_clones("avx512f", "avx2", "default"))) TrianglePairIntegrals triangle_pair_integrals_by_points(
-    const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
-  return integrals_in_lanes<TriangleQuadrature::points>(p, q, p.far, q.far, k);
+TrianglePairIntegrals triangle_pair_integrals_by_points(const TriangleQuadrature& p, const TriangleQuadrature& q,
+                                                        Real k) {
+  const TriangleQuadrature* source = &q;
+  TrianglePairIntegrals result;
+  triangle_pair_integrals_by_points(p, &source, 1, k, &result);
+  return result;
 }
 
 TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {

@@ -1,5 +1,6 @@
 #pragma once
 /// Integrals of the free-space Green's function over a pair of triangles, for RWG fills.
+#include <algorithm>
 #include <array>
 #include <vector>
 
@@ -27,9 +28,9 @@ struct PointPotentials {
 PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const Vec3& q1, const Vec3& q2, Real area,
                                           Real k, bool near);
 
-/// A rule's points on one triangle by coordinate, with their weights times the area,
-/// padded to a vector register's eight lanes (the pad repeats the first point with weight
-/// zero), for the far pairs' vectorised loops.
+/// A rule's points on one triangle by coordinate, with their weights times the area (the
+/// arrays padded to eight, a vector register's lanes, by the first point with weight zero),
+/// for the far pairs' vectorised loops.
 struct PointLanes {
   static constexpr int lanes = 8;
   int points = 0;
@@ -56,7 +57,10 @@ std::vector<TriangleQuadrature> triangle_quadrature(const SurfaceMesh& mesh);
 /// A pair is near when its centroids are closer than this many of the larger triangle's
 /// longest edges: 1/R then varies too fast over Q for seven points.
 constexpr Real near_distance_in_sizes = 2.0;
-bool triangle_pair_is_near(const TriangleQuadrature& observer, const TriangleQuadrature& source);
+inline bool triangle_pair_is_near(const TriangleQuadrature& observer, const TriangleQuadrature& source) {
+  const Real reach = near_distance_in_sizes * std::max(observer.size, source.size);
+  return (observer.centroid - source.centroid).squaredNorm() < reach * reach;
+}
 
 /// A pair is distant when its centroids are at least this many of the larger triangle's
 /// longest edges apart: the 6 × 6 product rule of degree 4 then integrates it better than
@@ -64,7 +68,10 @@ bool triangle_pair_is_near(const TriangleQuadrature& observer, const TriangleQua
 /// vector integrals and the scalar one over tilted and offset pairs with kh ≤ 0.63: 6e-6
 /// at three sizes, against 2e-5 at two), with 36 kernels instead of 49.
 constexpr Real distant_distance_in_sizes = 3.0;
-bool triangle_pair_is_distant(const TriangleQuadrature& observer, const TriangleQuadrature& source);
+inline bool triangle_pair_is_distant(const TriangleQuadrature& observer, const TriangleQuadrature& source) {
+  const Real reach = distant_distance_in_sizes * std::max(observer.size, source.size);
+  return (observer.centroid - source.centroid).squaredNorm() >= reach * reach;
+}
 
 /// The pair's integrals by the 7 × 7 product rule alone, as a far pair gets them.
 TrianglePairIntegrals triangle_pair_integrals_by_points(const TriangleQuadrature& observer,
@@ -73,6 +80,19 @@ TrianglePairIntegrals triangle_pair_integrals_by_points(const TriangleQuadrature
 /// The pair's integrals by the 6 × 6 product rule, as a distant pair gets them.
 TrianglePairIntegrals triangle_pair_integrals_distant(const TriangleQuadrature& observer,
                                                       const TriangleQuadrature& source, Real k);
+
+/// Most pairs the batched forms below take at once: a source triangle to each vector lane.
+constexpr int pair_batch_limit = PointLanes::lanes;
+
+/// out[l] = triangle_pair_integrals_by_points(observer, *sources[l], k) for l < count ≤
+/// pair_batch_limit, the pairs side by side in the vector lanes (a fill's pairs mostly share
+/// their observer with many others; one pair alone leaves seven lanes idle).
+void triangle_pair_integrals_by_points(const TriangleQuadrature& observer, const TriangleQuadrature* const* sources,
+                                       int count, Real k, TrianglePairIntegrals* out);
+
+/// out[l] = triangle_pair_integrals_distant(observer, *sources[l], k), as above.
+void triangle_pair_integrals_distant(const TriangleQuadrature& observer, const TriangleQuadrature* const* sources,
+                                     int count, Real k, TrianglePairIntegrals* out);
 
 /// Near pairs (centroids closer than two triangle sizes) integrate the static 1/R part over
 /// Q in closed form (Wilton et al. 1984) and the smooth (e^{−jkR} − 1)/R part, and the

@@ -1,4 +1,7 @@
 // Triangle–triangle terms of the surface (RWG) fill.
+#include <algorithm>
+#include <array>
+
 #include "solver/assembly.hpp"
 #include "solver/pair_integrators.hpp"
 #include "solver/triangle_rules.hpp"
@@ -39,49 +42,124 @@ void add_slab_remainders(const SlabKernelTable& table, const TriangleQuadrature&
                                 p.corners[i].dot(q.corners[j]) * s_vector;
 }
 
+/// Sums of pair integrals, Σ_m (vector_weight_m vector_m, scalar_weight_m scalar_m) over one
+/// observer triangle's pairs with a source and its images, the far and distant pairs queued
+/// and integrated eight at a time, a source triangle to each vector lane.
+class PairSumQueue {
+ public:
+  PairSumQueue(const TriangleQuadrature& observer, Real k) : m_observer(observer), m_k(k) {}
+
+  /// Adds the weighted integrals over (observer, source) to `sum`, now or at the next flush().
+  void add(const TriangleQuadrature& source, Real vector_weight, Real scalar_weight, TrianglePairIntegrals& sum) {
+    const bool distant = triangle_pair_is_distant(m_observer, source);
+    if (!distant && triangle_pair_is_near(m_observer, source)) {
+      const TrianglePairIntegrals near = triangle_pair_integrals(m_observer, source, m_k);
+      sum.vector += vector_weight * near.vector;
+      sum.scalar += scalar_weight * near.scalar;
+      return;
+    }
+    Batch& batch = distant ? m_distant : m_far;
+    batch.sources[batch.count] = &source;
+    batch.targets[batch.count] = {&sum, vector_weight, scalar_weight};
+    if (++batch.count == pair_batch_limit) integrate(batch);
+  }
+
+  /// Completes every queued sum.
+  void flush() {
+    integrate(m_far);
+    integrate(m_distant);
+  }
+
+ private:
+  struct Target {
+    TrianglePairIntegrals* sum;
+    Real vector_weight, scalar_weight;
+  };
+  struct Batch {
+    bool distant = false;
+    int count = 0;
+    std::array<const TriangleQuadrature*, pair_batch_limit> sources;
+    std::array<Target, pair_batch_limit> targets;
+  };
+
+  void integrate(Batch& batch) {
+    if (batch.count == 0) return;
+    std::array<TrianglePairIntegrals, pair_batch_limit> integrals;
+    if (batch.distant) {
+      triangle_pair_integrals_distant(m_observer, batch.sources.data(), batch.count, m_k, integrals.data());
+    } else {
+      triangle_pair_integrals_by_points(m_observer, batch.sources.data(), batch.count, m_k, integrals.data());
+    }
+    for (int l = 0; l < batch.count; ++l) {
+      const Target& t = batch.targets[l];
+      t.sum->vector += t.vector_weight * integrals[l].vector;
+      t.sum->scalar += t.scalar_weight * integrals[l].scalar;
+    }
+    batch.count = 0;
+  }
+
+  const TriangleQuadrature& m_observer;
+  Real m_k;
+  Batch m_far, m_distant{.distant = true};
+};
+
+/// Source triangles whose pair sums are gathered before any is used: enough to fill the
+/// batches many times over, few enough that the sums stay in the first-level cache.
+constexpr int sources_per_pass = 64;
+
 }  // namespace
 
 void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<MatrixContribution>& out) {
   const RwgBasis& basis = c.problem.rwg;
   const FillGeometry& g = c.geometry;
   if (basis.pieces_on(p).empty()) return;
+  const TriangleQuadrature& observer = g.triangles[p];
   const int count = static_cast<int>(g.triangles.size());
-  for (int q = p; q < count; ++q) {
-    if (basis.pieces_on(q).empty()) continue;
-    TrianglePairIntegrals integrals = triangle_pair_integrals(g.triangles[p], g.triangles[q], c.k);
-    // The image of f = c (r − v) on the mirrored triangle is c (r' − M v): the integrals
-    // over the mirrored source, weighted by the image's signs. G(r, M r') is symmetric in
-    // the pair, so the image terms keep Z symmetric.
-    for (const ImagedElements& imaged : g.images) {
-      const TrianglePairIntegrals image = triangle_pair_integrals(g.triangles[p], imaged.triangles[q], c.k);
-      integrals.vector += imaged.image.current_sign * image.vector;
-      integrals.scalar += imaged.image.charge_sign * image.scalar;
+  PairSumQueue queue(observer, c.k);
+  std::array<TrianglePairIntegrals, sources_per_pass> sums;
+  for (int first = p; first < count; first += sources_per_pass) {
+    const int last = std::min(count, first + sources_per_pass);
+    for (int q = first; q < last; ++q) {
+      if (basis.pieces_on(q).empty()) continue;
+      TrianglePairIntegrals& sum = sums[q - first];
+      sum = TrianglePairIntegrals();
+      queue.add(g.triangles[q], 1.0, 1.0, sum);
+      // The image of f = c (r − v) on the mirrored triangle is c (r' − M v): the integrals
+      // over the mirrored source, weighted by the image's signs. G(r, M r') is symmetric in
+      // the pair, so the image terms keep Z symmetric.
+      for (const ImagedElements& imaged : g.images)
+        queue.add(imaged.triangles[q], imaged.image.current_sign, imaged.image.charge_sign, sum);
     }
-    // On a substrate the free-space integrals are the quasi-static term: the vector
-    // potential's coefficient is 1, the scalar potential's 2/(εr + 1).
-    if (c.slab) {
-      integrals.scalar *= c.slab->quasi_static().scalar;
-      add_slab_remainders(*c.slab, g.triangles[p], g.triangles[q], integrals);
-      // The remainder holds the quasi-static images at depths 2nh, which vary on the
-      // thickness's scale, finer than a triangle on a thin board: where one is near, its
-      // points' share is replaced by the exact integral.
-      for (const SlabImageTriangles& imaged : g.slab_images) {
-        if (!triangle_pair_is_near(g.triangles[p], imaged.triangles[q])) continue;
-        const TrianglePairIntegrals exact = triangle_pair_integrals(g.triangles[p], imaged.triangles[q], c.k);
-        const TrianglePairIntegrals by_points = triangle_pair_integrals_by_points(g.triangles[p], imaged.triangles[q], c.k);
-        integrals.vector += imaged.image.vector_weight * (exact.vector - by_points.vector);
-        integrals.scalar += imaged.image.scalar_weight * (exact.scalar - by_points.scalar);
+    queue.flush();
+    for (int q = first; q < last; ++q) {
+      if (basis.pieces_on(q).empty()) continue;
+      TrianglePairIntegrals& integrals = sums[q - first];
+      // On a substrate the free-space integrals are the quasi-static term: the vector
+      // potential's coefficient is 1, the scalar potential's 2/(εr + 1).
+      if (c.slab) {
+        integrals.scalar *= c.slab->quasi_static().scalar;
+        add_slab_remainders(*c.slab, observer, g.triangles[q], integrals);
+        // The remainder holds the quasi-static images at depths 2nh, which vary on the
+        // thickness's scale, finer than a triangle on a thin board: where one is near, its
+        // points' share is replaced by the exact integral.
+        for (const SlabImageTriangles& imaged : g.slab_images) {
+          if (!triangle_pair_is_near(observer, imaged.triangles[q])) continue;
+          const TrianglePairIntegrals exact = triangle_pair_integrals(observer, imaged.triangles[q], c.k);
+          const TrianglePairIntegrals by_points = triangle_pair_integrals_by_points(observer, imaged.triangles[q], c.k);
+          integrals.vector += imaged.image.vector_weight * (exact.vector - by_points.vector);
+          integrals.scalar += imaged.image.scalar_weight * (exact.scalar - by_points.scalar);
+        }
       }
+      if (p == q) integrals.vector = (0.5 * (integrals.vector + integrals.vector.transpose())).eval();
+      // f = c (r − v_free), ∇·f = 2c.
+      const Complex scalar_term = c.scalar_factor * 4.0 * integrals.scalar;
+      for (const RwgPiece& pm : basis.pieces_on(p))
+        for (const RwgPiece& pn : basis.pieces_on(q)) {
+          const Complex value = pm.coefficient * pn.coefficient *
+                                (c.vector_factor * integrals.vector(pm.free_corner, pn.free_corner) + scalar_term);
+          out.push_back({pm.basis, pn.basis, p != q, value});
+        }
     }
-    if (p == q) integrals.vector = (0.5 * (integrals.vector + integrals.vector.transpose())).eval();
-    for (const RwgPiece& pm : basis.pieces_on(p))
-      for (const RwgPiece& pn : basis.pieces_on(q)) {
-        // f = c (r − v_free), ∇·f = 2c.
-        const Complex value = pm.coefficient * pn.coefficient *
-                              (c.vector_factor * integrals.vector(pm.free_corner, pn.free_corner) +
-                               c.scalar_factor * 4.0 * integrals.scalar);
-        out.push_back({pm.basis, pn.basis, p != q, value});
-      }
   }
 }
 
