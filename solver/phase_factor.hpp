@@ -1,5 +1,8 @@
 #pragma once
 /// Batched e^{−jx} for the matrix-fill kernels, in a loop the compiler can vectorise.
+#include <bit>
+#include <cstdint>
+
 #include "core/types.hpp"
 
 namespace lobe {
@@ -16,24 +19,23 @@ namespace lobe {
   constexpr Real half_pi_2 = 6.07710050650619224932e-11;
   constexpr Real half_pi_3 = 2.02226624879595063154e-21;
   constexpr Real round_shift = 6755399441055744.0;
-  // Adding 1.5·2⁵² rounds to the nearest integer: a round that vectorises on any x86-64.
-  const Real n = (x * two_over_pi + round_shift) - round_shift;
+  // Adding 1.5·2⁵² rounds to the nearest integer n, a round that vectorises on any x86-64,
+  // and leaves n mod 4 in the sum's lowest two bits.
+  const Real shifted = x * two_over_pi + round_shift;
+  const Real n = shifted - round_shift;
+  const std::uint64_t quadrant = std::bit_cast<std::uint64_t>(shifted) & 3;
   const Real r = ((x - n * half_pi_1) - n * half_pi_2) - n * half_pi_3;
   const Real r2 = r * r;
   const Real s = r * (1.0 + r2 * (-1.0 / 6 + r2 * (1.0 / 120 + r2 * (-1.0 / 5040 + r2 * (1.0 / 362880 +
                  r2 * (-1.0 / 39916800 + r2 * (1.0 / 6227020800 + r2 * (-1.0 / 1307674368000))))))));
   const Real c = 1.0 + r2 * (-0.5 + r2 * (1.0 / 24 + r2 * (-1.0 / 720 + r2 * (1.0 / 40320 + r2 * (-1.0 / 3628800 +
                  r2 * (1.0 / 479001600 + r2 * (-1.0 / 87178291200 + r2 * (1.0 / 20922789888000))))))));
-  // Quadrant q = n mod 4 gives (sin, cos) = (s, c), (c, −s), (−s, −c), (−c, s). In floating
-  // point, without branches: odd = q mod 2, high = ⌊q/2⌋, all exact small integers.
-  const Real quarter = ((n - 1.5) * 0.25 + round_shift) - round_shift;  // ⌊n/4⌋ for integer n
-  const Real q = n - 4.0 * quarter;
-  const Real high = ((q - 0.5) * 0.5 + round_shift) - round_shift;
-  const Real odd = q - 2.0 * high;
-  const Real sin_sign = 1.0 - 2.0 * high;
-  const Real cos_sign = 1.0 - 2.0 * (odd + high - 2.0 * odd * high);
-  sine = sin_sign * ((1.0 - odd) * s + odd * c);
-  cosine = cos_sign * ((1.0 - odd) * c + odd * s);
+  // Quadrant q = n mod 4 gives (sin, cos) = (s, c), (c, −s), (−s, −c), (−c, s): odd
+  // quadrants swap the two, and the sign bits flip for q = 2, 3 (sin) and q = 1, 2 (cos).
+  const bool odd = (quadrant & 1) != 0;
+  const std::uint64_t sine_sign = (quadrant & 2) << 62, cosine_sign = ((quadrant + 1) & 2) << 62;
+  sine = std::bit_cast<Real>(std::bit_cast<std::uint64_t>(odd ? c : s) ^ sine_sign);
+  cosine = std::bit_cast<Real>(std::bit_cast<std::uint64_t>(odd ? s : c) ^ cosine_sign);
 }
 
 /// sine_cosine_of for `count` values in one vectorised loop.
