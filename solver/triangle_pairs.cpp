@@ -84,16 +84,15 @@ class PairSumQueue {
 
   void integrate(Batch& batch) {
     if (batch.count == 0) return;
-    std::array<TrianglePairIntegrals, pair_batch_limit> integrals;
     if (batch.distant) {
-      triangle_pair_integrals_distant(m_observer, batch.sources.data(), batch.count, m_k, integrals.data());
+      triangle_pair_integrals_distant(m_observer, batch.sources.data(), batch.count, m_k, m_integrals.data());
     } else {
-      triangle_pair_integrals_by_points(m_observer, batch.sources.data(), batch.count, m_k, integrals.data());
+      triangle_pair_integrals_by_points(m_observer, batch.sources.data(), batch.count, m_k, m_integrals.data());
     }
     for (int l = 0; l < batch.count; ++l) {
       const Target& t = batch.targets[l];
-      t.sum->vector += t.vector_weight * integrals[l].vector;
-      t.sum->scalar += t.scalar_weight * integrals[l].scalar;
+      t.sum->vector += t.vector_weight * m_integrals[l].vector;
+      t.sum->scalar += t.scalar_weight * m_integrals[l].scalar;
     }
     batch.count = 0;
   }
@@ -101,6 +100,7 @@ class PairSumQueue {
   const TriangleQuadrature& m_observer;
   Real m_k;
   Batch m_far, m_distant{.distant = true};
+  std::array<TrianglePairIntegrals, pair_batch_limit> m_integrals;  // a member: made once, not per batch
 };
 
 /// Source triangles whose pair sums are gathered before any is used: enough to fill the
