@@ -12,6 +12,7 @@ namespace lobe {
 struct BenchmarkRow {
   std::string model;
   long unknowns = 0;
+  double setup_seconds = 0.0;  ///< once per mesh: meshing, quadrature points, near pairs' static parts
   double fill_seconds = 0.0;
   double kernel_evaluations = 0.0;  ///< per fill, by the far-pair rule (0: not counted)
   double factor_seconds = 0.0;

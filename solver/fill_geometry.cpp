@@ -1,8 +1,28 @@
 #include "solver/fill_geometry.hpp"
 
 #include <algorithm>
+#include <stdexcept>
 
 namespace lobe {
+namespace {
+
+/// Per observer triangle p, the sources among sets[m][q ≥ p] near it, with their statics.
+std::vector<std::vector<NearSource>> find_near_sources(const std::vector<TriangleQuadrature>& triangles,
+                                                       const std::vector<const std::vector<TriangleQuadrature>*>& sets) {
+  const int count = static_cast<int>(triangles.size());
+  std::vector<std::vector<NearSource>> near(count);
+#pragma omp parallel for schedule(dynamic, 16)
+  for (int p = 0; p < count; ++p)
+    for (const std::vector<TriangleQuadrature>* set : sets)
+      for (int q = p; q < count; ++q) {
+        const TriangleQuadrature& source = (*set)[q];
+        if (triangle_pair_is_near(triangles[p], source))
+          near[p].push_back({&source, near_pair_statics(triangles[p], source)});
+      }
+  return near;
+}
+
+}  // namespace
 
 FillGeometry::FillGeometry(const WireMesh& wires, const SurfaceMesh& surface, const std::vector<JunctionStar>& stars,
                            const Medium& medium)
@@ -47,6 +67,16 @@ FillGeometry::FillGeometry(const WireMesh& wires, const SurfaceMesh& surface, co
       slab_stars.push_back(std::move(slab_star));
     }
   }
+  std::vector<const std::vector<TriangleQuadrature>*> sets{&triangles};
+  for (const ImagedElements& imaged : images) sets.push_back(&imaged.triangles);
+  for (const SlabImageTriangles& imaged : slab_images) sets.push_back(&imaged.triangles);
+  near_sources = find_near_sources(triangles, sets);
+}
+
+const NearPairStatics& FillGeometry::near_statics(int observer, const TriangleQuadrature& source) const {
+  for (const NearSource& near : near_sources[observer])
+    if (near.source == &source) return near.statics;
+  throw std::logic_error("a near pair missing from the fill geometry's table");
 }
 
 }  // namespace lobe

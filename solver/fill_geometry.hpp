@@ -39,9 +39,24 @@ struct SlabStar {
   std::vector<std::pair<SlabStaticImage, JunctionStar>> images;
 };
 
+/// A source triangle (of the surface, an image or a slab image) near an observer triangle,
+/// with the pair's static part.
+struct NearSource {
+  const TriangleQuadrature* source;
+  NearPairStatics statics;
+};
+
 struct FillGeometry {
   FillGeometry(const WireMesh& wires, const SurfaceMesh& surface, const std::vector<JunctionStar>& stars,
                const Medium& medium);
+  // near_sources points into the triangle vectors: a copy would point into the original's.
+  FillGeometry(const FillGeometry&) = delete;
+  FillGeometry& operator=(const FillGeometry&) = delete;
+
+  /// The static part of the near pair (triangles[observer], source), source one of
+  /// triangles[q ≥ observer] or their images or slab images.
+  const NearPairStatics& near_statics(int observer, const TriangleQuadrature& source) const;
+
   std::vector<SegmentGeometry> segments;
   std::vector<Real> lengths;
   std::vector<Vec3> directions;
@@ -51,6 +66,10 @@ struct FillGeometry {
   std::vector<SlabImageTriangles> slab_images;
   /// On a substrate, one per junction star.
   std::vector<SlabStar> slab_stars;
+  /// Per observer triangle p, its near sources among triangles[q ≥ p], their images and
+  /// slab images, found and integrated once per mesh: the static parts do not depend on k,
+  /// and were a tenth of a surface fill at every frequency.
+  std::vector<std::vector<NearSource>> near_sources;
 };
 
 }  // namespace lobe

@@ -225,9 +225,19 @@ TrianglePairIntegrals triangle_pair_integrals_by_points(const TriangleQuadrature
   return result;
 }
 
-TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
-  if (triangle_pair_is_distant(p, q)) return triangle_pair_integrals_distant(p, q, k);
-  if (!triangle_pair_is_near(p, q)) return triangle_pair_integrals_by_points(p, q, k);
+NearPairStatics near_pair_statics(const TriangleQuadrature& p, const TriangleQuadrature& q) {
+  const Vec3 normal = (q.corners[1] - q.corners[0]).cross(q.corners[2] - q.corners[0]).normalized();
+  NearPairStatics statics;
+  for (int a = 0; a < n; ++a) {
+    const StaticPotentials s = triangle_static_potentials(p.x[a], q.corners[0], q.corners[1], q.corners[2]);
+    const Vec3 rho = p.x[a] - normal.dot(p.x[a] - q.corners[0]) * normal;
+    statics[a] = {s.scalar, s.vector + rho * s.scalar};  // ∫ r'/R = ∫ (r' − ρ)/R + ρ ∫ 1/R
+  }
+  return statics;
+}
+
+TrianglePairIntegrals triangle_pair_integrals_near(const TriangleQuadrature& p, const TriangleQuadrature& q,
+                                                   const NearPairStatics& statics, Real k) {
   // As triangle_point_potentials(near) at each of P's points: the static part in closed
   // form, the smooth rest by Q's 7 points, here all 49 smooth kernels in one batch.
   std::array<Real, n * n> distance, weight, smooth_re, smooth_im;
@@ -237,13 +247,10 @@ TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const
       weight[a * n + b] = q.w[b];
     }
   green_kernel_smooth_batch(k, distance.data(), weight.data(), smooth_re.data(), smooth_im.data(), n * n);
-  const Vec3 normal = (q.corners[1] - q.corners[0]).cross(q.corners[2] - q.corners[0]).normalized();
   PairSums sums;
   for (int a = 0; a < n; ++a) {
-    const StaticPotentials s = triangle_static_potentials(p.x[a], q.corners[0], q.corners[1], q.corners[2]);
-    const Vec3 rho = p.x[a] - normal.dot(p.x[a] - q.corners[0]) * normal;
-    Complex scalar = s.scalar;
-    Eigen::Vector3cd moment = (s.vector + rho * s.scalar).cast<Complex>();  // ∫ r'/R = ∫ (r' − ρ)/R + ρ ∫ 1/R
+    Complex scalar = statics[a].scalar;
+    Eigen::Vector3cd moment = statics[a].moment.cast<Complex>();
     for (int b = 0; b < n; ++b) {
       const Complex g(smooth_re[a * n + b], smooth_im[a * n + b]);
       scalar += g;
@@ -252,6 +259,12 @@ TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const
     sums.add(p.x[a], p.w[a], green_scale * scalar, green_scale * moment);
   }
   return sums.integrals(p, q);
+}
+
+TrianglePairIntegrals triangle_pair_integrals(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
+  if (triangle_pair_is_distant(p, q)) return triangle_pair_integrals_distant(p, q, k);
+  if (!triangle_pair_is_near(p, q)) return triangle_pair_integrals_by_points(p, q, k);
+  return triangle_pair_integrals_near(p, q, near_pair_statics(p, q), k);
 }
 
 }  // namespace lobe

@@ -94,6 +94,21 @@ void triangle_pair_integrals_by_points(const TriangleQuadrature& observer, const
 void triangle_pair_integrals_distant(const TriangleQuadrature& observer, const TriangleQuadrature* const* sources,
                                      int count, Real k, TrianglePairIntegrals* out);
 
+/// The static part of a near pair at each of P's points x_a: ∫_Q 1/R dS' (m) and
+/// ∫_Q r'/R dS' (m²), in closed form (Wilton et al. 1984). They do not depend on the
+/// frequency, so a fill takes them from a table made once per mesh (FillGeometry).
+struct StaticMoments {
+  Real scalar = 0.0;
+  Vec3 moment = Vec3::Zero();
+};
+using NearPairStatics = std::array<StaticMoments, TriangleQuadrature::points>;
+NearPairStatics near_pair_statics(const TriangleQuadrature& observer, const TriangleQuadrature& source);
+
+/// A near pair's integrals from its static part and the smooth (e^{−jkR} − 1)/R rest.
+TrianglePairIntegrals triangle_pair_integrals_near(const TriangleQuadrature& observer,
+                                                   const TriangleQuadrature& source, const NearPairStatics& statics,
+                                                   Real k);
+
 /// Near pairs (centroids closer than two triangle sizes) integrate the static 1/R part over
 /// Q in closed form (Wilton et al. 1984) and the smooth (e^{−jkR} − 1)/R part, and the
 /// outer integral over P, with the 7-point degree-5 rule; far pairs use 7 × 7 points and

@@ -47,13 +47,15 @@ void add_slab_remainders(const SlabKernelTable& table, const TriangleQuadrature&
 /// and integrated eight at a time, a source triangle to each vector lane.
 class PairSumQueue {
  public:
-  PairSumQueue(const TriangleQuadrature& observer, Real k) : m_observer(observer), m_k(k) {}
+  PairSumQueue(const FillGeometry& geometry, int observer, Real k)
+      : m_geometry(geometry), m_observer_index(observer), m_observer(geometry.triangles[observer]), m_k(k) {}
 
   /// Adds the weighted integrals over (observer, source) to `sum`, now or at the next flush().
   void add(const TriangleQuadrature& source, Real vector_weight, Real scalar_weight, TrianglePairIntegrals& sum) {
     const bool distant = triangle_pair_is_distant(m_observer, source);
     if (!distant && triangle_pair_is_near(m_observer, source)) {
-      const TrianglePairIntegrals near = triangle_pair_integrals(m_observer, source, m_k);
+      const TrianglePairIntegrals near =
+          triangle_pair_integrals_near(m_observer, source, m_geometry.near_statics(m_observer_index, source), m_k);
       sum.vector += vector_weight * near.vector;
       sum.scalar += scalar_weight * near.scalar;
       return;
@@ -97,6 +99,8 @@ class PairSumQueue {
     batch.count = 0;
   }
 
+  const FillGeometry& m_geometry;
+  int m_observer_index;
   const TriangleQuadrature& m_observer;
   Real m_k;
   Batch m_far, m_distant{.distant = true};
@@ -115,7 +119,7 @@ void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<Matrix
   if (basis.pieces_on(p).empty()) return;
   const TriangleQuadrature& observer = g.triangles[p];
   const int count = static_cast<int>(g.triangles.size());
-  PairSumQueue queue(observer, c.k);
+  PairSumQueue queue(g, p, c.k);
   std::array<TrianglePairIntegrals, sources_per_pass> sums;
   for (int first = p; first < count; first += sources_per_pass) {
     const int last = std::min(count, first + sources_per_pass);
@@ -144,7 +148,8 @@ void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<Matrix
         // points' share is replaced by the exact integral.
         for (const SlabImageTriangles& imaged : g.slab_images) {
           if (!triangle_pair_is_near(observer, imaged.triangles[q])) continue;
-          const TrianglePairIntegrals exact = triangle_pair_integrals(observer, imaged.triangles[q], c.k);
+          const TrianglePairIntegrals exact =
+              triangle_pair_integrals_near(observer, imaged.triangles[q], g.near_statics(p, imaged.triangles[q]), c.k);
           const TrianglePairIntegrals by_points = triangle_pair_integrals_by_points(observer, imaged.triangles[q], c.k);
           integrals.vector += imaged.image.vector_weight * (exact.vector - by_points.vector);
           integrals.scalar += imaged.image.scalar_weight * (exact.scalar - by_points.scalar);

@@ -8,6 +8,7 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include <algorithm>
 #include <chrono>
 #include <fstream>
 #include <random>
@@ -388,7 +389,9 @@ TEST(Bench, QuickRunPrintsTheTableAndWritesTheCsv) {
   std::vector<std::string> lines;
   while (std::getline(csv, line)) lines.push_back(line);
   ASSERT_EQ(lines.size(), 4u);  // header, two models, the sweep
-  EXPECT_EQ(lines[0].rfind("model,unknowns,fill_s", 0), 0u);
+  EXPECT_EQ(lines[0].rfind("model,unknowns,setup_s,fill_s", 0), 0u);
+  const auto fields = [](const std::string& l) { return std::count(l.begin(), l.end(), ',') + 1; };
+  for (const std::string& l : lines) EXPECT_EQ(fields(l), fields(lines[0])) << l;
   // The wire model's row: unknowns, then a positive fill time.
   EXPECT_GT(std::stod(lines[1].substr(lines[1].find(',') + 1)), 100.0);
   const ProcessResult refused = run_lobe("bench --quick -o '" + (dir / "b.txt").string() + "'", dir);
