@@ -134,6 +134,16 @@ template <int points>
   }
 }
 
+/// One pair through a batched routine: a batch of one.
+using PairBatch = void (*)(const TriangleQuadrature&, const TriangleQuadrature* const*, int, Real,
+                           TrianglePairIntegrals*);
+TrianglePairIntegrals one_pair(PairBatch batch, const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
+  const TriangleQuadrature* source = &q;
+  TrianglePairIntegrals result;
+  batch(p, &source, 1, k, &result);
+  return result;
+}
+
 }  // namespace
 
 PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const Vec3& q1, const Vec3& q2, Real area,
@@ -211,18 +221,12 @@ LOBE_VECTOR_CLONES void triangle_pair_integrals_by_points(
 
 TrianglePairIntegrals triangle_pair_integrals_distant(const TriangleQuadrature& p, const TriangleQuadrature& q,
                                                       Real k) {
-  const TriangleQuadrature* source = &q;
-  TrianglePairIntegrals result;
-  triangle_pair_integrals_distant(p, &source, 1, k, &result);
-  return result;
+  return one_pair(triangle_pair_integrals_distant, p, q, k);
 }
 
 TrianglePairIntegrals triangle_pair_integrals_by_points(const TriangleQuadrature& p, const TriangleQuadrature& q,
                                                         Real k) {
-  const TriangleQuadrature* source = &q;
-  TrianglePairIntegrals result;
-  triangle_pair_integrals_by_points(p, &source, 1, k, &result);
-  return result;
+  return one_pair(triangle_pair_integrals_by_points, p, q, k);
 }
 
 NearPairStatics near_pair_statics(const TriangleQuadrature& p, const TriangleQuadrature& q) {
