@@ -259,12 +259,20 @@ NetworkData read_touchstone(const std::filesystem::path& path, int default_ports
     if (!(f > 0.0)) throw InputError(p.where(p.numbers[k]), "a frequency must be above zero");
     ComplexMatrix m = ComplexMatrix::Zero(p.ports, p.ports);
     for (std::size_t e = 0; e < order.size(); ++e) {
-      const Complex v = pair_value(p, p.numbers[k + 1 + 2 * e].value, p.numbers[k + 2 + 2 * e].value);
+      const Number& magnitude = p.numbers[k + 1 + 2 * e];
+      const Complex v = pair_value(p, magnitude.value, p.numbers[k + 2 + 2 * e].value);
+      if (!std::isfinite(v.real()) || !std::isfinite(v.imag()))
+        throw InputError(p.where(magnitude),
+                         formatted("%.6g dB is no measurement: its magnitude overflows", magnitude.value));
       const auto [i, j] = order[e];
       m(i, j) = v;
       if (p.layout != Layout::full) m(j, i) = v;
     }
     const ComplexMatrix s = to_scattering(p, m);
+    if (!s.allFinite())
+      throw InputError(p.where(p.numbers[k]),
+                       std::string("these ") + (p.parameter == Parameter::z ? "impedances" : "admittances") +
+                           " give no finite S-parameters (Z + R or Y is singular here)");
     for (int i = 0; i < p.ports; ++i)
       if (!(std::abs(s(i, i)) <= 1.0 + passive_tolerance))
         throw InputError(p.where(p.numbers[k]),

@@ -148,6 +148,12 @@ TEST(Touchstone, RefusesWhatNoMeasurementGives) {
             std::string::npos);
   EXPECT_NE(message("big.s1p", "# GHz S MA R 50\n1 1.3 0\n2 0.5 0\n").find("|S11| is 1.3"), std::string::npos);
   EXPECT_NE(message("gain.s1p", "# GHz S DB R 50\n1 6 0\n").find("cannot reflect more"), std::string::npos);
+  // Found by fuzzing: a transmission of 434,134 dB overflowed to an infinite S21, which the
+  // reflection check let through into the data.
+  EXPECT_NE(message("loud.s2p", "# MHz S DB R 50\n434 -20 0 434134 -8 -20 0 -20 0\n").find(":2:11: 434134 dB"),
+            std::string::npos);
+  EXPECT_NE(message("singular.s2p", "# MHz Z RI R 50\n434 -1 0 0 0 0 0 -1 0\n").find(":2:1: these impedances"),
+            std::string::npos);
   EXPECT_NE(message("zero.s1p", "# GHz S MA R 50\n0 0.5 0\n1 0.5 0\n").find("above zero"), std::string::npos);
   EXPECT_NE(message("negative.s1p", "# GHz S MA R 50\n-1 0.5 0\n").find("above zero"), std::string::npos);
   EXPECT_NE(message("analyser.txt", "# MHz S DB R 50\n433 -20 10\n").find("number of ports is unknown"), std::string::npos);
