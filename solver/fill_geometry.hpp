@@ -68,7 +68,7 @@ struct FillGeometry {
   std::vector<SlabStar> slab_stars;
   /// Per observer triangle p, its near sources among triangles[q ≥ p], their images and
   /// slab images, found and integrated once per mesh: the static parts do not depend on k,
-  /// and were a tenth of a surface fill at every frequency.
+  /// and were a sixteenth of a surface fill at every frequency.
   std::vector<std::vector<NearSource>> near_sources;
 };
 
