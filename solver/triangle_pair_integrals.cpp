@@ -44,17 +44,24 @@ struct PairSums {
   }
 };
 
-/// `rule`'s points on triangle q as lanes.
+/// ∫_Q 1/R dS' and ∫_Q r'/R dS' at r, in closed form (Wilton et al. 1984).
+StaticMoments static_moments(const Vec3& r, const Vec3& q0, const Vec3& q1, const Vec3& q2) {
+  const StaticPotentials s = triangle_static_potentials(r, q0, q1, q2);
+  const Vec3 normal = (q1 - q0).cross(q2 - q0).normalized();
+  const Vec3 rho = r - normal.dot(r - q0) * normal;
+  return {s.scalar, s.vector + rho * s.scalar};  // ∫ r'/R = ∫ (r' − ρ)/R + ρ ∫ 1/R
+}
+
+/// `rule`'s points on triangle q by coordinate.
 PointLanes point_lanes(const TriangleRule& rule, const TriangleQuadrature& q) {
   PointLanes l;
   l.points = static_cast<int>(rule.points.size());
-  LOBE_CHECK(l.points <= PointLanes::lanes, "a far-pair rule with more points than lanes");
-  for (int b = 0; b < PointLanes::lanes; ++b) {
-    const int i = b < l.points ? b : 0;
-    const auto& c = rule.points[i];
+  LOBE_CHECK(l.points <= PointLanes::capacity, "a far-pair rule with more points than PointLanes holds");
+  for (int b = 0; b < l.points; ++b) {
+    const auto& c = rule.points[b];
     const Vec3 y = c[0] * q.corners[0] + c[1] * q.corners[1] + c[2] * q.corners[2];
     l.x[b] = y.x(), l.y[b] = y.y(), l.z[b] = y.z();
-    l.w[b] = b < l.points ? rule.weights[i] * q.area : 0.0;
+    l.w[b] = rule.weights[b] * q.area;
   }
   return l;
 }
@@ -63,7 +70,7 @@ PointLanes point_lanes(const TriangleRule& rule, const TriangleQuadrature& q) {
 /// point b of source l, corner[j][c][l] coordinate c of its corner j.
 template <int points>
 struct SourceLanes {
-  static constexpr int lanes = PointLanes::lanes;
+  static constexpr int lanes = pair_batch_limit;
   alignas(64) Real x[points][lanes], y[points][lanes], z[points][lanes], w[points][lanes];
   alignas(64) Real corner[3][3][lanes];
 };
@@ -84,19 +91,17 @@ template <int points>
                                                             const TriangleQuadrature* const* sources, int count,
                                                             PointLanes TriangleQuadrature::*rule, Real k,
                                                             TrianglePairIntegrals* out) {
-  constexpr int lanes = PointLanes::lanes;
+  constexpr int lanes = pair_batch_limit;
   LOBE_ASSERT(count >= 1 && count <= lanes);
   const PointLanes& p = observer.*rule;
   LOBE_ASSERT(p.points == points);
   SourceLanes<points> q;
   for (int l = 0; l < lanes; ++l) {
-    const PointLanes& source = (*sources[l < count ? l : 0]).*rule;  // spare lanes repeat the first
-    for (int b = 0; b < points; ++b) {
-      q.x[b][l] = source.x[b], q.y[b][l] = source.y[b], q.z[b][l] = source.z[b], q.w[b][l] = source.w[b];
-    }
-    const auto& corners = sources[l < count ? l : 0]->corners;
+    const TriangleQuadrature& source = *sources[l < count ? l : 0];  // spare lanes repeat the first
+    const PointLanes& y = source.*rule;
+    for (int b = 0; b < points; ++b) q.x[b][l] = y.x[b], q.y[b][l] = y.y[b], q.z[b][l] = y.z[b], q.w[b][l] = y.w[b];
     for (int j = 0; j < 3; ++j)
-      for (int c = 0; c < 3; ++c) q.corner[j][c][l] = corners[j](c);
+      for (int c = 0; c < 3; ++c) q.corner[j][c][l] = source.corners[j](c);
   }
   alignas(64) Real d_re[lanes] = {}, d_im[lanes] = {}, a_re[lanes] = {}, a_im[lanes] = {};
   alignas(64) Real b_re[3][lanes] = {}, b_im[3][lanes] = {}, c_re[3][lanes] = {}, c_im[3][lanes] = {};
@@ -170,11 +175,9 @@ PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const V
   const TriangleRule& rule = triangle_rule_degree5();
   PointPotentials result;
   if (near) {
-    const StaticPotentials s = triangle_static_potentials(r, q0, q1, q2);
-    const Vec3 normal = (q1 - q0).cross(q2 - q0).normalized();
-    const Vec3 rho = r - normal.dot(r - q0) * normal;
+    const StaticMoments s = static_moments(r, q0, q1, q2);
     result.scalar += s.scalar;
-    result.moment += (s.vector + rho * s.scalar).cast<Complex>();  // ∫ r'/R = ∫ (r' − ρ)/R + ρ ∫ 1/R
+    result.moment += s.moment.cast<Complex>();
   }
   // The seven kernels in one vectorised batch (one at a time, through the library's sincos,
   // they had been a fifth of a small wire-and-plate model's fill).
@@ -249,13 +252,8 @@ TrianglePairIntegrals triangle_pair_integrals_by_points(const TriangleQuadrature
 }
 
 NearPairStatics near_pair_statics(const TriangleQuadrature& p, const TriangleQuadrature& q) {
-  const Vec3 normal = (q.corners[1] - q.corners[0]).cross(q.corners[2] - q.corners[0]).normalized();
   NearPairStatics statics;
-  for (int a = 0; a < n; ++a) {
-    const StaticPotentials s = triangle_static_potentials(p.x[a], q.corners[0], q.corners[1], q.corners[2]);
-    const Vec3 rho = p.x[a] - normal.dot(p.x[a] - q.corners[0]) * normal;
-    statics[a] = {s.scalar, s.vector + rho * s.scalar};  // ∫ r'/R = ∫ (r' − ρ)/R + ρ ∫ 1/R
-  }
+  for (int a = 0; a < n; ++a) statics[a] = static_moments(p.x[a], q.corners[0], q.corners[1], q.corners[2]);
   return statics;
 }
 

@@ -28,13 +28,12 @@ struct PointPotentials {
 PointPotentials triangle_point_potentials(const Vec3& r, const Vec3& q0, const Vec3& q1, const Vec3& q2, Real area,
                                           Real k, bool near);
 
-/// A rule's points on one triangle by coordinate, with their weights times the area (the
-/// arrays padded to eight, a vector register's lanes, by the first point with weight zero),
-/// for the far pairs' vectorised loops.
+/// A rule's points on one triangle by coordinate, with their weights times the area, for
+/// the far pairs' vectorised loops.
 struct PointLanes {
-  static constexpr int lanes = 8;
+  static constexpr int capacity = 8;
   int points = 0;
-  alignas(64) std::array<Real, lanes> x, y, z, w;
+  alignas(64) std::array<Real, capacity> x, y, z, w;
 };
 
 /// What a fill needs of one triangle, computed once per triangle rather than per pair:
@@ -81,8 +80,9 @@ TrianglePairIntegrals triangle_pair_integrals_by_points(const TriangleQuadrature
 TrianglePairIntegrals triangle_pair_integrals_distant(const TriangleQuadrature& observer,
                                                       const TriangleQuadrature& source, Real k);
 
-/// Most pairs the batched forms below take at once: a source triangle to each vector lane.
-constexpr int pair_batch_limit = PointLanes::lanes;
+/// Most pairs the batched forms below take at once: a source triangle to each of a vector
+/// register's eight lanes (AVX-512; two registers with AVX2).
+constexpr int pair_batch_limit = 8;
 
 /// out[l] = triangle_pair_integrals_by_points(observer, *sources[l], k) for l < count ≤
 /// pair_batch_limit, the pairs side by side in the vector lanes (a fill's pairs mostly share

@@ -51,7 +51,7 @@ class PairSumQueue {
       : m_geometry(geometry), m_observer_index(observer), m_observer(geometry.triangles[observer]), m_k(k) {}
 
   /// Adds the weighted integrals over (observer, source) to `sum`, now or at the next flush().
-  void add(const TriangleQuadrature& source, Real vector_weight, Real scalar_weight, TrianglePairIntegrals& sum) {
+  void add(const TriangleQuadrature& source, Complex vector_weight, Complex scalar_weight, TrianglePairIntegrals& sum) {
     const bool distant = triangle_pair_is_distant(m_observer, source);
     if (!distant && triangle_pair_is_near(m_observer, source)) {
       const TrianglePairIntegrals near =
@@ -60,10 +60,14 @@ class PairSumQueue {
       sum.scalar += scalar_weight * near.scalar;
       return;
     }
-    Batch& batch = distant ? m_distant : m_far;
-    batch.sources[batch.count] = &source;
-    batch.targets[batch.count] = {&sum, vector_weight, scalar_weight};
-    if (++batch.count == pair_batch_limit) integrate(batch);
+    queue(distant ? m_distant : m_far, source, vector_weight, scalar_weight, sum);
+  }
+
+  /// Adds the weighted integrals over (observer, source) by the 7 × 7 rule, whatever the
+  /// pair's distance, at the next flush().
+  void add_by_points(const TriangleQuadrature& source, Complex vector_weight, Complex scalar_weight,
+                     TrianglePairIntegrals& sum) {
+    queue(m_far, source, vector_weight, scalar_weight, sum);
   }
 
   /// Completes every queued sum.
@@ -75,7 +79,7 @@ class PairSumQueue {
  private:
   struct Target {
     TrianglePairIntegrals* sum;
-    Real vector_weight, scalar_weight;
+    Complex vector_weight, scalar_weight;
   };
   struct Batch {
     bool distant = false;
@@ -83,6 +87,13 @@ class PairSumQueue {
     std::array<const TriangleQuadrature*, pair_batch_limit> sources;
     std::array<Target, pair_batch_limit> targets;
   };
+
+  void queue(Batch& batch, const TriangleQuadrature& source, Complex vector_weight, Complex scalar_weight,
+             TrianglePairIntegrals& sum) {
+    batch.sources[batch.count] = &source;
+    batch.targets[batch.count] = {&sum, vector_weight, scalar_weight};
+    if (++batch.count == pair_batch_limit) integrate(batch);
+  }
 
   void integrate(Batch& batch) {
     if (batch.count == 0) return;
@@ -135,26 +146,30 @@ void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<Matrix
         queue.add(imaged.triangles[q], imaged.image.current_sign, imaged.image.charge_sign, sum);
     }
     queue.flush();
-    for (int q = first; q < last; ++q) {
-      if (basis.pieces_on(q).empty()) continue;
-      TrianglePairIntegrals& integrals = sums[q - first];
-      // On a substrate the free-space integrals are the quasi-static term: the vector
-      // potential's coefficient is 1, the scalar potential's 2/(εr + 1).
-      if (c.slab) {
-        integrals.scalar *= c.slab->quasi_static().scalar;
-        add_slab_remainders(*c.slab, observer, g.triangles[q], integrals);
+    // On a substrate the free-space integrals are the quasi-static term: the vector
+    // potential's coefficient is 1, the scalar potential's 2/(εr + 1).
+    if (c.slab) {
+      for (int q = first; q < last; ++q) {
+        if (basis.pieces_on(q).empty()) continue;
+        TrianglePairIntegrals& sum = sums[q - first];
+        sum.scalar *= c.slab->quasi_static().scalar;
+        add_slab_remainders(*c.slab, observer, g.triangles[q], sum);
         // The remainder holds the quasi-static images at depths 2nh, which vary on the
         // thickness's scale, finer than a triangle on a thin board: where one is near, its
         // points' share is replaced by the exact integral.
         for (const SlabImageTriangles& imaged : g.slab_images) {
-          if (!triangle_pair_is_near(observer, imaged.triangles[q])) continue;
-          const TrianglePairIntegrals exact =
-              triangle_pair_integrals_near(observer, imaged.triangles[q], g.near_statics(p, imaged.triangles[q]), c.k);
-          const TrianglePairIntegrals by_points = triangle_pair_integrals_by_points(observer, imaged.triangles[q], c.k);
-          integrals.vector += imaged.image.vector_weight * (exact.vector - by_points.vector);
-          integrals.scalar += imaged.image.scalar_weight * (exact.scalar - by_points.scalar);
+          const TriangleQuadrature& image = imaged.triangles[q];
+          if (!triangle_pair_is_near(observer, image)) continue;
+          const Complex vector_weight = imaged.image.vector_weight, scalar_weight = imaged.image.scalar_weight;
+          queue.add(image, vector_weight, scalar_weight, sum);
+          queue.add_by_points(image, -vector_weight, -scalar_weight, sum);
         }
       }
+      queue.flush();
+    }
+    for (int q = first; q < last; ++q) {
+      if (basis.pieces_on(q).empty()) continue;
+      TrianglePairIntegrals& integrals = sums[q - first];
       if (p == q) integrals.vector = (0.5 * (integrals.vector + integrals.vector.transpose())).eval();
       // f = c (r − v_free), ∇·f = 2c.
       const Complex scalar_term = c.scalar_factor * 4.0 * integrals.scalar;
