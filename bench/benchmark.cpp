@@ -22,6 +22,15 @@
 namespace lobe {
 namespace {
 
+/// `text` as one CSV field (RFC 4180): quoted, with inner quotes doubled, when it holds a
+/// comma, a quote or a line break.
+std::string csv_field(const std::string& text) {
+  if (text.find_first_of(",\"\r\n") == std::string::npos) return text;
+  std::string out = "\"";
+  for (const char c : text) out += c == '"' ? std::string("\"\"") : std::string(1, c);
+  return out + "\"";
+}
+
 using Clock = std::chrono::steady_clock;
 constexpr int repetitions = 3;
 
@@ -214,14 +223,15 @@ std::string benchmark_csv(const BenchmarkReport& r) {
   for (const BenchmarkRow& row : r.rows) {
     const double gflops = lu_equivalent_gflops(row.unknowns, row.factor_seconds);
     const double kernels = row.kernel_evaluations > 0 ? row.kernel_evaluations / row.fill_seconds : 0.0;
-    out += formatted("%s,%ld,%.6g,%.6g,%.6g,%.4g,%.6g,%.4g,%s,%.6g,%.4g,%.6g,%.6g,%d,%.6g,%.6g,\n", row.model.c_str(),
+    out += formatted("%s,%ld,%.6g,%.6g,%.6g,%.4g,%.6g,%.4g,%s,%.6g,%.4g,%.6g,%.6g,%d,%.6g,%.6g,\n", csv_field(row.model).c_str(),
                      row.unknowns, row.setup_seconds, row.fill_seconds, kernels, kernels / r.kernel_rate,
-                     row.factor_seconds, row.fill_seconds / row.factor_seconds, row.factorization.c_str(), gflops,
+                     row.factor_seconds, row.fill_seconds / row.factor_seconds, csv_field(row.factorization).c_str(), gflops,
                      gflops / r.zgemm_gflops, row.solve_seconds, row.peak_memory_mib, r.threads, r.zgemm_gflops,
                      r.kernel_rate);
   }
   const double per_case = r.sweep_seconds / std::max(1, r.sweep_cases);
-  out += formatted("sweep: %s (%d cases),%ld,,,,,,,,,,,,%d,%.6g,%.6g,%.6g\n", r.sweep_model.c_str(), r.sweep_cases,
+  out += formatted("%s,%ld,,,,,,,,,,,,%d,%.6g,%.6g,%.6g\n",
+                   csv_field(formatted("sweep: %s (%d cases)", r.sweep_model.c_str(), r.sweep_cases)).c_str(),
                    r.sweep_unknowns, r.threads, r.zgemm_gflops, r.kernel_rate, 3600.0 / per_case);
   return out;
 }
