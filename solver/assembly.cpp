@@ -34,6 +34,7 @@ void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMat
 #pragma omp parallel
   {
     std::vector<MatrixContribution> terms;
+    ObserverRows rows(triangles > 0 ? matrix.size() : 0);
 #pragma omp for schedule(dynamic, 4)
     for (int e = 0; e < elements; ++e) {
       try {
@@ -44,10 +45,10 @@ void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMat
           add_segment_segment_terms(context, e, terms);
           add_segment_triangle_terms(context, e, terms);
         } else if (e < segments + triangles) {
-          add_triangle_triangle_terms(context, e - segments, terms);
+          add_triangle_triangle_terms(context, e - segments, rows);
+          rows.flush(problem.rwg.pieces_on(e - segments), matrix);
         }
         if (stars) add_star_source_terms(context, e, terms);
-#pragma omp critical(lobe_matrix_add)
         matrix.add(terms);
       } catch (...) {
 #pragma omp critical(lobe_matrix_failure)

@@ -6,6 +6,7 @@
 #include <cstdio>
 
 #include <algorithm>
+#include <bitset>
 #include <complex>
 
 #include "core/check.hpp"
@@ -58,15 +59,36 @@ void DenseMatrix::add(std::span<const MatrixContribution> terms) {
   // few columns, and settle_mirrors() adds the transpose in cache-sized tiles. Written at
   // (row, column) of a column-major matrix directly, they were a cache miss each and a
   // fifth of a surface fill.
+  const auto stripe_of = [](const MatrixContribution& c) {
+    return static_cast<std::size_t>(c.mirror ? c.row : c.column) % column_lock_count;
+  };
+  // An observer's terms fall on its few functions' columns: their locks are taken once for
+  // the whole list, in increasing order so that two lists never wait for each other.
+  std::bitset<column_lock_count> stripes;
+  for (const MatrixContribution& c : terms) stripes.set(stripe_of(c));
+  for (std::size_t s = 0; s < column_lock_count; ++s)
+    if (stripes.test(s)) m_column_locks[s].lock();
   for (const MatrixContribution& c : terms) {
     LOBE_ASSERT(c.row < size() && c.column < size());
     if (c.mirror) {
       m_original(c.column, c.row) += c.value;
-      m_mirrors_pending = true;
+      m_mirrors_pending.store(true, std::memory_order_relaxed);
     } else {
       m_entries(c.row, c.column) += c.value;
     }
   }
+  for (std::size_t s = 0; s < column_lock_count; ++s)
+    if (stripes.test(s)) m_column_locks[s].unlock();
+}
+
+void DenseMatrix::add_mirrored_column(int column, int first_row, std::span<const Complex> values) {
+  LOBE_ASSERT(column < size() && first_row + static_cast<Eigen::Index>(values.size()) <= size());
+  if (values.empty()) return;
+  const std::lock_guard<std::mutex> lock(column_lock(column));
+  // Where add() keeps a mirrored term of the observing function `column`: down its column.
+  m_original.col(column).segment(first_row, static_cast<Eigen::Index>(values.size())) +=
+      Eigen::Map<const ComplexVector>(values.data(), static_cast<Eigen::Index>(values.size()));
+  m_mirrors_pending.store(true, std::memory_order_relaxed);
 }
 
 void DenseMatrix::settle_mirrors() {

@@ -1,5 +1,8 @@
 #pragma once
 /// Dense complex matrix, factored by a symmetric LDLᵀ when it is symmetric and by LU otherwise.
+#include <array>
+#include <atomic>
+#include <mutex>
 #include <vector>
 
 #include "solver/symmetric_factorization.hpp"
@@ -22,6 +25,7 @@ class DenseMatrix final : public SystemMatrix {
   /// The entries, with every term added so far (full square).
   ComplexMatrix& entries();
   void add(std::span<const MatrixContribution> terms) override;
+  void add_mirrored_column(int column, int first_row, std::span<const Complex> values) override;
   void finish_fill() override { settle_mirrors(); }
   void factor() override;
   ComplexMatrix solve(const ComplexMatrix& rhs, SolveReport& report) const override;
@@ -37,14 +41,21 @@ class DenseMatrix final : public SystemMatrix {
   /// Adds the mirrored terms held in m_original (see add()) to m_entries.
   void settle_mirrors();
 
+  /// The lock that guards column c of both buffers during the fill.
+  std::mutex& column_lock(Eigen::Index c) const { return m_column_locks[static_cast<std::size_t>(c) % column_lock_count]; }
+
   ComplexMatrix m_entries;
   ComplexMatrix m_original;
+  /// Columns share locks in stripes: the fill's threads write a few columns each at a time,
+  /// so two rarely meet on one stripe.
+  static constexpr std::size_t column_lock_count = 256;
+  mutable std::array<std::mutex, column_lock_count> m_column_locks;
   Factorization m_factorization = Factorization::lu;
   std::vector<int> m_pivots;
   SymmetricPivots m_symmetric_pivots;
   Real m_reciprocal_condition = 0.0;
   bool m_factored = false;
-  bool m_mirrors_pending = false;
+  std::atomic<bool> m_mirrors_pending = false;
 };
 
 }  // namespace lobe

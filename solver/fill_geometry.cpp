@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <stdexcept>
 
+#include "solver/spatial_order.hpp"
+
 namespace lobe {
 namespace {
 
@@ -27,6 +29,9 @@ std::vector<std::vector<NearSource>> find_near_sources(const std::vector<Triangl
 FillGeometry::FillGeometry(const WireMesh& wires, const SurfaceMesh& surface, const std::vector<JunctionStar>& stars,
                            const Medium& medium)
     : triangles(triangle_quadrature(surface)) {
+  std::vector<Vec3> centroids;
+  for (const TriangleQuadrature& t : triangles) centroids.push_back(t.centroid);
+  triangle_order = space_filling_order(centroids);
   for (const Segment& seg : wires.segments) {
     segments.push_back({seg.start, seg.end, seg.radius});
     lengths.push_back(seg.length());

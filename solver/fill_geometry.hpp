@@ -61,6 +61,9 @@ struct FillGeometry {
   std::vector<Real> lengths;
   std::vector<Vec3> directions;
   std::vector<TriangleQuadrature> triangles;
+  /// The triangles along a space-filling curve (solver/spatial_order.hpp): the order in
+  /// which the fill visits an observer's sources.
+  std::vector<int> triangle_order;
   std::vector<ImagedElements> images;  ///< one per image term of the medium
   /// On a substrate, its quasi-static images shallow enough to be near a triangle.
   std::vector<SlabImageTriangles> slab_images;

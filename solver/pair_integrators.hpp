@@ -11,6 +11,7 @@
 
 #include "solver/antenna_problem.hpp"
 #include "solver/fill_geometry.hpp"
+#include "solver/observer_rows.hpp"
 #include "solver/probe_kernels.hpp"
 #include "solver/slab_kernel_table.hpp"
 #include "solver/system_matrix.hpp"
@@ -43,8 +44,9 @@ void add_segment_triangle_terms(const FillContext& c, int s, std::vector<MatrixC
 /// (solver/probe_pairs.cpp); the segment integrators are not used there.
 void add_probe_terms(const FillContext& c, int s, std::vector<MatrixContribution>& out);
 
-/// Triangle p against triangles q ≥ p (solver/triangle_pair_integrals).
-void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<MatrixContribution>& out);
+/// Triangle p against triangles q ≥ p (solver/triangle_pair_integrals), into the rows of
+/// p's functions.
+void add_triangle_triangle_terms(const FillContext& c, int p, ObserverRows& rows);
 
 /// The junction stars as sources, observed by element e of the list [segments, triangles,
 /// stars]; a star observes only the stars up to itself, so each pair is met once.

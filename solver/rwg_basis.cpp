@@ -5,6 +5,8 @@
 #include <tuple>
 #include <utility>
 
+#include "solver/spatial_order.hpp"
+
 namespace lobe {
 
 RwgBasis::RwgBasis(const SurfaceMesh& mesh, int first) : m_first(first), m_by_triangle(mesh.triangles.size()) {
@@ -15,11 +17,23 @@ RwgBasis::RwgBasis(const SurfaceMesh& mesh, int first) : m_first(first), m_by_tr
       const int a = mesh.triangles[t][(k + 1) % 3], b = mesh.triangles[t][(k + 2) % 3];
       edges[{std::min(a, b), std::max(a, b)}].emplace_back(static_cast<int>(t), k);
     }
-  for (const auto& [edge, sides] : edges) {
-    if (sides.size() != 2) continue;
+  std::vector<const std::pair<const std::pair<int, int>, std::vector<std::pair<int, int>>>*> interior;
+  std::vector<Vec3> midpoints;
+  for (const auto& edge : edges) {
+    if (edge.second.size() != 2) continue;
+    interior.push_back(&edge);
+    midpoints.push_back(0.5 * (mesh.vertices[edge.first.first] + mesh.vertices[edge.first.second]));
+  }
+  // Numbered along a space-filling curve (solver/spatial_order.hpp); m_by_vertices keeps
+  // the functions in the order of their vertex pairs, for function_on().
+  const std::vector<int> order = space_filling_order(midpoints);
+  m_by_vertices.resize(interior.size());
+  for (const int i : order) {
+    const auto& [edge, sides] = *interior[i];
     const Real length = (mesh.vertices[edge.first] - mesh.vertices[edge.second]).norm();
     const auto [plus, plus_corner] = sides[0];
     const auto [minus, minus_corner] = sides[1];
+    m_by_vertices[i] = size();
     const int basis = m_first + size();
     m_by_triangle[plus].push_back({basis, plus_corner, length / (2 * mesh.area(plus))});
     m_by_triangle[minus].push_back({basis, minus_corner, -length / (2 * mesh.area(minus))});
@@ -29,10 +43,12 @@ RwgBasis::RwgBasis(const SurfaceMesh& mesh, int first) : m_first(first), m_by_tr
 
 int RwgBasis::function_on(int a, int b) const {
   const RwgEdge key{std::min(a, b), std::max(a, b)};
-  const auto less = [](const RwgEdge& x, const RwgEdge& y) { return std::tie(x.a, x.b) < std::tie(y.a, y.b); };
-  const auto found = std::lower_bound(m_edges.begin(), m_edges.end(), key, less);
-  if (found == m_edges.end() || found->a != key.a || found->b != key.b) return -1;
-  return m_first + static_cast<int>(found - m_edges.begin());
+  const auto before = [this, &key](int function) {
+    return std::tie(m_edges[function].a, m_edges[function].b) < std::tie(key.a, key.b);
+  };
+  const auto found = std::partition_point(m_by_vertices.begin(), m_by_vertices.end(), before);
+  if (found == m_by_vertices.end() || m_edges[*found].a != key.a || m_edges[*found].b != key.b) return -1;
+  return m_first + *found;
 }
 
 Eigen::Vector3cd current_density(const SurfaceMesh& mesh, const RwgBasis& basis, const ComplexVector& coefficients, int t,

@@ -25,7 +25,8 @@ struct RwgEdge {
 };
 
 /// One function per interior edge shared by exactly two triangles, numbered from `first`
-/// (so that surface unknowns can follow wire unknowns in one matrix).
+/// (so that surface unknowns can follow wire unknowns in one matrix) along a space-filling
+/// curve through the edges' midpoints (solver/spatial_order.hpp).
 class RwgBasis {
  public:
   explicit RwgBasis(const SurfaceMesh& mesh, int first = 0);
@@ -40,6 +41,7 @@ class RwgBasis {
  private:
   int m_first = 0;
   std::vector<RwgEdge> m_edges;
+  std::vector<int> m_by_vertices;  ///< functions (from 0) sorted by their vertex pairs
   std::vector<std::vector<RwgPiece>> m_by_triangle;
 };
 

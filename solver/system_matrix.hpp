@@ -45,8 +45,11 @@ class SystemMatrix {
  public:
   virtual ~SystemMatrix() = default;
   virtual Eigen::Index size() const = 0;
-  /// Adds terms during the fill; called from one thread at a time.
+  /// Adds terms during the fill; may be called from several threads at once.
   virtual void add(std::span<const MatrixContribution> terms) = 0;
+  /// Adds values[i] at (first_row + i, column) and at (column, first_row + i): one observing
+  /// function's mirrored terms, gathered densely; may be called from several threads at once.
+  virtual void add_mirrored_column(int column, int first_row, std::span<const Complex> values) = 0;
   /// Ends a fill: whatever add() deferred is put in place, so that the fill's time is the
   /// fill's and not the factorisation's. Terms may still be added afterwards.
   virtual void finish_fill() {}

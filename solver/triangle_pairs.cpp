@@ -104,7 +104,10 @@ class PairSumQueue {
     }
     for (int l = 0; l < batch.count; ++l) {
       const Target& t = batch.targets[l];
-      t.sum->vector += t.vector_weight * m_integrals[l].vector;
+      // Entry by entry: Eigen's scalar-times-matrix expression went through the stack.
+      Complex* sum = t.sum->vector.data();
+      const Complex* integral = m_integrals[l].vector.data();
+      for (int i = 0; i < 9; ++i) sum[i] += t.vector_weight * integral[i];
       t.sum->scalar += t.scalar_weight * m_integrals[l].scalar;
     }
     batch.count = 0;
@@ -114,9 +117,18 @@ class PairSumQueue {
   int m_observer_index;
   const TriangleQuadrature& m_observer;
   Real m_k;
-  Batch m_far, m_distant{.distant = true};
+  Batch m_far, m_distant{.distant = true, .count = 0, .sources = {}, .targets = {}};
   std::array<TrianglePairIntegrals, pair_batch_limit> m_integrals;  // a member: made once, not per batch
 };
+
+/// Asks for the parts of a source triangle its pairing reads first (the centroid and size
+/// that classify the pair, the lanes of a distant pair): the sources come in spatial order,
+/// scattered in memory, and each read had waited for its cache line.
+void prefetch_source(const TriangleQuadrature& t) {
+  __builtin_prefetch(&t.size);
+  for (const Real* lane : {t.distant.x.data(), t.distant.y.data(), t.distant.z.data(), t.distant.w.data()})
+    __builtin_prefetch(lane);
+}
 
 /// Source triangles whose pair sums are gathered before any is used: enough to fill the
 /// batches many times over, few enough that the sums stay in the first-level cache.
@@ -124,19 +136,30 @@ constexpr int sources_per_pass = 64;
 
 }  // namespace
 
-void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<MatrixContribution>& out) {
+void add_triangle_triangle_terms(const FillContext& c, int p, ObserverRows& rows) {
   const RwgBasis& basis = c.problem.rwg;
   const FillGeometry& g = c.geometry;
   if (basis.pieces_on(p).empty()) return;
   const TriangleQuadrature& observer = g.triangles[p];
   const int count = static_cast<int>(g.triangles.size());
   PairSumQueue queue(g, p, c.k);
+  std::array<int, sources_per_pass> sources;
   std::array<TrianglePairIntegrals, sources_per_pass> sums;
-  for (int first = p; first < count; first += sources_per_pass) {
-    const int last = std::min(count, first + sources_per_pass);
-    for (int q = first; q < last; ++q) {
-      if (basis.pieces_on(q).empty()) continue;
-      TrianglePairIntegrals& sum = sums[q - first];
+  // The sources q ≥ p (the pair's roles as they always were: a near pair's integrals
+  // depend slightly on which triangle observes) in the spatial order, so that the rows of
+  // their functions follow one another down the observer's columns.
+  for (int next = 0; next < count;) {
+    int pass = 0;
+    for (; next < count && pass < sources_per_pass; ++next) {
+      const int q = g.triangle_order[next];
+      if (q < p || basis.pieces_on(q).empty()) continue;
+      sources[pass++] = q;
+      prefetch_source(g.triangles[q]);
+      for (const ImagedElements& imaged : g.images) prefetch_source(imaged.triangles[q]);
+    }
+    for (int s = 0; s < pass; ++s) {
+      const int q = sources[s];
+      TrianglePairIntegrals& sum = sums[s];
       sum = TrianglePairIntegrals();
       queue.add(g.triangles[q], 1.0, 1.0, sum);
       // The image of f = c (r − v) on the mirrored triangle is c (r' − M v): the integrals
@@ -149,9 +172,9 @@ void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<Matrix
     // On a substrate the free-space integrals are the quasi-static term: the vector
     // potential's coefficient is 1, the scalar potential's 2/(εr + 1).
     if (c.slab) {
-      for (int q = first; q < last; ++q) {
-        if (basis.pieces_on(q).empty()) continue;
-        TrianglePairIntegrals& sum = sums[q - first];
+      for (int s = 0; s < pass; ++s) {
+        const int q = sources[s];
+        TrianglePairIntegrals& sum = sums[s];
         sum.scalar *= c.slab->quasi_static().scalar;
         add_slab_remainders(*c.slab, observer, g.triangles[q], sum);
         // The remainder holds the quasi-static images at depths 2nh, which vary on the
@@ -167,18 +190,22 @@ void add_triangle_triangle_terms(const FillContext& c, int p, std::vector<Matrix
       }
       queue.flush();
     }
-    for (int q = first; q < last; ++q) {
-      if (basis.pieces_on(q).empty()) continue;
-      TrianglePairIntegrals& integrals = sums[q - first];
+    for (int s = 0; s < pass; ++s) {
+      const int q = sources[s];
+      TrianglePairIntegrals& integrals = sums[s];
       if (p == q) integrals.vector = (0.5 * (integrals.vector + integrals.vector.transpose())).eval();
       // f = c (r − v_free), ∇·f = 2c.
       const Complex scalar_term = c.scalar_factor * 4.0 * integrals.scalar;
-      for (const RwgPiece& pm : basis.pieces_on(p))
-        for (const RwgPiece& pn : basis.pieces_on(q)) {
-          const Complex value = pm.coefficient * pn.coefficient *
-                                (c.vector_factor * integrals.vector(pm.free_corner, pn.free_corner) + scalar_term);
-          out.push_back({pm.basis, pn.basis, p != q, value});
-        }
+      // Every term is mirrored; the self pair's are each other's mirrors (the integrals were
+      // made symmetric, so the two values are equal), and each brings half.
+      const Real share = p == q ? 0.5 : 1.0;
+      for (const RwgPiece& pm : basis.pieces_on(p)) {
+        Complex* row = rows.row(pm.free_corner);
+        for (const RwgPiece& pn : basis.pieces_on(q))
+          row[pn.basis] += share * pm.coefficient * pn.coefficient *
+                           (c.vector_factor * integrals.vector(pm.free_corner, pn.free_corner) + scalar_term);
+      }
+      for (const RwgPiece& pn : basis.pieces_on(q)) rows.touch(pn.basis);
     }
   }
 }

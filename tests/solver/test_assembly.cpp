@@ -2,12 +2,18 @@
 // produced before they were merged into it (tests/data/fill_reference_matrix.bin: written
 // once by that earlier code, 91 × 91 complex doubles, column-major, little-endian). That
 // code took every far triangle pair by 7 × 7 points; distant pairs now take 6 × 6, and the
-// test takes that change out again, pair by pair, before comparing.
+// test takes that change out again, pair by pair, before comparing. That code numbered the
+// surface functions in the order of their edges' vertex pairs; they are now numbered along
+// a space-filling curve, and the test compares each entry with its counterpart.
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <fstream>
+#include <numeric>
+#include <tuple>
+#include <vector>
 
 #include "core/text_file.hpp"
 #include "geometry/model_parser.hpp"
@@ -65,6 +71,22 @@ ComplexMatrix distant_rule_change(const AntennaProblem& problem, Real frequency_
   return delta;
 }
 
+/// Per unknown, its index in the reference matrix: the surface functions there come in the
+/// order of their edges' vertex pairs (a < b), the other unknowns where they are now.
+std::vector<Eigen::Index> reference_numbering(const AntennaProblem& problem) {
+  std::vector<Eigen::Index> numbering(static_cast<std::size_t>(problem.unknowns()));
+  std::iota(numbering.begin(), numbering.end(), 0);
+  const RwgBasis& rwg = problem.rwg;
+  std::vector<int> by_vertices(static_cast<std::size_t>(rwg.size()));
+  std::iota(by_vertices.begin(), by_vertices.end(), 0);
+  std::sort(by_vertices.begin(), by_vertices.end(), [&rwg](int x, int y) {
+    return std::tie(rwg.edge(x).a, rwg.edge(x).b) < std::tie(rwg.edge(y).a, rwg.edge(y).b);
+  });
+  for (std::size_t rank = 0; rank < by_vertices.size(); ++rank)
+    numbering[static_cast<std::size_t>(rwg.first() + by_vertices[rank])] = rwg.first() + static_cast<Eigen::Index>(rank);
+  return numbering;
+}
+
 // Wires (a bent one among them), a plate, two wire-to-plate junctions, a lumped load,
 // conductor loss on two wires and a perfect ground: every integrator, every image term and
 // both stamps. Each entry within 1e-12 of the old one relative to its scale
@@ -80,7 +102,11 @@ TEST(Assembly, ReproducesTheSeparateFillsEntryByEntry) {
   DenseMatrix matrix(problem.unknowns());
   assemble_system(problem, model.frequencies_hz.front(), matrix);
   const ComplexMatrix z = matrix.entries() - distant_rule_change(problem, model.frequencies_hz.front());
-  const ComplexMatrix old = reference_matrix(problem.unknowns());
+  const ComplexMatrix stored = reference_matrix(problem.unknowns());
+  const std::vector<Eigen::Index> numbering = reference_numbering(problem);
+  const auto old = [&stored, &numbering](Eigen::Index i, Eigen::Index j) {
+    return stored(numbering[static_cast<std::size_t>(i)], numbering[static_cast<std::size_t>(j)]);
+  };
   Real worst = 0.0;
   for (Eigen::Index j = 0; j < z.cols(); ++j)
     for (Eigen::Index i = 0; i < z.rows(); ++i) {

@@ -33,5 +33,46 @@ TEST(DenseMatrix, MirroredTermsLandOnBothSidesAcrossRepeatedReads) {
   }
 }
 
+// The fill's threads add lists of terms and observers' mirrored columns at once, without a
+// lock of their own: the sum must be what one thread adding them in turn gives.
+TEST(DenseMatrix, TermsAndColumnsAddedFromManyThreadsAtOnceAllArrive) {
+  constexpr int n = 300, pieces = 400;
+  std::vector<std::vector<MatrixContribution>> lists(pieces);
+  std::vector<std::vector<Complex>> columns(pieces);
+  std::vector<int> column_of(pieces), first_row_of(pieces);
+  ComplexMatrix expected = ComplexMatrix::Zero(n, n);
+  std::mt19937 random(7);
+  std::uniform_int_distribution<int> index(0, n - 1);
+  std::uniform_real_distribution<Real> value(-1.0, 1.0);
+  for (int piece = 0; piece < pieces; ++piece) {
+    // Few columns, so that threads meet on them.
+    const int observer = index(random) % 12;
+    for (int t = 0; t < 50; ++t) {
+      const int column = index(random);
+      const bool mirror = t % 5 != 0;
+      const Complex v(value(random), value(random));
+      lists[piece].push_back({observer, column, mirror, v});
+      expected(observer, column) += v;
+      if (mirror) expected(column, observer) += v;
+    }
+    column_of[piece] = observer;
+    first_row_of[piece] = index(random) / 2;
+    for (int r = first_row_of[piece]; r < n; ++r) {
+      const Complex v(value(random), value(random));
+      columns[piece].push_back(v);
+      expected(r, observer) += v;
+      expected(observer, r) += v;
+    }
+  }
+  DenseMatrix matrix(n);
+#pragma omp parallel for schedule(dynamic, 1) num_threads(4)
+  for (int piece = 0; piece < pieces; ++piece) {
+    matrix.add(lists[piece]);
+    matrix.add_mirrored_column(column_of[piece], first_row_of[piece], columns[piece]);
+  }
+  matrix.finish_fill();
+  EXPECT_LT((matrix.entries() - expected).cwiseAbs().maxCoeff(), 1e-12);
+}
+
 }  // namespace
 }  // namespace lobe
