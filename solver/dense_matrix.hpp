@@ -40,6 +40,9 @@ class DenseMatrix final : public SystemMatrix {
   bool factor_symmetric_checked(Real norm1);
   /// Adds the mirrored terms held in m_original (see add()) to m_entries.
   void settle_mirrors();
+  /// Zeros m_original when it still holds mirrors settle_mirrors() has added; safe to call
+  /// from several threads at once.
+  void clear_stale_mirrors();
 
   /// The lock that guards column c of both buffers during the fill.
   std::mutex& column_lock(Eigen::Index c) const { return m_column_locks[static_cast<std::size_t>(c) % column_lock_count]; }
@@ -56,6 +59,8 @@ class DenseMatrix final : public SystemMatrix {
   Real m_reciprocal_condition = 0.0;
   bool m_factored = false;
   std::atomic<bool> m_mirrors_pending = false;
+  std::atomic<bool> m_mirrors_stale = false;  ///< m_original holds settled mirrors, not zeros
+  std::mutex m_clearing;
 };
 
 }  // namespace lobe

@@ -3,6 +3,7 @@
 #include <gtest/gtest.h>
 
 #include <random>
+#include <stdexcept>
 #include <vector>
 
 #include "solver/dense_matrix.hpp"
@@ -72,6 +73,18 @@ TEST(DenseMatrix, TermsAndColumnsAddedFromManyThreadsAtOnceAllArrive) {
   }
   matrix.finish_fill();
   EXPECT_LT((matrix.entries() - expected).cwiseAbs().maxCoeff(), 1e-12);
+}
+
+// After factor() the second buffer holds the matrix the residuals are computed with; a term
+// added then would change it behind the factors' back.
+TEST(DenseMatrix, RefusesTermsOnceFactored) {
+  DenseMatrix matrix(2);
+  const std::vector<MatrixContribution> diagonal{{0, 0, false, 2.0}, {1, 1, false, 3.0}, {0, 1, true, 0.5}};
+  matrix.add(diagonal);
+  matrix.factor();
+  EXPECT_THROW(matrix.add(diagonal), std::logic_error);
+  const std::vector<Complex> column{1.0};
+  EXPECT_THROW(matrix.add_mirrored_column(0, 1, column), std::logic_error);
 }
 
 }  // namespace
