@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "core/check.hpp"
 #include "core/constants.hpp"
 #include "solver/phase_factor.hpp"
 #include "solver/recent_tables.hpp"
@@ -102,7 +103,9 @@ SlabKernelTable::SlabKernelTable(const GroundedSlab& slab, Real largest_distance
 }
 
 void SlabKernelTable::remainders(const Real* rho, int count, SlabRemainders* out) const {
-  Real phase[64], sine[64], cosine[64];
+  constexpr int most = 64;
+  LOBE_CHECK(count >= 0 && count <= most, "more slab remainders asked at once than the buffers hold");
+  Real phase[most] = {}, sine[most], cosine[most];
   for (int i = 0; i < count; ++i) {
     out[i] = demodulated(rho[i]);
     phase[i] = m_slab.k0 * rho[i];

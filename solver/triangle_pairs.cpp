@@ -4,43 +4,11 @@
 
 #include "solver/assembly.hpp"
 #include "solver/pair_integrators.hpp"
+#include "solver/slab_pair_remainders.hpp"
 #include "solver/triangle_rules.hpp"
 
 namespace lobe {
 namespace {
-
-/// Adds the substrate's remainder kernels (smooth and finite at R = 0, so the 7 × 7 product
-/// rule serves even the self pair): with S = Σ w R, S_x = Σ w R x, S_y = Σ w R y and
-/// S_xy = Σ w R x·y over the point pairs, (x − p_i)·(y − q_j) sums to
-/// S_xy − S_x·q_j − p_i·S_y + (p_i·q_j) S.
-void add_slab_remainders(const SlabKernelTable& table, const TriangleQuadrature& p, const TriangleQuadrature& q,
-                         TrianglePairIntegrals& integrals) {
-  constexpr int n = TriangleQuadrature::points;
-  Complex s = 0.0, s_vector = 0.0, s_xy = 0.0;
-  Eigen::Vector3cd s_x = Eigen::Vector3cd::Zero(), s_y = Eigen::Vector3cd::Zero();
-  Real distance[n * n];
-  SlabRemainders remainders[n * n];
-  for (int a = 0; a < n; ++a)
-    for (int b = 0; b < n; ++b) distance[a * n + b] = (p.x[a] - q.x[b]).norm();
-  table.remainders(distance, n * n, remainders);
-  for (int a = 0; a < n; ++a)
-    for (int b = 0; b < n; ++b) {
-      const SlabRemainders& r = remainders[a * n + b];
-      const Real w = p.w[a] * q.w[b];
-      s += w * r.scalar;
-      const Complex v = w * r.vector;
-      s_vector += v;
-      s_x += v * p.x[a].cast<Complex>();
-      s_y += v * q.x[b].cast<Complex>();
-      s_xy += v * p.x[a].dot(q.x[b]);
-    }
-  integrals.scalar += s;
-  for (int i = 0; i < 3; ++i)
-    for (int j = 0; j < 3; ++j)
-      // Eigen's dot conjugates its left side: keep the real vector there.
-      integrals.vector(i, j) += s_xy - q.corners[j].cast<Complex>().dot(s_x) - p.corners[i].cast<Complex>().dot(s_y) +
-                                p.corners[i].dot(q.corners[j]) * s_vector;
-}
 
 /// Sums of pair integrals, Σ_m (vector_weight_m vector_m, scalar_weight_m scalar_m) over one
 /// observer triangle's pairs with a source and its images, the far and distant pairs queued
@@ -176,7 +144,9 @@ void add_triangle_triangle_terms(const FillContext& c, int p, ObserverRows& rows
         const int q = sources[s];
         TrianglePairIntegrals& sum = sums[s];
         sum.scalar *= c.slab->quasi_static().scalar;
-        add_slab_remainders(*c.slab, observer, g.triangles[q], sum);
+        const TrianglePairIntegrals remainders = slab_remainder_integrals(*c.slab, observer, g.triangles[q]);
+        sum.vector += remainders.vector;
+        sum.scalar += remainders.scalar;
         // The remainder holds the quasi-static images at depths 2nh, which vary on the
         // thickness's scale, finer than a triangle on a thin board: where one is near, its
         // points' share is replaced by the exact integral.

@@ -7,6 +7,7 @@
 #include "solver/triangle_pair_integrals.hpp"
 #include "solver/triangle_potentials.hpp"
 #include "solver/triangle_rules.hpp"
+#include "support/fine_pair_quadrature.hpp"
 
 namespace lobe {
 namespace {
@@ -79,31 +80,6 @@ TEST(TrianglePotentials, AdditiveOverSubtrianglesForPointsOnTheTriangle) {
     EXPECT_NEAR(whole.scalar, parts.scalar, 1e-12 * whole.scalar) << r.transpose();
     EXPECT_LE((whole.vector - parts.vector).norm(), 1e-12 * whole.scalar) << r.transpose();
   }
-}
-
-/// A pair's integrals by the degree-5 rule on 4³ sub-triangles of each: converged to about
-/// 1e-9 for pairs two sizes apart and more.
-TrianglePairIntegrals fine_pair_integrals(const TriangleQuadrature& p, const TriangleQuadrature& q, Real k) {
-  static const TriangleRule rule = subdivided_triangle_rule(3);
-  TrianglePairIntegrals sum;
-  for (std::size_t a = 0; a < rule.points.size(); ++a) {
-    const Vec3 x = at(rule.points[a], p.corners[0], p.corners[1], p.corners[2]);
-    for (std::size_t b = 0; b < rule.points.size(); ++b) {
-      const Vec3 y = at(rule.points[b], q.corners[0], q.corners[1], q.corners[2]);
-      const Real distance = (x - y).norm();
-      const Complex g = rule.weights[a] * p.area * rule.weights[b] * q.area * green_scale *
-                        std::exp(Complex(0.0, -k * distance)) / distance;
-      sum.scalar += g;
-      for (int i = 0; i < 3; ++i)
-        for (int j = 0; j < 3; ++j) sum.vector(i, j) += g * (x - p.corners[i]).dot(y - q.corners[j]);
-    }
-  }
-  return sum;
-}
-
-Real relative_error(const TrianglePairIntegrals& x, const TrianglePairIntegrals& reference) {
-  return std::max((x.vector - reference.vector).cwiseAbs().maxCoeff() / reference.vector.cwiseAbs().maxCoeff(),
-                  std::abs(x.scalar - reference.scalar) / std::abs(reference.scalar));
 }
 
 // Distant pairs take the 6 × 6 degree-4 rule to save kernels; that must cost no accuracy
