@@ -5,6 +5,7 @@
 
 #include "core/check.hpp"
 #include "core/constants.hpp"
+#include "core/vector_clones.hpp"
 #include "solver/phase_factor.hpp"
 #include "solver/recent_tables.hpp"
 #include "solver/slab_kernels.hpp"
@@ -100,22 +101,86 @@ SlabKernelTable::SlabKernelTable(const GroundedSlab& slab, Real largest_distance
       grid.values[i] = {value.vector * demodulation, value.scalar * demodulation};
     }
   }
+  split_grids();
+}
+
+void SlabKernelTable::split_grids() {
+  for (int g = 0; g < 3; ++g) {
+    m_first_node[g] = static_cast<int>(m_vector_re.size());
+    for (const SlabRemainders& v : m_grids[g].values) {
+      m_vector_re.push_back(v.vector.real()), m_vector_im.push_back(v.vector.imag());
+      m_scalar_re.push_back(v.scalar.real()), m_scalar_im.push_back(v.scalar.imag());
+    }
+  }
+}
+
+namespace {
+
+/// The grids as read_remainders() reads them.
+struct GridParts {
+  const Real *vector_re, *vector_im, *scalar_re, *scalar_im;
+  Real end[2];         ///< where the first and the second grid end
+  Real step[3];
+  int first_node[3];   ///< each grid's first node in the arrays
+  int nodes[3];        ///< and its node count
+};
+
+/// The remainders at `count` distances: each from the grid that covers it by the cubic of
+/// UniformGrid::at, times e^{−jk0ρ}; a distance to each vector lane.
+LOBE_VECTOR_CLONES void read_remainders(const GridParts& t, const Real* rho, int count, Real k0,
+                                        SlabKernelTable::Parts& out) {
+  // The grids' constants in locals and the stencil (cubic_stencil's) written out with
+  // selects: conditional loads inside the loop kept it scalar.
+  const Real end0 = t.end[0], end1 = t.end[1];
+  const Real step0 = t.step[0], step1 = t.step[1], step2 = t.step[2];
+  const int node0 = t.first_node[0], node1 = t.first_node[1], node2 = t.first_node[2];
+  const int last0 = t.nodes[0] - 4, last1 = t.nodes[1] - 4, last2 = t.nodes[2] - 4;
+  const Real *vr = t.vector_re, *vi = t.vector_im, *sr = t.scalar_re, *si = t.scalar_im;
+#pragma omp simd
+  for (int i = 0; i < count; ++i) {
+    const Real r = rho[i];
+    const bool first_grid = r < end0, second_grid = r < end1;
+    const Real step = first_grid ? step0 : second_grid ? step1 : step2;
+    const int first_node = first_grid ? node0 : second_grid ? node1 : node2;
+    const int last = first_grid ? last0 : second_grid ? last1 : last2;
+    const Real x = r / step;
+    // x ≥ 0: truncation is the floor. Integer clamps: std::floor and a clamp of reals kept
+    // the x86-64-v3 and AVX-512F clones scalar.
+    const int first = std::min(std::max(static_cast<int>(x) - 1, 0), last);
+    const Real u = x - (first + 1), up = u + 1.0, um = u - 1.0, um2 = u - 2.0;
+    const Real w0 = -u * um * um2 / 6.0, w1 = up * um * um2 / 2.0, w2 = -up * u * um2 / 2.0, w3 = up * u * um / 6.0;
+    const int a = first_node + first;
+    const Real vector_re = w0 * vr[a] + w1 * vr[a + 1] + w2 * vr[a + 2] + w3 * vr[a + 3];
+    const Real vector_im = w0 * vi[a] + w1 * vi[a + 1] + w2 * vi[a + 2] + w3 * vi[a + 3];
+    const Real scalar_re = w0 * sr[a] + w1 * sr[a + 1] + w2 * sr[a + 2] + w3 * sr[a + 3];
+    const Real scalar_im = w0 * si[a] + w1 * si[a + 1] + w2 * si[a + 2] + w3 * si[a + 3];
+    Real sine, cosine;
+    sine_cosine_of(k0 * r, sine, cosine);
+    // (re + j im)(cos − j sin)
+    out.vector_re[i] = vector_re * cosine + vector_im * sine, out.vector_im[i] = vector_im * cosine - vector_re * sine;
+    out.scalar_re[i] = scalar_re * cosine + scalar_im * sine, out.scalar_im[i] = scalar_im * cosine - scalar_re * sine;
+  }
+}
+
+}  // namespace
+
+void SlabKernelTable::remainders(const Real* rho, int count, Parts& out) const {
+  LOBE_CHECK(count >= 0 && count <= remainder_batch_limit, "more slab remainders asked at once than the buffers hold");
+  GridParts t{m_vector_re.data(), m_vector_im.data(), m_scalar_re.data(), m_scalar_im.data(),
+              {m_grids[0].end, m_grids[1].end}, {}, {}, {}};
+  for (int g = 0; g < 3; ++g) {
+    t.step[g] = m_grids[g].step;
+    t.first_node[g] = m_first_node[g];
+    t.nodes[g] = static_cast<int>(m_grids[g].values.size());
+  }
+  read_remainders(t, rho, count, m_slab.k0, out);
 }
 
 void SlabKernelTable::remainders(const Real* rho, int count, SlabRemainders* out) const {
-  constexpr int most = 64;
-  LOBE_CHECK(count >= 0 && count <= most, "more slab remainders asked at once than the buffers hold");
-  Real phase[most] = {}, sine[most], cosine[most];
-  for (int i = 0; i < count; ++i) {
-    out[i] = demodulated(rho[i]);
-    phase[i] = m_slab.k0 * rho[i];
-  }
-  sine_cosine(phase, sine, cosine, count);
-  for (int i = 0; i < count; ++i) {
-    const Complex modulation(cosine[i], -sine[i]);
-    out[i].vector *= modulation;
-    out[i].scalar *= modulation;
-  }
+  Parts parts;
+  remainders(rho, count, parts);
+  for (int i = 0; i < count; ++i)
+    out[i] = {Complex(parts.vector_re[i], parts.vector_im[i]), Complex(parts.scalar_re[i], parts.scalar_im[i])};
 }
 
 SlabRemainders SlabKernelTable::remainder(Real rho) const {

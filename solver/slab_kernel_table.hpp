@@ -42,9 +42,17 @@ class SlabKernelTable {
   const SlabSpectrum& quasi_static() const { return m_quasi_static; }
   /// The remainders at 0 ≤ ρ ≤ largest_distance.
   SlabRemainders remainder(Real rho) const;
-  /// The same at `count` ≤ 64 distances at once, their phases in one vectorised call (the
-  /// fill asks 49 at a time).
+  /// The same at `count` ≤ remainder_batch_limit distances at once.
   void remainders(const Real* rho, int count, SlabRemainders* out) const;
+  /// The same as real and imaginary parts in separate arrays, read in one vectorised loop
+  /// (the pair integrals sum them in another): a pair asks for 36 or 49 at a time, tens of
+  /// millions in one fill of a printed patch.
+  static constexpr int remainder_batch_limit = 64;
+  struct Parts {
+    alignas(64) Real vector_re[remainder_batch_limit], vector_im[remainder_batch_limit];
+    alignas(64) Real scalar_re[remainder_batch_limit], scalar_im[remainder_batch_limit];
+  };
+  void remainders(const Real* rho, int count, Parts& out) const;
   /// The radius up to which the complex images were used, m.
   Real images_reach() const { return m_images_reach; }
   /// How many tabulated points there are.
@@ -54,15 +62,17 @@ class SlabKernelTable {
 
  private:
   using Grid = UniformGrid<SlabRemainders>;
-  /// The demodulated remainders from the grid that covers ρ.
-  SlabRemainders demodulated(Real rho) const {
-    return rho < m_grids[0].end ? m_grids[0].at(rho) : rho < m_grids[1].end ? m_grids[1].at(rho) : m_grids[2].at(rho);
-  }
+  /// The grids' values one after another, split into real parts, as remainders() reads them.
+  void split_grids();
   GroundedSlab m_slab;
   SlabSpectrum m_quasi_static;
   Real m_images_reach = 0.0;
   Real m_reach = 0.0;
   Grid m_grids[3];  ///< thickness scale, wavelength scale, beyond
+  /// The grids' demodulated values by part, grid after grid (m_grids' node i of grid g at
+  /// m_first_node[g] + i).
+  std::vector<Real> m_vector_re, m_vector_im, m_scalar_re, m_scalar_im;
+  int m_first_node[3] = {};
 };
 
 /// The table for `slab` reaching at least `largest_distance`, made once and kept: the

@@ -2,6 +2,8 @@
 
 #include <array>
 
+#include "core/vector_clones.hpp"
+
 namespace lobe {
 namespace {
 
@@ -30,6 +32,42 @@ RulePoints distant_points(const TriangleQuadrature& t) {
   return r;
 }
 
+/// A pair's point pairs by flattened index t: observer point x, source point y, weight.
+struct PointPairs {
+  static constexpr int most = TriangleQuadrature::points * TriangleQuadrature::points;
+  alignas(64) Real x[3][most], y[3][most], w[most], distance[most];
+};
+
+/// With R the remainders at the point pairs: S = Σ w R_V, and with v = w R_A, V = Σ v,
+/// S_x = Σ v x, S_y = Σ v y and S_xy = Σ v x·y, as real and imaginary parts, summed in
+/// vector lanes.
+struct RemainderSums {
+  Real s_re = 0, s_im = 0, v_re = 0, v_im = 0, xy_re = 0, xy_im = 0;
+  Real x_re[3] = {}, x_im[3] = {}, y_re[3] = {}, y_im[3] = {};
+};
+
+LOBE_VECTOR_CLONES RemainderSums sum_remainders(const PointPairs& pairs, const SlabKernelTable::Parts& r, int count) {
+  Real s_re = 0, s_im = 0, v_re = 0, v_im = 0, xy_re = 0, xy_im = 0;
+  Real x0_re = 0, x0_im = 0, x1_re = 0, x1_im = 0, x2_re = 0, x2_im = 0;
+  Real y0_re = 0, y0_im = 0, y1_re = 0, y1_im = 0, y2_re = 0, y2_im = 0;
+#pragma omp simd reduction(+ : s_re, s_im, v_re, v_im, xy_re, xy_im, x0_re, x0_im, x1_re, x1_im, x2_re, x2_im, \
+                               y0_re, y0_im, y1_re, y1_im, y2_re, y2_im)
+  for (int t = 0; t < count; ++t) {
+    const Real w = pairs.w[t];
+    s_re += w * r.scalar_re[t], s_im += w * r.scalar_im[t];
+    const Real a_re = w * r.vector_re[t], a_im = w * r.vector_im[t];
+    v_re += a_re, v_im += a_im;
+    const Real x0 = pairs.x[0][t], x1 = pairs.x[1][t], x2 = pairs.x[2][t];
+    const Real y0 = pairs.y[0][t], y1 = pairs.y[1][t], y2 = pairs.y[2][t];
+    x0_re += a_re * x0, x0_im += a_im * x0, x1_re += a_re * x1, x1_im += a_im * x1, x2_re += a_re * x2, x2_im += a_im * x2;
+    y0_re += a_re * y0, y0_im += a_im * y0, y1_re += a_re * y1, y1_im += a_im * y1, y2_re += a_re * y2, y2_im += a_im * y2;
+    const Real xy = x0 * y0 + x1 * y1 + x2 * y2;
+    xy_re += a_re * xy, xy_im += a_im * xy;
+  }
+  return {s_re, s_im, v_re, v_im, xy_re, xy_im, {x0_re, x1_re, x2_re}, {x0_im, x1_im, x2_im}, {y0_re, y1_re, y2_re},
+          {y0_im, y1_im, y2_im}};
+}
+
 }  // namespace
 
 TrianglePairIntegrals slab_remainder_integrals(const SlabKernelTable& table, const TriangleQuadrature& p,
@@ -37,28 +75,24 @@ TrianglePairIntegrals slab_remainder_integrals(const SlabKernelTable& table, con
   const bool distant = triangle_pair_is_distant(p, q);
   const RulePoints a_points = distant ? distant_points(p) : seven_points(p);
   const RulePoints b_points = distant ? distant_points(q) : seven_points(q);
-  const int na = a_points.count, nb = b_points.count;
-  // With S = Σ w R, S_x = Σ w R x, S_y = Σ w R y and S_xy = Σ w R x·y over the point pairs,
-  // (x − p_i)·(y − q_j) sums to S_xy − S_x·q_j − p_i·S_y + (p_i·q_j) S.
-  constexpr int most = TriangleQuadrature::points * TriangleQuadrature::points;
-  Real distance[most] = {};
-  SlabRemainders remainders[most];
-  for (int a = 0; a < na; ++a)
-    for (int b = 0; b < nb; ++b) distance[a * nb + b] = (a_points.x[a] - b_points.x[b]).norm();
-  table.remainders(distance, na * nb, remainders);
-  Complex s = 0.0, s_vector = 0.0, s_xy = 0.0;
-  Eigen::Vector3cd s_x = Eigen::Vector3cd::Zero(), s_y = Eigen::Vector3cd::Zero();
+  const int na = a_points.count, nb = b_points.count, count = na * nb;
+  PointPairs pairs;
   for (int a = 0; a < na; ++a)
     for (int b = 0; b < nb; ++b) {
-      const SlabRemainders& r = remainders[a * nb + b];
-      const Real w = a_points.w[a] * b_points.w[b];
-      s += w * r.scalar;
-      const Complex v = w * r.vector;
-      s_vector += v;
-      s_x += v * a_points.x[a].cast<Complex>();
-      s_y += v * b_points.x[b].cast<Complex>();
-      s_xy += v * a_points.x[a].dot(b_points.x[b]);
+      const int t = a * nb + b;
+      for (int c = 0; c < 3; ++c) pairs.x[c][t] = a_points.x[a](c), pairs.y[c][t] = b_points.x[b](c);
+      pairs.w[t] = a_points.w[a] * b_points.w[b];
+      pairs.distance[t] = (a_points.x[a] - b_points.x[b]).norm();
     }
+  SlabKernelTable::Parts remainders;
+  table.remainders(pairs.distance, count, remainders);
+  const RemainderSums sums = sum_remainders(pairs, remainders, count);
+  const Complex s(sums.s_re, sums.s_im), s_vector(sums.v_re, sums.v_im), s_xy(sums.xy_re, sums.xy_im);
+  const Eigen::Vector3cd s_x(Complex(sums.x_re[0], sums.x_im[0]), Complex(sums.x_re[1], sums.x_im[1]),
+                             Complex(sums.x_re[2], sums.x_im[2]));
+  const Eigen::Vector3cd s_y(Complex(sums.y_re[0], sums.y_im[0]), Complex(sums.y_re[1], sums.y_im[1]),
+                             Complex(sums.y_re[2], sums.y_im[2]));
+  // (x − p_i)·(y − q_j) sums to S_xy − S_x·q_j − p_i·S_y + (p_i·q_j) S.
   TrianglePairIntegrals integrals;
   integrals.scalar = s;
   for (int i = 0; i < 3; ++i)
