@@ -1,36 +1,11 @@
 #include "solver/slab_pair_remainders.hpp"
 
-#include <array>
+#include <cmath>
 
 #include "core/vector_clones.hpp"
 
 namespace lobe {
 namespace {
-
-/// A triangle's points and weights (× area) by one rule.
-struct RulePoints {
-  int count = 0;
-  std::array<Vec3, TriangleQuadrature::points> x;
-  std::array<Real, TriangleQuadrature::points> w;
-};
-
-RulePoints seven_points(const TriangleQuadrature& t) {
-  RulePoints r;
-  r.count = TriangleQuadrature::points;
-  r.x = t.x;
-  r.w = t.w;
-  return r;
-}
-
-RulePoints distant_points(const TriangleQuadrature& t) {
-  RulePoints r;
-  r.count = t.distant.points;
-  for (int b = 0; b < r.count; ++b) {
-    r.x[b] = Vec3(t.distant.x[b], t.distant.y[b], t.distant.z[b]);
-    r.w[b] = t.distant.w[b];
-  }
-  return r;
-}
 
 /// A pair's point pairs by flattened index t: observer point x, source point y, weight.
 struct PointPairs {
@@ -45,6 +20,15 @@ struct RemainderSums {
   Real s_re = 0, s_im = 0, v_re = 0, v_im = 0, xy_re = 0, xy_im = 0;
   Real x_re[3] = {}, x_im[3] = {}, y_re[3] = {}, y_im[3] = {};
 };
+
+/// The point pairs' distances, in vector lanes.
+LOBE_VECTOR_CLONES void measure_distances(PointPairs& pairs, int count) {
+#pragma omp simd
+  for (int t = 0; t < count; ++t) {
+    const Real dx = pairs.x[0][t] - pairs.y[0][t], dy = pairs.x[1][t] - pairs.y[1][t], dz = pairs.x[2][t] - pairs.y[2][t];
+    pairs.distance[t] = std::sqrt(dx * dx + dy * dy + dz * dz);
+  }
+}
 
 LOBE_VECTOR_CLONES RemainderSums sum_remainders(const PointPairs& pairs, const SlabKernelTable::Parts& r, int count) {
   Real s_re = 0, s_im = 0, v_re = 0, v_im = 0, xy_re = 0, xy_im = 0;
@@ -73,17 +57,18 @@ LOBE_VECTOR_CLONES RemainderSums sum_remainders(const PointPairs& pairs, const S
 TrianglePairIntegrals slab_remainder_integrals(const SlabKernelTable& table, const TriangleQuadrature& p,
                                                const TriangleQuadrature& q) {
   const bool distant = triangle_pair_is_distant(p, q);
-  const RulePoints a_points = distant ? distant_points(p) : seven_points(p);
-  const RulePoints b_points = distant ? distant_points(q) : seven_points(q);
-  const int na = a_points.count, nb = b_points.count, count = na * nb;
+  const PointLanes& a_points = distant ? p.distant : p.far;
+  const PointLanes& b_points = distant ? q.distant : q.far;
+  const int na = a_points.points, nb = b_points.points, count = na * nb;
   PointPairs pairs;
   for (int a = 0; a < na; ++a)
     for (int b = 0; b < nb; ++b) {
       const int t = a * nb + b;
-      for (int c = 0; c < 3; ++c) pairs.x[c][t] = a_points.x[a](c), pairs.y[c][t] = b_points.x[b](c);
+      pairs.x[0][t] = a_points.x[a], pairs.x[1][t] = a_points.y[a], pairs.x[2][t] = a_points.z[a];
+      pairs.y[0][t] = b_points.x[b], pairs.y[1][t] = b_points.y[b], pairs.y[2][t] = b_points.z[b];
       pairs.w[t] = a_points.w[a] * b_points.w[b];
-      pairs.distance[t] = (a_points.x[a] - b_points.x[b]).norm();
     }
+  measure_distances(pairs, count);
   SlabKernelTable::Parts remainders;
   table.remainders(pairs.distance, count, remainders);
   const RemainderSums sums = sum_remainders(pairs, remainders, count);
