@@ -106,8 +106,8 @@ void DenseMatrix::settle_mirrors() {
   const Eigen::Index tiles = (n + tile - 1) / tile;
   // Z += M + Mᵀ, tile pair by tile pair below the diagonal. M is left as it is: the next
   // fill's first mirrored term clears it (clear_stale_mirrors), and a factorisation
-  // overwrites it with Z, so writing N² zeros here (a tenth of the fill's time at 2,979
-  // unknowns) is done only where needed.
+  // overwrites it with Z, so its N² zeros (a few per cent of a fill at 2,979 unknowns) are
+  // written only where needed.
 #pragma omp parallel for schedule(dynamic)
   for (Eigen::Index t = 0; t < tiles; ++t) {
     const Eigen::Index c0 = t * tile, columns = std::min(tile, n - c0);

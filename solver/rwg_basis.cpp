@@ -17,12 +17,12 @@ RwgBasis::RwgBasis(const SurfaceMesh& mesh, int first) : m_first(first), m_by_tr
       const int a = mesh.triangles[t][(k + 1) % 3], b = mesh.triangles[t][(k + 2) % 3];
       edges[{std::min(a, b), std::max(a, b)}].emplace_back(static_cast<int>(t), k);
     }
-  std::vector<const std::pair<const std::pair<int, int>, std::vector<std::pair<int, int>>>*> interior;
+  std::vector<decltype(edges)::const_iterator> interior;
   std::vector<Vec3> midpoints;
-  for (const auto& edge : edges) {
-    if (edge.second.size() != 2) continue;
-    interior.push_back(&edge);
-    midpoints.push_back(0.5 * (mesh.vertices[edge.first.first] + mesh.vertices[edge.first.second]));
+  for (auto edge = edges.cbegin(); edge != edges.cend(); ++edge) {
+    if (edge->second.size() != 2) continue;
+    interior.push_back(edge);
+    midpoints.push_back(0.5 * (mesh.vertices[edge->first.first] + mesh.vertices[edge->first.second]));
   }
   // Numbered along a space-filling curve (solver/spatial_order.hpp); m_by_vertices keeps
   // the functions in the order of their vertex pairs, for function_on().

@@ -107,10 +107,12 @@ SlabKernelTable::SlabKernelTable(const GroundedSlab& slab, Real largest_distance
 void SlabKernelTable::split_grids() {
   for (int g = 0; g < 3; ++g) {
     m_first_node[g] = static_cast<int>(m_vector_re.size());
+    m_nodes[g] = static_cast<int>(m_grids[g].values.size());
     for (const SlabRemainders& v : m_grids[g].values) {
       m_vector_re.push_back(v.vector.real()), m_vector_im.push_back(v.vector.imag());
       m_scalar_re.push_back(v.scalar.real()), m_scalar_im.push_back(v.scalar.imag());
     }
+    m_grids[g].values = {};
   }
 }
 
@@ -129,12 +131,12 @@ struct GridParts {
 /// UniformGrid::at, times e^{−jk0ρ}; a distance to each vector lane.
 LOBE_VECTOR_CLONES void read_remainders(const GridParts& t, const Real* rho, int count, Real k0,
                                         SlabKernelTable::Parts& out) {
-  // The grids' constants in locals and the stencil (cubic_stencil's) written out with
-  // selects: conditional loads inside the loop kept it scalar.
+  // The grids' constants in locals, chosen by selects: conditional loads of them inside the
+  // loop kept it scalar.
   const Real end0 = t.end[0], end1 = t.end[1];
   const Real step0 = t.step[0], step1 = t.step[1], step2 = t.step[2];
   const int node0 = t.first_node[0], node1 = t.first_node[1], node2 = t.first_node[2];
-  const int last0 = t.nodes[0] - 4, last1 = t.nodes[1] - 4, last2 = t.nodes[2] - 4;
+  const int nodes0 = t.nodes[0], nodes1 = t.nodes[1], nodes2 = t.nodes[2];
   const Real *vr = t.vector_re, *vi = t.vector_im, *sr = t.scalar_re, *si = t.scalar_im;
 #pragma omp simd
   for (int i = 0; i < count; ++i) {
@@ -142,14 +144,10 @@ LOBE_VECTOR_CLONES void read_remainders(const GridParts& t, const Real* rho, int
     const bool first_grid = r < end0, second_grid = r < end1;
     const Real step = first_grid ? step0 : second_grid ? step1 : step2;
     const int first_node = first_grid ? node0 : second_grid ? node1 : node2;
-    const int last = first_grid ? last0 : second_grid ? last1 : last2;
-    const Real x = r / step;
-    // x ≥ 0: truncation is the floor. Integer clamps: std::floor and a clamp of reals kept
-    // the x86-64-v3 and AVX-512F clones scalar.
-    const int first = std::min(std::max(static_cast<int>(x) - 1, 0), last);
-    const Real u = x - (first + 1), up = u + 1.0, um = u - 1.0, um2 = u - 2.0;
-    const Real w0 = -u * um * um2 / 6.0, w1 = up * um * um2 / 2.0, w2 = -up * u * um2 / 2.0, w3 = up * u * um / 6.0;
-    const int a = first_node + first;
+    const int nodes = first_grid ? nodes0 : second_grid ? nodes1 : nodes2;
+    const CubicStencil s = cubic_stencil(r / step, nodes);
+    const Real w0 = s.weight[0], w1 = s.weight[1], w2 = s.weight[2], w3 = s.weight[3];
+    const int a = first_node + s.first;
     const Real vector_re = w0 * vr[a] + w1 * vr[a + 1] + w2 * vr[a + 2] + w3 * vr[a + 3];
     const Real vector_im = w0 * vi[a] + w1 * vi[a + 1] + w2 * vi[a + 2] + w3 * vi[a + 3];
     const Real scalar_re = w0 * sr[a] + w1 * sr[a + 1] + w2 * sr[a + 2] + w3 * sr[a + 3];
@@ -171,7 +169,7 @@ void SlabKernelTable::remainders(const Real* rho, int count, Parts& out) const {
   for (int g = 0; g < 3; ++g) {
     t.step[g] = m_grids[g].step;
     t.first_node[g] = m_first_node[g];
-    t.nodes[g] = static_cast<int>(m_grids[g].values.size());
+    t.nodes[g] = m_nodes[g];
   }
   read_remainders(t, rho, count, m_slab.k0, out);
 }

@@ -56,23 +56,21 @@ class SlabKernelTable {
   /// The radius up to which the complex images were used, m.
   Real images_reach() const { return m_images_reach; }
   /// How many tabulated points there are.
-  int size() const {
-    return static_cast<int>(m_grids[0].values.size() + m_grids[1].values.size() + m_grids[2].values.size());
-  }
+  int size() const { return static_cast<int>(m_vector_re.size()); }
 
  private:
   using Grid = UniformGrid<SlabRemainders>;
-  /// The grids' values one after another, split into real parts, as remainders() reads them.
+  /// Moves the grids' values into m_vector_re … m_scalar_im, as remainders() reads them.
   void split_grids();
   GroundedSlab m_slab;
   SlabSpectrum m_quasi_static;
   Real m_images_reach = 0.0;
   Real m_reach = 0.0;
-  Grid m_grids[3];  ///< thickness scale, wavelength scale, beyond
-  /// The grids' demodulated values by part, grid after grid (m_grids' node i of grid g at
-  /// m_first_node[g] + i).
+  Grid m_grids[3];  ///< thickness scale, wavelength scale, beyond (their values moved out)
+  /// The grids' demodulated values by part, grid after grid: node i of grid g at
+  /// m_first_node[g] + i, of m_nodes[g].
   std::vector<Real> m_vector_re, m_vector_im, m_scalar_re, m_scalar_im;
-  int m_first_node[3] = {};
+  int m_first_node[3] = {}, m_nodes[3] = {};
 };
 
 /// The table for `slab` reaching at least `largest_distance`, made once and kept: the

@@ -9,15 +9,17 @@
 
 namespace lobe {
 
-/// The stencil for x (in grid steps) on `size` ≥ 4 nodes: the first of four nodes and the
-/// cubic's weights on them, at u = x − (first + 1); clamped to the grid's ends.
+/// The stencil for x ≥ 0 (in grid steps) on `size` ≥ 4 nodes: the first of four nodes and
+/// the cubic's weights on them, at u = x − (first + 1); clamped to the grid's ends. Written
+/// so that a loop around it vectorises: truncation (the floor, for x ≥ 0) and a clamp of
+/// integers (std::floor, or a clamp written with branches, kept such loops scalar).
 struct CubicStencil {
   int first = 0;
   Real weight[4] = {};
 };
-inline CubicStencil cubic_stencil(Real x, int size) {
+[[gnu::always_inline]] inline CubicStencil cubic_stencil(Real x, int size) {
   CubicStencil s;
-  s.first = std::clamp(static_cast<int>(std::floor(x)) - 1, 0, size - 4);
+  s.first = std::min(std::max(static_cast<int>(x) - 1, 0), size - 4);
   const Real u = x - (s.first + 1), up = u + 1.0, um = u - 1.0, um2 = u - 2.0;
   s.weight[0] = -u * um * um2 / 6.0;
   s.weight[1] = up * um * um2 / 2.0;
