@@ -8,8 +8,15 @@ namespace lobe {
 /// zgemm of order `n` on the current BLAS threads, GFLOP/s (median of three).
 double zgemm_gflops(int n);
 
+/// A measured kernel-evaluation rate, and how long its tries ran.
+struct KernelRate {
+  double per_second = 0.0;            ///< evaluations of e^{-jkR}/R per second, all threads
+  double shortest_try_seconds = 0.0;  ///< the shortest of the timed tries
+};
+
 /// Evaluations of e^{-jkR}/R per second over all threads, from a loop over arrays of
-/// points with the vector math library's sine and cosine (best of five).
-double kernel_evaluations_per_second();
+/// points with the vector math library's sine and cosine: the best of five tries, each
+/// lasting at least `shortest_try_seconds`.
+KernelRate kernel_evaluations_per_second(double shortest_try_seconds = 0.1);
 
 }  // namespace lobe
