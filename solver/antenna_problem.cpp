@@ -330,8 +330,14 @@ void require_solvable(const AntennaProblem& problem) {
 
 FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_hz) {
   const std::unique_ptr<SystemMatrix> matrix = make_system_matrix(problem.model, problem.unknowns());
-  assemble_system(problem, frequency_hz, *matrix);
-  matrix->factor();
+  return solve_frequency(problem, frequency_hz, *matrix);
+}
+
+FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_hz, SystemMatrix& matrix) {
+  LOBE_CHECK(matrix.size() == problem.unknowns(), "system matrix of the wrong size");
+  matrix.clear();
+  assemble_system(problem, frequency_hz, matrix);
+  matrix.factor();
 
   // One solve for every port's unit drive and the wave.
   const auto ports = static_cast<Eigen::Index>(problem.model.ports.size());
@@ -341,7 +347,7 @@ FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_
   if (lit) rhs.col(ports) = plane_wave_vector(problem, incident_wave(*problem.model.wave), frequency_hz);
   FrequencySolution solution;
   solution.frequency_hz = frequency_hz;
-  const ComplexMatrix responses = matrix->solve(rhs, solution.report);
+  const ComplexMatrix responses = matrix.solve(rhs, solution.report);
   const ComplexMatrix drives = rhs.leftCols(ports);
   const auto unit_responses = responses.leftCols(ports);
   solution.port_admittance = drives.transpose() * unit_responses;

@@ -89,6 +89,9 @@ struct FrequencySolution {
 /// Throws NumericalError on a singular matrix or non-finite results. Cost: O((S + T)²)
 /// fill, O(N³/3) factorisation.
 FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_hz);
+/// The same in `matrix` (of the problem's size), cleared first: a loop over frequencies
+/// reuses one.
+FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_hz, SystemMatrix& matrix);
 
 /// The surface current density at the centroid of every triangle, A/m (junction stars
 /// included), for the solved coefficients.

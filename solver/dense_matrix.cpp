@@ -43,14 +43,31 @@ void require_system_memory(const Model& model, double unknowns, bool estimated) 
 
 DenseMatrix::DenseMatrix(Eigen::Index n) : m_entries(n, n), m_original(n, n) {
   use_fastest_blas_kernels();
-  // Both buffers are written column by column, in parallel, so that every page is really
-  // allocated before the fill and the copy in factor(): a first write later would fault
-  // with a TLB shootdown across cores, measured here to double the fill time.
+  // Both buffers are written at once, so that every page is really allocated before the
+  // fill and the copy in factor(): a first write later would fault with a TLB shootdown
+  // across cores, measured here to double the fill time.
+  zero_buffers();
+}
+
+void DenseMatrix::zero_buffers() {
+  const Eigen::Index n = size();
 #pragma omp parallel for schedule(static)
   for (Eigen::Index c = 0; c < n; ++c) {
     m_entries.col(c).setZero();
     m_original.col(c).setZero();
   }
+}
+
+void DenseMatrix::clear() {
+  if (!m_pristine) zero_buffers();
+  m_pristine = true;
+  m_factored = false;
+  m_mirrors_pending = false;
+  m_mirrors_stale = false;
+  m_factorization = Factorization::lu;
+  m_pivots.clear();
+  m_symmetric_pivots = {};
+  m_reciprocal_condition = 0.0;
 }
 
 void DenseMatrix::add(std::span<const MatrixContribution> terms) {
@@ -72,6 +89,7 @@ void DenseMatrix::add(std::span<const MatrixContribution> terms) {
     mirrored = mirrored || c.mirror;
   }
   if (mirrored) clear_stale_mirrors();
+  if (!terms.empty()) m_pristine.store(false, std::memory_order_relaxed);
   for (std::size_t s = 0; s < column_lock_count; ++s)
     if (stripes.test(s)) m_column_locks[s].lock();
   for (const MatrixContribution& c : terms) {
@@ -92,6 +110,7 @@ void DenseMatrix::add_mirrored_column(int column, int first_row, std::span<const
   LOBE_CHECK(!m_factored, "terms added to a factored matrix");
   if (values.empty()) return;
   clear_stale_mirrors();
+  m_pristine.store(false, std::memory_order_relaxed);
   const std::lock_guard<std::mutex> lock(column_lock(column));
   // Where add() keeps a mirrored term of the observing function `column`: down its column.
   m_original.col(column).segment(first_row, static_cast<Eigen::Index>(values.size())) +=
@@ -218,6 +237,7 @@ bool DenseMatrix::factor_symmetric_checked(Real norm1) {
 
 void DenseMatrix::factor() {
   LOBE_CHECK(!m_factored, "matrix factored twice");
+  m_pristine = false;
   const auto n = static_cast<lapack_int>(size());
   settle_mirrors();
   if (!m_entries.allFinite()) throw NumericalError("the system matrix has non-finite entries");

@@ -22,6 +22,7 @@ class DenseMatrix final : public SystemMatrix {
  public:
   explicit DenseMatrix(Eigen::Index n);
   Eigen::Index size() const override { return m_entries.rows(); }
+  void clear() override;
   /// The entries, with every term added so far (full square).
   ComplexMatrix& entries();
   void add(std::span<const MatrixContribution> terms) override;
@@ -38,6 +39,8 @@ class DenseMatrix final : public SystemMatrix {
   /// Factors m_entries (a copy of m_original, of 1-norm `norm1`) by LDLᵀ; false, with
   /// m_entries restored, when the factors fail the backward-error check.
   bool factor_symmetric_checked(Real norm1);
+  /// Writes zeros to both buffers, column by column in parallel.
+  void zero_buffers();
   /// Adds the mirrored terms held in m_original (see add()) to m_entries.
   void settle_mirrors();
   /// Zeros m_original when it still holds mirrors settle_mirrors() has added; safe to call
@@ -58,6 +61,7 @@ class DenseMatrix final : public SystemMatrix {
   SymmetricPivots m_symmetric_pivots;
   Real m_reciprocal_condition = 0.0;
   bool m_factored = false;
+  std::atomic<bool> m_pristine = true;  ///< both buffers zero: nothing added or factored since
   std::atomic<bool> m_mirrors_pending = false;
   std::atomic<bool> m_mirrors_stale = false;  ///< m_original holds settled mirrors, not zeros
   std::mutex m_clearing;

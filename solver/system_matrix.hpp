@@ -45,6 +45,10 @@ class SystemMatrix {
  public:
   virtual ~SystemMatrix() = default;
   virtual Eigen::Index size() const = 0;
+  /// Makes the matrix ready for a new fill, every entry zero and no factors, in the memory
+  /// it has: a frequency loop reuses one matrix (allocating and first touching a dense
+  /// matrix took half a fill's time at 2,979 unknowns).
+  virtual void clear() = 0;
   /// Adds terms during the fill; may be called from several threads at once.
   virtual void add(std::span<const MatrixContribution> terms) = 0;
   /// Adds values[i] at (first_row + i, column) and at (column, first_row + i): one observing

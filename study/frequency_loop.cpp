@@ -3,6 +3,7 @@
 #include <atomic>
 #include <exception>
 #include <map>
+#include <memory>
 #include <mutex>
 #include <stdexcept>
 #ifdef _OPENMP
@@ -10,6 +11,7 @@
 #endif
 
 #include "post/run_summary.hpp"
+#include "solver/system_matrix.hpp"
 #include "solver/threads.hpp"
 #include "study/adaptive_frequencies.hpp"
 #include "study/process_ranks.hpp"
@@ -90,11 +92,13 @@ bool solve_frequencies(const AntennaProblem& problem, const std::vector<std::siz
   const std::vector<Real>& frequencies = problem.model.frequencies_hz;
   const std::size_t count = indices.size();
   const int threads = thread_count();
+  if (count == 0) return true;
   if (threads < 2 || count < 2 || problem.unknowns() > largest_problem_side_by_side || inside_parallel_region()) {
+    const std::unique_ptr<SystemMatrix> matrix = make_system_matrix(problem.model, problem.unknowns());
     for (std::size_t n = 0; n < count; ++n) {
       if (control.cancelled()) return false;
       const std::size_t i = indices[n];
-      use(i, solve_frequency(problem, frequencies[i]));
+      use(i, solve_frequency(problem, frequencies[i], *matrix));
       if (control.progress) control.progress(n + 1, count, n + 1, frequency_text(frequencies[i]));
     }
     return true;
@@ -105,23 +109,28 @@ bool solve_frequencies(const AntennaProblem& problem, const std::vector<std::siz
   std::mutex progress_guard;
   std::size_t done = 0;
   std::exception_ptr failure;
-#pragma omp parallel for schedule(dynamic, 1) num_threads(threads)
-  for (std::size_t n = 0; n < count; ++n) {
-    if (stopped.load()) continue;
-    if (control.cancelled()) {
-      stopped.store(true);
-      continue;
-    }
-    try {
-      const std::size_t i = indices[n];
-      use(i, solve_frequency(problem, frequencies[i]));
-      const std::lock_guard<std::mutex> lock(progress_guard);
-      ++done;
-      if (control.progress) control.progress(done, count, done, frequency_text(frequencies[i]));
-    } catch (...) {
-      const std::lock_guard<std::mutex> lock(progress_guard);
-      if (!failure) failure = std::current_exception();
-      stopped.store(true);
+#pragma omp parallel num_threads(threads)
+  {
+    std::unique_ptr<SystemMatrix> matrix;  // one a thread, made at its first frequency
+#pragma omp for schedule(dynamic, 1)
+    for (std::size_t n = 0; n < count; ++n) {
+      if (stopped.load()) continue;
+      if (control.cancelled()) {
+        stopped.store(true);
+        continue;
+      }
+      try {
+        const std::size_t i = indices[n];
+        if (!matrix) matrix = make_system_matrix(problem.model, problem.unknowns());
+        use(i, solve_frequency(problem, frequencies[i], *matrix));
+        const std::lock_guard<std::mutex> lock(progress_guard);
+        ++done;
+        if (control.progress) control.progress(done, count, done, frequency_text(frequencies[i]));
+      } catch (...) {
+        const std::lock_guard<std::mutex> lock(progress_guard);
+        if (!failure) failure = std::current_exception();
+        stopped.store(true);
+      }
     }
   }
   set_thread_count(threads);

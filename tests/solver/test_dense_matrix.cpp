@@ -6,6 +6,8 @@
 #include <stdexcept>
 #include <vector>
 
+#include "geometry/model_parser.hpp"
+#include "solver/antenna_problem.hpp"
 #include "solver/dense_matrix.hpp"
 
 namespace lobe {
@@ -85,6 +87,27 @@ TEST(DenseMatrix, RefusesTermsOnceFactored) {
   EXPECT_THROW(matrix.add(diagonal), std::logic_error);
   const std::vector<Complex> column{1.0};
   EXPECT_THROW(matrix.add_mirrored_column(0, 1, column), std::logic_error);
+}
+
+// A frequency loop fills, factors and solves one matrix after another in the same memory:
+// each solve must be the one a new matrix gives (a plate with a monopole over the ground:
+// mirrored triangle columns, wire lists, images and a junction).
+TEST(DenseMatrix, AClearedMatrixSolvesAsANewOne) {
+  const Model model = parse_model(
+      "units m\nground perfect\nplate deck rectangle corner (-0.3, -0.3, 0.1) size (0.6, 0.6)\nmesh deck size 0.1\n"
+      "wire whip from (0, 0, 0.1) to (0, 0, 0.35) radius 2e-3 segments 5\nport feed on whip at start\n"
+      "frequency 250 MHz to 350 MHz count 3\n",
+      "reuse");
+  const AntennaProblem problem(model);
+  DenseMatrix reused(problem.unknowns());
+  for (const Real f : model.frequencies_hz) {
+    const FrequencySolution fresh = solve_frequency(problem, f);
+    const FrequencySolution again = solve_frequency(problem, f, reused);
+    EXPECT_LT((again.coefficients - fresh.coefficients).norm(), 1e-12 * fresh.coefficients.norm()) << f;
+    EXPECT_LT(std::abs(again.port_admittance(0, 0) - fresh.port_admittance(0, 0)),
+              1e-12 * std::abs(fresh.port_admittance(0, 0)))
+        << f;
+  }
 }
 
 }  // namespace
