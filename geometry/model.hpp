@@ -57,23 +57,73 @@ struct PlateLine {
   Vec3 to = Vec3::Zero();
 };
 
-/// A port on a wire (at `position`) or across a line on a plate (`line`).
+/// A port on a wire (at `position`), across a line on a plate (`line`) or at a free point
+/// of the feed network (`node`, e.g. a feed line's connector end).
 struct Port {
   std::string name;
   SourceLocation where;
   WirePosition position;
   std::optional<PlateLine> line;
+  std::string node;  ///< a free point of the feed network; empty on a wire or plate
   Complex voltage{1.0, 0.0};  ///< V, amplitude and phase
 };
 
-struct Load {
-  std::string name;
-  SourceLocation where;
-  WirePosition position;
+/// A lumped part's values: R, L and C in series, or in parallel.
+struct LumpedValues {
   Real resistance = 0.0;                 ///< ohm
   Real inductance = 0.0;                 ///< H
   std::optional<Real> capacitance;       ///< F; none means no capacitor
   bool parallel = false;                 ///< parallel RLC instead of series
+};
+
+/// A lumped part in a wire, at a gap (across the gap, seen from a feed network there).
+struct Load {
+  std::string name;
+  SourceLocation where;
+  WirePosition position;
+  LumpedValues values;
+};
+
+/// One end of a feed-network element: a gap on a wire (between two of its segments, the
+/// wire's direction the positive sense of current, as for a port) or a free connection
+/// point named in the model, where the network's own elements meet.
+struct CircuitEnd {
+  std::optional<WirePosition> wire;
+  std::string node;  ///< when not on a wire
+  SourceLocation where;
+};
+
+/// A line's attenuation, dB per metre: a √f (conductor loss, skin effect) + b f (dielectric
+/// loss), from one or two points of a cable's data sheet.
+struct LineLoss {
+  Real conductor = 0.0;   ///< a, dB/m/√Hz
+  Real dielectric = 0.0;  ///< b, dB/m/Hz
+  Real db_per_metre(Real frequency_hz) const;
+};
+
+enum class NetworkKind {
+  line,         ///< a transmission line between two ends
+  stub,         ///< a line hung at one end, open or shorted at its far end
+  transformer,  ///< an ideal transformer (a balun) between two ends
+  lumped,       ///< R, L, C in series between two ends, or across one end
+};
+
+/// A part of the feed network. Everything joined at one end is in parallel across it.
+struct NetworkElement {
+  std::string name;
+  SourceLocation where;
+  NetworkKind kind = NetworkKind::line;
+  std::vector<CircuitEnd> ends;  ///< from, to; a stub and a part across one end have one
+  // Lines and stubs. The characteristic impedance is real (the low-loss approximation).
+  Real impedance = 0.0;           ///< ohm
+  Real length = 0.0;              ///< m
+  Real velocity_factor = 1.0;
+  LineLoss loss;
+  bool crossed = false;           ///< a line's conductors swap between its ends
+  bool shorted = false;           ///< a stub's far end
+  /// Transformer: the impedance seen at `from` is the one at `to` divided by this.
+  Real ratio = 1.0;
+  LumpedValues part;  ///< lumped
 };
 
 /// An incident plane wave, arriving from direction (θ, φ), its electric field along θ̂ or
@@ -128,6 +178,7 @@ struct Model {
   std::optional<PlaneWave> wave;
   std::vector<Port> ports;
   std::vector<Load> loads;
+  std::vector<NetworkElement> network;  ///< lines, stubs, transformers and parts between ends
   bool ground_perfect = false;
   std::optional<Substrate> substrate;  ///< implies ground_perfect
   std::vector<Real> frequencies_hz;

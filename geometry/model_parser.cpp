@@ -21,7 +21,7 @@ constexpr double max_pattern_rows = 5e7;
 
 const std::set<std::string, std::less<>> statement_words = {
     "units", "let", "wire", "arc", "helix", "copy", "shift", "turn", "mirror", "port", "cut",
-    "load", "conductor", "ground", "frequency", "reference", "band", "pattern", "plate", "sphere", "box", "mesh", "wave"};
+    "load", "line", "stub", "transformer", "conductor", "ground", "frequency", "reference", "band", "pattern", "plate", "sphere", "box", "mesh", "wave"};
 
 std::string quoted(const Token& t) {
   return t.kind == TokenKind::end ? std::string("the end of the line") : "'" + t.text + "'";
@@ -111,6 +111,9 @@ class ModelParser {
     else if (k == "mirror") mirror(c);
     else if (k == "port") port(c, keyword);
     else if (k == "load") load(c, keyword);
+    else if (k == "line") line(c, keyword);
+    else if (k == "stub") stub(c, keyword);
+    else if (k == "transformer") transformer(c, keyword);
     else if (k == "conductor") conductor(c);
     else if (k == "ground") ground(c, keyword);
     else if (k == "substrate") substrate(c, keyword);
@@ -126,7 +129,8 @@ class ModelParser {
     else if (k == "wave") wave(c, keyword);
     else
       throw InputError(keyword.where, "unknown statement '" + k + "'; statements are: units let wire arc helix plate "
-                                      "cut sphere box copy shift turn mirror mesh port load conductor ground substrate wave "
+                                      "cut sphere box copy shift turn mirror mesh port load line stub transformer conductor ground "
+                                      "substrate wave "
                                       "frequency reference band pattern");
     end_of_statement(c);
   }
@@ -515,7 +519,11 @@ class ModelParser {
 
   WirePosition position(TokenCursor& c) {
     c.expect_word("on", "after the name");
-    const Token& wire_name = c.expect_name("a wire name");
+    return position_on(c, c.expect_name("a wire name"));
+  }
+
+  /// The position on the wire just named: `at start|middle|end|FRACTION`.
+  WirePosition position_on(TokenCursor& c, const Token& wire_name) {
     WirePosition p{wire_name.text, wire_name.where, 0.5};
     c.expect_word("at", "after the wire name");
     if (c.accept_word("start")) p.fraction = 0.0;
@@ -548,6 +556,10 @@ class ModelParser {
       line.to = point(c);
       if ((line.to - line.from).norm() == 0.0) throw InputError(to.where, "a port line needs two different points");
       p.line = line;
+    } else if (c.accept_word("at")) {
+      const Token& node = c.expect_name("the name of a free point of the feed network");
+      p.node = node.text;
+      m_node_uses.push_back({node.text, node.where, "port '" + p.name + "'"});
     } else {
       p.position = position(c);
     }
@@ -564,14 +576,33 @@ class ModelParser {
     m_model.ports.push_back(p);
   }
 
+  /// load NAME on WIRE at POS | at NODE | from END to END, then its values.
   void load(TokenCursor& c, const Token& keyword) {
     Load l;
     const Token& name = c.expect_name("a load name");
-    for (const auto& other : m_model.loads)
-      if (other.name == name.text) throw InputError(name.where, "a load named '" + name.text + "' already exists");
+    require_new_part_name(name);
     l.name = name.text;
     l.where = keyword.where;
-    l.position = position(c);
+    NetworkElement part;
+    if (c.peek_word("on")) {
+      l.position = position(c);
+    } else {
+      part.name = l.name;
+      part.where = l.where;
+      part.kind = NetworkKind::lumped;
+      part.ends = c.peek_word("from") ? two_ends(c, part.name) : std::vector<CircuitEnd>{one_end(c, part.name)};
+    }
+    l.values = lumped_values(c, keyword, l.name);
+    if (part.ends.empty()) {
+      m_model.loads.push_back(l);
+    } else {
+      part.part = l.values;
+      m_model.network.push_back(part);
+    }
+  }
+
+  LumpedValues lumped_values(TokenCursor& c, const Token& keyword, const std::string& name) {
+    LumpedValues l;
     std::set<std::string> seen;
     bool any = false;
     while (!c.at_end()) {
@@ -593,10 +624,187 @@ class ModelParser {
                                            "; a load takes resistance, inductance, capacitance and series or parallel");
       any = true;
     }
-    if (!any) throw InputError(keyword.where, "load '" + l.name + "' needs a resistance, inductance or capacitance");
+    if (!any) throw InputError(keyword.where, "load '" + name + "' needs a resistance, inductance or capacitance");
     if (l.parallel && ((seen.count("resistance") && l.resistance == 0.0) || (seen.count("inductance") && l.inductance == 0.0)))
       throw InputError(keyword.where, "a parallel load with a zero resistance or inductance is a short circuit; leave it out");
-    m_model.loads.push_back(l);
+    return l;
+  }
+
+  // ---- feed network ------------------------------------------------------------------
+  /// Loads, lines, stubs and transformers share one namespace: results name them.
+  void require_new_part_name(const Token& name) const {
+    for (const auto& other : m_model.loads)
+      if (other.name == name.text) throw InputError(name.where, "a load named '" + name.text + "' already exists");
+    for (const auto& other : m_model.network)
+      if (other.name == name.text) throw InputError(name.where, "a part named '" + name.text + "' already exists");
+  }
+
+  /// `WIRE at POSITION` (a gap on a wire) or `NODE` (a free point of the network).
+  CircuitEnd circuit_end(TokenCursor& c, const std::string& part) {
+    const Token& name = c.expect_name("a wire name with 'at POSITION', or the name of a free point");
+    CircuitEnd end;
+    end.where = name.where;
+    if (c.peek_word("at")) {
+      end.wire = position_on(c, name);
+    } else {
+      end.node = name.text;
+      m_node_uses.push_back({name.text, name.where, "'" + part + "'"});
+    }
+    return end;
+  }
+
+  /// `on WIRE at POSITION` or `at NODE`: where a stub or a part across one end sits.
+  CircuitEnd one_end(TokenCursor& c, const std::string& part) {
+    if (c.peek_word("on")) {
+      CircuitEnd end;
+      end.where = c.peek(1).where;
+      end.wire = position(c);
+      return end;
+    }
+    c.expect_word("at", "after the name (or 'on WIRE at POSITION')");
+    CircuitEnd end;
+    const Token& node = c.expect_name("the name of a free point of the feed network");
+    end.where = node.where;
+    end.node = node.text;
+    m_node_uses.push_back({node.text, node.where, "'" + part + "'"});
+    return end;
+  }
+
+  /// `from END to END`, two different places.
+  std::vector<CircuitEnd> two_ends(TokenCursor& c, const std::string& part) {
+    c.expect_word("from", "after the name");
+    CircuitEnd from = circuit_end(c, part);
+    c.expect_word("to", "after the first end");
+    CircuitEnd to = circuit_end(c, part);
+    const bool same_wire_place = from.wire && to.wire && from.wire->wire == to.wire->wire &&
+                                 from.wire->fraction == to.wire->fraction;
+    if (same_wire_place || (!from.wire && !to.wire && from.node == to.node))
+      throw InputError(to.where, "'" + part + "' joins a place to itself; its two ends must differ");
+    return {from, to};
+  }
+
+  /// impedance Z0 length L velocity VF [loss ...]: what a line and a stub share, in any
+  /// order among the options of `extra` (handled by the caller, which returns false for a
+  /// word it does not know).
+  template <typename Extra>
+  void line_values(TokenCursor& c, const Token& keyword, NetworkElement& e, Extra extra) {
+    std::set<std::string> seen;
+    while (!c.at_end()) {
+      const Token& option = c.next();
+      if (!seen.insert(option.text).second) throw InputError(option.where, "'" + option.text + "' is given twice");
+      if (option.text == "impedance") {
+        const Token& at = c.peek();
+        e.impedance = quantity_in(c, dimension::resistance, 1.0, "a characteristic impedance").value;
+        if (!(e.impedance > 0.0 && e.impedance <= 1e4))
+          throw InputError(at.where, "the characteristic impedance must be above 0 and at most 10 kohm");
+      } else if (option.text == "length") {
+        e.length = positive_length(c, "the line's length");
+      } else if (option.text == "velocity") {
+        const Token& at = c.peek();
+        e.velocity_factor = plain(c, "a velocity factor").value;
+        if (!(e.velocity_factor > 0.0 && e.velocity_factor <= 1.0))
+          throw InputError(at.where, "the velocity factor is the speed on the line over the speed of light: above 0, "
+                                     "at most 1 (solid polyethylene coax 0.66, foam 0.8 to 0.85, air-spaced 1)");
+      } else if (option.text == "loss") {
+        e.loss = line_loss(c);
+      } else if (!extra(option)) {
+        throw InputError(option.where, "unexpected " + quoted(option) + "; '" + e.name +
+                                           "' takes impedance, length, velocity, loss" +
+                                           (e.kind == NetworkKind::stub ? " and open or short" : " and crossed"));
+      }
+    }
+    for (const char* needed : {"impedance", "length", "velocity"})
+      if (!seen.count(needed))
+        throw InputError(keyword.where, "'" + e.name + "' needs its " + needed +
+                                            (std::string(needed) == "velocity" ? " factor (1 for an air line)" : ""));
+  }
+
+  /// A data sheet's attenuation: `A dB per LENGTH at F` once (taken as conductor loss, ∝ √f)
+  /// or twice joined by `and` (split into conductor and dielectric loss, a √f + b f).
+  LineLoss line_loss(TokenCursor& c) {
+    struct Point {
+      Real f, db_per_metre;
+      SourceLocation where;
+    };
+    auto point = [&] {
+      const Token& at = c.peek();
+      const Real db = plain(c, "a loss in dB").value;
+      c.expect_word("dB", "after the loss");
+      c.expect_word("per", "after 'dB'");
+      const Real per = positive_length(c, "the length the loss is given for");
+      c.expect_word("at", "after the length");
+      const Real f = frequency_value(c);
+      if (!(db >= 0.0) || db / per > 1000.0)
+        throw InputError(at.where, "a line's loss must be from 0 to 1000 dB per metre");
+      return Point{f, db / per, at.where};
+    };
+    const Point first = point();
+    LineLoss loss;
+    if (!c.accept_word("and")) {
+      loss.conductor = first.db_per_metre / std::sqrt(first.f);
+      return loss;
+    }
+    const Point second = point();
+    if (second.f == first.f) throw InputError(second.where, "the two loss points need different frequencies");
+    // a √f1 + b f1 = A1, a √f2 + b f2 = A2.
+    const Real s1 = std::sqrt(first.f), s2 = std::sqrt(second.f);
+    const Real det = s1 * second.f - s2 * first.f;
+    loss.conductor = (first.db_per_metre * second.f - second.db_per_metre * first.f) / det;
+    loss.dielectric = (s1 * second.db_per_metre - s2 * first.db_per_metre) / det;
+    if (loss.conductor < 0.0 || loss.dielectric < 0.0)
+      throw InputError(second.where, "these two loss points do not fit a sqrt(f) conductor loss plus an f dielectric "
+                                     "loss, both positive; check them against the data sheet, or give one point");
+    return loss;
+  }
+
+  /// line NAME from END to END impedance Z0 length L velocity VF [loss ...] [crossed]
+  void line(TokenCursor& c, const Token& keyword) {
+    NetworkElement e;
+    const Token& name = c.expect_name("a line name");
+    require_new_part_name(name);
+    e.name = name.text;
+    e.where = keyword.where;
+    e.kind = NetworkKind::line;
+    e.ends = two_ends(c, e.name);
+    line_values(c, keyword, e, [&](const Token& option) { return option.text == "crossed" && (e.crossed = true); });
+    m_model.network.push_back(e);
+  }
+
+  /// stub NAME (on WIRE at POS | at NODE) impedance Z0 length L velocity VF (open | short) [loss ...]
+  void stub(TokenCursor& c, const Token& keyword) {
+    NetworkElement e;
+    const Token& name = c.expect_name("a stub name");
+    require_new_part_name(name);
+    e.name = name.text;
+    e.where = keyword.where;
+    e.kind = NetworkKind::stub;
+    e.ends = {one_end(c, e.name)};
+    int terminations = 0;
+    line_values(c, keyword, e, [&](const Token& option) {
+      if (option.text != "open" && option.text != "short") return false;
+      if (++terminations > 1) throw InputError(option.where, "a stub is either open or short at its far end");
+      e.shorted = option.text == "short";
+      return true;
+    });
+    if (terminations == 0) throw InputError(keyword.where, "stub '" + e.name + "' needs 'open' or 'short' (its far end)");
+    m_model.network.push_back(e);
+  }
+
+  /// transformer NAME from END to END ratio R: the impedance at `to` is R times that at `from`.
+  void transformer(TokenCursor& c, const Token& keyword) {
+    NetworkElement e;
+    const Token& name = c.expect_name("a transformer name");
+    require_new_part_name(name);
+    e.name = name.text;
+    e.where = keyword.where;
+    e.kind = NetworkKind::transformer;
+    e.ends = two_ends(c, e.name);
+    c.expect_word("ratio", "after the ends (the impedance ratio, 'to' over 'from', e.g. 4 for a 4:1 balun)");
+    const Token& at = c.peek();
+    e.ratio = plain(c, "an impedance ratio").value;
+    if (!(e.ratio >= 1e-3 && e.ratio <= 1e3))
+      throw InputError(at.where, "the impedance ratio must be from 0.001 to 1000, got " + number_text(e.ratio));
+    m_model.network.push_back(e);
   }
 
   void conductor(TokenCursor& c) {
@@ -888,6 +1096,7 @@ class ModelParser {
       if (const ObjectIndex* o = object(p.wire); !o || !o->wire) throw InputError(p.wire_where, "there is no wire named '" + p.wire + "'");
     };
     for (const auto& p : m_model.ports) {
+      if (!p.node.empty()) continue;
       if (!p.line) {
         check_position(p.position);
         continue;
@@ -898,10 +1107,41 @@ class ModelParser {
         throw InputError(p.line->plate_where, "'" + p.line->plate + "' is a closed body; a port line goes across a plate");
     }
     for (const auto& l : m_model.loads) check_position(l.position);
+    for (const auto& e : m_model.network)
+      for (const auto& end : e.ends)
+        if (end.wire) check_position(*end.wire);
+    check_free_points();
   }
+
+  /// A free point joins at least two things (a port counts); its name is not a wire's or a
+  /// plate's, which would read as a place on it.
+  void check_free_points() const {
+    std::map<std::string, std::vector<const NodeUse*>> uses;
+    for (const NodeUse& use : m_node_uses) uses[use.node].push_back(&use);
+    for (const auto& [node, list] : uses) {
+      const NodeUse& first = *list.front();
+      if (object(node))
+        throw InputError(first.where, "'" + node + "' is a wire or plate; a place on it is written '" + node +
+                                          " at POSITION'");
+      int ports = 0;
+      for (const NodeUse* use : list) ports += use->by.rfind("port", 0) == 0;
+      if (ports > 1) throw InputError(list.back()->where, "two ports at free point '" + node + "'; one source per point");
+      if (list.size() < 2)
+        throw InputError(first.where, "free point '" + node + "' is used only by " + first.by +
+                                          "; a free point joins two or more parts or ports (a misspelt name?)");
+    }
+  }
+
+  /// A free point of the feed network, where it is named and by what.
+  struct NodeUse {
+    std::string node;
+    SourceLocation where;
+    std::string by;
+  };
 
   std::string m_file;
   Model m_model;
+  std::vector<NodeUse> m_node_uses;
   SymbolTable m_symbols;
   std::map<std::string, Override> m_overrides;
   std::unordered_map<std::string, ObjectIndex> m_objects;

@@ -172,9 +172,13 @@ class Mesher {
     std::vector<std::vector<Real>> required(m_model.wires.size());
     for (std::size_t w = 0; w < m_model.wires.size(); ++w) {
       for (const auto& p : m_model.ports)
-        if (!p.line && p.position.wire == m_model.wires[w].name) required[w].push_back(p.position.fraction);
+        if (!p.line && p.node.empty() && p.position.wire == m_model.wires[w].name)
+          required[w].push_back(p.position.fraction);
       for (const auto& l : m_model.loads)
         if (l.position.wire == m_model.wires[w].name) required[w].push_back(l.position.fraction);
+      for (const auto& e : m_model.network)
+        for (const auto& end : e.ends)
+          if (end.wire && end.wire->wire == m_model.wires[w].name) required[w].push_back(end.wire->fraction);
     }
     mesh_all(required, target);
     // Points where another wire's end or a plate meets a wire between its nodes become
@@ -186,8 +190,11 @@ class Mesher {
     count_junctions();
     m_mesh.port_gaps.reserve(m_model.ports.size());
     for (const auto& p : m_model.ports)
-      if (!p.line) m_mesh.port_gaps.push_back(gap(p.position, p.where, "port " + p.name));
+      if (!p.line && p.node.empty()) m_mesh.port_gaps.push_back(gap(p.position, p.where, "port " + p.name));
     for (const auto& l : m_model.loads) m_mesh.load_gaps.push_back(gap(l.position, l.where, "load " + l.name));
+    for (const auto& e : m_model.network)
+      for (const auto& end : e.ends)
+        if (end.wire) m_mesh.network_gaps.push_back(gap(*end.wire, end.where, "'" + e.name + "'"));
     check_segments(wavelength);
     check_crossings();
     return std::move(m_mesh);
@@ -537,7 +544,7 @@ class Mesher {
 WireMesh mesh_wires(const Model& model) { return Mesher(model).run(); }
 
 void require_current_at_gaps(const WireMesh& mesh, const std::vector<bool>& attached) {
-  for (const auto* gaps : {&mesh.port_gaps, &mesh.load_gaps})
+  for (const auto* gaps : {&mesh.port_gaps, &mesh.load_gaps, &mesh.network_gaps})
     for (const Gap& g : *gaps) {
       const MeshNode& node = mesh.nodes[g.node];
       if (node.ends.size() == 1 && !node.on_ground && (attached.empty() || !attached[g.node]))

@@ -50,6 +50,9 @@ struct WireMesh {
   std::vector<MeshNode> nodes;
   std::vector<Gap> port_gaps;  ///< one per wire port of Model::ports, same order
   std::vector<Gap> load_gaps;  ///< one per Model::loads, same order
+  /// One per end on a wire of Model::network's elements, in the order of the elements and
+  /// of their ends.
+  std::vector<Gap> network_gaps;
   std::vector<MeshWarning> warnings;
   int junction_count = 0;      ///< nodes where three or more ends meet, or a wire meets the ground
 };

@@ -1,5 +1,7 @@
 #include "post/power_budget.hpp"
 
+#include <algorithm>
+
 #include "solver/stamps.hpp"
 #include "solver/surface_loss.hpp"
 
@@ -18,15 +20,32 @@ PowerBudget power_budget(const AntennaProblem& problem, const FrequencySolution&
     budget.conductor_loss += 0.5 * r * squared;
   }
   budget.conductor_loss += stamp_power(surface_loss_stamp(problem, solution.frequency_hz), solution.coefficients);
-  for (Real p : load_powers(problem, solution)) budget.load_loss += p;
+  const std::vector<Real> loads = load_powers(problem, solution);
+  for (std::size_t l = 0; l < loads.size(); ++l)
+    if (problem.network.load_is_stamped(l)) budget.load_loss += loads[l];
+  const std::vector<Real> network = network_powers(problem, solution);
+  for (std::size_t e = 0; e < network.size(); ++e)
+    (problem.network.element_is_lumped(e) ? budget.load_loss : budget.line_loss) += network[e];
   return budget;
+}
+
+std::vector<Real> network_powers(const AntennaProblem& problem, const FrequencySolution& solution) {
+  if (problem.network.empty()) return {};
+  return problem.network.element_powers(solution.network_voltages, solution.network_currents);
 }
 
 std::vector<Real> load_powers(const AntennaProblem& problem, const FrequencySolution& solution) {
   std::vector<Real> powers;
+  const std::vector<Real> network = network_powers(problem, solution);
   for (std::size_t l = 0; l < problem.model.loads.size(); ++l) {
+    if (!problem.network.load_is_stamped(l)) {
+      const auto& joined = problem.network.joined_loads();
+      const std::size_t k = std::find(joined.begin(), joined.end(), l) - joined.begin();
+      powers.push_back(network[problem.network.element_count() - joined.size() + k]);
+      continue;
+    }
     const Complex current = problem.load_vectors.col(static_cast<Eigen::Index>(l)).cast<Complex>().dot(solution.coefficients);
-    powers.push_back(0.5 * std::norm(current) * load_impedance(problem.model.loads[l], solution.frequency_hz).real());
+    powers.push_back(0.5 * std::norm(current) * load_impedance(problem.model.loads[l].values, solution.frequency_hz).real());
   }
   return powers;
 }

@@ -238,6 +238,23 @@ Eigen::VectorXd line_vector(const Model& model, const Port& port, const std::vec
   return p;
 }
 
+/// Ports on the antenna whose couplings are dependent (two at one place, or one on every
+/// wire of a junction) have no port impedance matrix: refused here rather than divided by
+/// zero. Ports at free points of a feed network have no coupling and are not among them.
+void require_independent_ports(const Model& model, const Eigen::MatrixXd& port_vectors) {
+  std::vector<Eigen::Index> on_antenna;
+  for (std::size_t p = 0; p < model.ports.size(); ++p)
+    if (model.ports[p].node.empty()) on_antenna.push_back(static_cast<Eigen::Index>(p));
+  const Eigen::MatrixXd couplings = port_vectors(Eigen::all, on_antenna);
+  if (couplings.cols() == 0 || Eigen::FullPivLU<Eigen::MatrixXd>(couplings).rank() == couplings.cols()) return;
+  for (Eigen::Index k = 1; k < couplings.cols(); ++k)
+    if (Eigen::FullPivLU<Eigen::MatrixXd>(couplings.leftCols(k + 1)).rank() < k + 1) {
+      const Port& port = model.ports[on_antenna[k]];
+      throw InputError(port.where, "port '" + port.name + "' is not independent of the ports before it (two ports at "
+                                                         "one place, or a port on every wire of one junction)");
+    }
+}
+
 }  // namespace
 
 AntennaProblem::AntennaProblem(const Model& m) : AntennaProblem(m, mesh_wires(m)) {}
@@ -305,23 +322,23 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
   for (std::size_t p = 0; p < m.ports.size(); ++p) {
     if (m.ports[p].line) {
       port_vectors.col(p) = line_vector(m, m.ports[p], surfaces.line_edges[line++], surfaces, rwg, unknowns());
+    } else if (!m.ports[p].node.empty()) {
+      port_vectors.col(p).setZero();
     } else {
       port_vectors.col(p).setZero();
       port_vectors.col(p).head(basis.size()) = basis.gap_vector(mesh.port_gaps[gap++]);
     }
   }
-  // Ports whose couplings are dependent (two at one place, or one on every wire of a
-  // junction) have no port impedance matrix: refuse them here rather than divide by zero.
-  if (port_vectors.cols() > 0 && Eigen::FullPivLU<Eigen::MatrixXd>(port_vectors).rank() < port_vectors.cols()) {
-    for (Eigen::Index p = 1; p < port_vectors.cols(); ++p)
-      if (Eigen::FullPivLU<Eigen::MatrixXd>(port_vectors.leftCols(p + 1)).rank() < p + 1)
-        throw InputError(m.ports[p].where, "port '" + m.ports[p].name +
-                                               "' is not independent of the ports before it (two ports at one "
-                                               "place, or a port on every wire of one junction)");
-  }
+  require_independent_ports(m, port_vectors);
   load_vectors = Eigen::MatrixXd::Zero(unknowns(), static_cast<Eigen::Index>(mesh.load_gaps.size()));
   for (std::size_t l = 0; l < mesh.load_gaps.size(); ++l)
     load_vectors.col(l).head(basis.size()) = basis.gap_vector(mesh.load_gaps[l]);
+  std::vector<Eigen::VectorXd> network_gap_vectors;
+  for (const Gap& g : mesh.network_gaps) {
+    network_gap_vectors.push_back(Eigen::VectorXd::Zero(unknowns()));
+    network_gap_vectors.back().head(basis.size()) = basis.gap_vector(g);
+  }
+  network = FeedNetwork(m, port_vectors, load_vectors, network_gap_vectors);
 }
 
 void require_solvable(const AntennaProblem& problem) {
@@ -333,12 +350,63 @@ FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_
   return solve_frequency(problem, frequency_hz, *matrix);
 }
 
+namespace {
+
+void add_segment_currents(const AntennaProblem& problem, FrequencySolution& solution) {
+  solution.segment_currents.assign(problem.mesh.segments.size(), {Complex(0.0), Complex(0.0)});
+  for (std::size_t s = 0; s < problem.mesh.segments.size(); ++s)
+    for (const BasisPiece& piece : problem.basis.pieces_on(static_cast<int>(s)))
+      solution.segment_currents[s][piece.peak_end] += piece.sign * solution.coefficients[piece.basis];
+}
+
+/// With a feed network: the antenna's admittance at every terminal from one solve for each
+/// terminal's unit drive (and the wave), then the network with it (solver/feed_network.hpp).
+FrequencySolution solve_with_network(const AntennaProblem& problem, Real frequency_hz, SystemMatrix& matrix) {
+  const FeedNetwork& network = problem.network;
+  const Eigen::Index terminals = network.couplings().cols();
+  const auto ports = static_cast<Eigen::Index>(problem.model.ports.size());
+  const bool lit = problem.model.wave.has_value();
+  ComplexMatrix rhs(problem.unknowns(), terminals + (lit ? 1 : 0));
+  rhs.leftCols(terminals) = network.couplings().cast<Complex>();
+  if (lit) rhs.col(terminals) = plane_wave_vector(problem, incident_wave(*problem.model.wave), frequency_hz);
+  FrequencySolution solution;
+  solution.frequency_hz = frequency_hz;
+  const ComplexMatrix responses = matrix.solve(rhs, solution.report);
+  const ComplexMatrix drives = rhs.leftCols(terminals).transpose();
+  const ComplexMatrix antenna_admittance = drives * responses.leftCols(terminals);
+  const ComplexVector short_circuit = lit ? ComplexVector(drives * responses.col(terminals)) : ComplexVector();
+  const NetworkSolution ns = network.solve(frequency_hz, antenna_admittance, short_circuit);
+
+  solution.port_admittance = ns.port_admittance;
+  solution.port_voltages.resize(ports);
+  for (Eigen::Index p = 0; p < ports; ++p) solution.port_voltages[p] = problem.model.ports[p].voltage;
+  solution.port_currents = solution.port_admittance * solution.port_voltages;
+  solution.network_voltages = ns.terminal_voltages.leftCols(ports) * solution.port_voltages;
+  solution.network_currents = ns.element_currents.leftCols(ports) * solution.port_voltages;
+  if (lit) {
+    solution.received_currents = ns.received_currents;
+    solution.network_voltages += ns.terminal_voltages.col(ports);
+    solution.network_currents += ns.element_currents.col(ports);
+  }
+  ComplexVector antenna_voltages(terminals);
+  for (std::size_t t = 0; t < network.terminals().size(); ++t)
+    if (const int c = network.terminals()[t].coupling; c >= 0)
+      antenna_voltages[c] = solution.network_voltages[static_cast<Eigen::Index>(t)];
+  solution.coefficients = responses.leftCols(terminals) * antenna_voltages;
+  if (lit) solution.coefficients += responses.col(terminals);
+  add_segment_currents(problem, solution);
+  return solution;
+}
+
+}  // namespace
+
 FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_hz, SystemMatrix& matrix) {
   LOBE_CHECK(matrix.size() == problem.unknowns(), "system matrix of the wrong size");
   matrix.clear();
   assemble_system(problem, frequency_hz, matrix);
   matrix.factor();
 
+  if (!problem.network.empty()) return solve_with_network(problem, frequency_hz, matrix);
   // One solve for every port's unit drive and the wave.
   const auto ports = static_cast<Eigen::Index>(problem.model.ports.size());
   const bool lit = problem.model.wave.has_value();
@@ -360,10 +428,7 @@ FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_
     solution.received_currents = drives.transpose() * responses.col(ports);
   }
 
-  solution.segment_currents.assign(problem.mesh.segments.size(), {Complex(0.0), Complex(0.0)});
-  for (std::size_t s = 0; s < problem.mesh.segments.size(); ++s)
-    for (const BasisPiece& piece : problem.basis.pieces_on(static_cast<int>(s)))
-      solution.segment_currents[s][piece.peak_end] += piece.sign * solution.coefficients[piece.basis];
+  add_segment_currents(problem, solution);
   return solution;
 }
 

@@ -8,6 +8,7 @@
 #include "geometry/surface_mesher.hpp"
 #include "geometry/wire_mesh.hpp"
 #include "solver/basis_samples.hpp"
+#include "solver/feed_network.hpp"
 #include "solver/junction_star.hpp"
 #include "solver/medium.hpp"
 #include "solver/rwg_basis.hpp"
@@ -53,8 +54,9 @@ struct AntennaProblem {
   /// A probe's vertical current is not among them: inside a slab it radiates and launches
   /// surface waves by its own spectra (solver/grounded_slab.hpp), which use `probes`.
   std::vector<BasisSample> samples;
-  Eigen::MatrixXd port_vectors;     ///< N × ports: column p couples basis currents to port p
+  Eigen::MatrixXd port_vectors;     ///< N × ports: column p couples basis currents to port p (zero at a free point)
   Eigen::MatrixXd load_vectors;     ///< N × loads
+  FeedNetwork network;              ///< lines, stubs, transformers and parts; empty without them
 
   int unknowns() const { return basis.size() + rwg.size(); }
 
@@ -77,6 +79,9 @@ struct FrequencySolution {
   /// port is shorted, A (empty without a wave). The open-circuit voltages are Y⁻¹ times it.
   ComplexVector received_currents;
   ComplexVector coefficients;    ///< every basis function's current for the model's drive and wave, A
+  /// With a feed network, for the model's drive and wave: each terminal's voltage
+  /// (FeedNetwork::terminals), V, and the current into every element end, A.
+  ComplexVector network_voltages, network_currents;
   /// Current at the start and end of each segment, along the segment direction, A.
   std::vector<std::array<Complex, 2>> segment_currents;
   SolveReport report;

@@ -61,8 +61,9 @@ void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMat
   matrix.add(conductor_loss_stamp(problem.mesh, problem.basis, frequency_hz));
   matrix.add(surface_loss_stamp(problem, frequency_hz));
   for (std::size_t l = 0; l < problem.model.loads.size(); ++l)
-    matrix.add(load_stamp(problem.load_vectors.col(static_cast<Eigen::Index>(l)),
-                          load_impedance(problem.model.loads[l], frequency_hz)));
+    if (problem.network.load_is_stamped(l))
+      matrix.add(load_stamp(problem.load_vectors.col(static_cast<Eigen::Index>(l)),
+                            load_impedance(problem.model.loads[l].values, frequency_hz)));
   matrix.finish_fill();
 }
 

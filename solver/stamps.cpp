@@ -6,7 +6,7 @@
 
 namespace lobe {
 
-Complex load_impedance(const Load& load, Real frequency_hz) {
+Complex load_impedance(const LumpedValues& load, Real frequency_hz) {
   const Real omega = 2 * pi * frequency_hz;
   if (!load.parallel) {
     Complex z(load.resistance, omega * load.inductance);

@@ -12,7 +12,7 @@ namespace lobe {
 
 /// Series: R + jωL + 1/(jωC) (no capacitor when none is given). Parallel: the reciprocal
 /// of the sum of the admittances of the elements given. Ohm.
-Complex load_impedance(const Load& load, Real frequency_hz);
+Complex load_impedance(const LumpedValues& load, Real frequency_hz);
 
 /// Internal impedance per metre of a round wire of radius a and conductivity σ:
 /// z' = (1 + j) √(ωμ0 / (2σ)) / (2πa), valid when the skin depth ≪ a. Ohm/m.

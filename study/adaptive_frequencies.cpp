@@ -146,6 +146,8 @@ FrequencySolution AdaptiveSweep::interpolated(const RationalInterpolant& r, std:
       s.port_currents = ComplexVector::Zero(sample.port_currents.size());
       s.received_currents = ComplexVector::Zero(sample.received_currents.size());
       s.coefficients = ComplexVector::Zero(sample.coefficients.size());
+      s.network_voltages = ComplexVector::Zero(sample.network_voltages.size());
+      s.network_currents = ComplexVector::Zero(sample.network_currents.size());
       s.segment_currents.assign(sample.segment_currents.size(), {Complex(0.0), Complex(0.0)});
     }
     if (c[n] == 0.0) continue;
@@ -153,6 +155,8 @@ FrequencySolution AdaptiveSweep::interpolated(const RationalInterpolant& r, std:
     s.port_currents += c[n] * sample.port_currents;
     s.received_currents += c[n] * sample.received_currents;
     s.coefficients += c[n] * sample.coefficients;
+    s.network_voltages += c[n] * sample.network_voltages;
+    s.network_currents += c[n] * sample.network_currents;
     for (std::size_t k = 0; k < s.segment_currents.size(); ++k)
       for (int e = 0; e < 2; ++e) s.segment_currents[k][e] += c[n] * sample.segment_currents[k][e];
   }

@@ -38,7 +38,8 @@ void pack_solution(const FrequencySolution& s, std::vector<double>& out) {
                          s.report.reciprocal_condition, s.report.relative_residual,
                          static_cast<double>(s.port_admittance.rows())});
   pack_complex(s.port_admittance.data(), static_cast<std::size_t>(s.port_admittance.size()), out);
-  for (const ComplexVector* v : {&s.port_voltages, &s.port_currents, &s.received_currents, &s.coefficients})
+  for (const ComplexVector* v : {&s.port_voltages, &s.port_currents, &s.received_currents, &s.coefficients,
+                                 &s.network_voltages, &s.network_currents})
     pack_complex(v->data(), static_cast<std::size_t>(v->size()), out);
   pack_complex(s.segment_currents.empty() ? nullptr : s.segment_currents.front().data(), 2 * s.segment_currents.size(), out);
 }
@@ -55,7 +56,8 @@ FrequencySolution unpack_solution(const std::vector<double>& in, std::size_t& at
   if (rows == 0 ? admittance.size() != 0 : admittance.size() % rows != 0)
     throw std::runtime_error("a solution passed between processes is damaged");
   s.port_admittance = Eigen::Map<const ComplexMatrix>(admittance.data(), rows, rows == 0 ? 0 : admittance.size() / rows);
-  for (ComplexVector* v : {&s.port_voltages, &s.port_currents, &s.received_currents, &s.coefficients})
+  for (ComplexVector* v : {&s.port_voltages, &s.port_currents, &s.received_currents, &s.coefficients,
+                           &s.network_voltages, &s.network_currents})
     *v = unpack_vector(in, at);
   const ComplexVector ends = unpack_vector(in, at);
   if (ends.size() % 2 != 0) throw std::runtime_error("a solution passed between processes is damaged");

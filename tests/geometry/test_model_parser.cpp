@@ -123,7 +123,7 @@ TEST(ModelParser, CutsAndPlatePorts) {
 
 TEST(ModelParser, ErrorsPointAtTheCause) {
   EXPECT_EQ(error_of("blorp\n"), "m.lobe:1:1: unknown statement 'blorp'; statements are: units let wire arc helix plate cut "
-                                 "sphere box copy shift turn mirror mesh port load conductor ground substrate wave "
+                                 "sphere box copy shift turn mirror mesh port load line stub transformer conductor ground substrate wave "
                                  "frequency reference band pattern");
   EXPECT_EQ(error_of("wire w from (0,0,0) to (0,0,1)\n"), "m.lobe:1:31: wire 'w' needs 'radius R'");
   EXPECT_EQ(error_of("let a = 1\nlet a = 2\n"), "m.lobe:2:5: 'a' is already defined");
@@ -165,6 +165,64 @@ TEST(ModelParser, SubstrateStatement) {
             "m.lobe:1:43: unexpected 'loss' after the statement");
   EXPECT_EQ(error_of("substrate s thickness 5 um permittivity 3\n"),
             "m.lobe:1:23: the thickness must be at least 10 um, got 5 um");
+}
+
+// Feed networks: a line from a free point to a gap, its loss from two data-sheet points
+// split into a √f and an f part; stubs, transformers, parts between ends; ports at free points.
+TEST(ModelParser, FeedNetworkStatements) {
+  const std::string wire = "wire w from (0, 0, -1) to (0, 0, 1) radius 1 mm\nfrequency 100 MHz\n";
+  const Model m = parse_model(wire +
+                                  "port p at conn\n"
+                                  "line coax from conn to w at middle impedance 50 ohm length 3 m velocity 0.66 "
+                                  "loss 4 dB per 100 m at 100 MHz and 16 dB per 100 m at 1 GHz\n"
+                                  "stub s at conn impedance 75 ohm length 0.4 m velocity 0.8 short\n"
+                                  "transformer b from conn to w at 0.25 ratio 4\n"
+                                  "load c from conn to w at end capacitance 10 pF\n",
+                              "m.lobe");
+  ASSERT_EQ(m.network.size(), 4u);
+  EXPECT_EQ(m.ports[0].node, "conn");
+  const NetworkElement& coax = m.network[0];
+  EXPECT_EQ(coax.kind, NetworkKind::line);
+  EXPECT_EQ(coax.ends[0].node, "conn");
+  ASSERT_TRUE(coax.ends[1].wire.has_value());
+  EXPECT_EQ(coax.ends[1].wire->wire, "w");
+  EXPECT_DOUBLE_EQ(coax.velocity_factor, 0.66);
+  EXPECT_NEAR(coax.loss.db_per_metre(100e6), 0.04, 1e-15);
+  EXPECT_NEAR(coax.loss.db_per_metre(1e9), 0.16, 1e-15);
+  EXPECT_GT(coax.loss.dielectric, 0.0);
+  EXPECT_TRUE(m.network[1].shorted);
+  EXPECT_DOUBLE_EQ(m.network[2].ratio, 4.0);
+  EXPECT_EQ(m.network[3].kind, NetworkKind::lumped);
+  EXPECT_DOUBLE_EQ(*m.network[3].part.capacitance, 10e-12);
+}
+
+TEST(ModelParser, FeedNetworkErrors) {
+  const std::string wire = "wire w from (0, 0, -1) to (0, 0, 1) radius 1 mm\nfrequency 100 MHz\nport p on w at middle\n";
+  const std::string line = "line l from w at middle to ";
+  EXPECT_EQ(error_of(wire + line + "far impedance 50 ohm length 1 m velocity 1\n"),
+            "m.lobe:4:28: free point 'far' is used only by 'l'; a free point joins two or more parts or ports (a "
+            "misspelt name?)");
+  EXPECT_EQ(error_of(wire + line + "w at 0.2 impedance 50 ohm length 1 m\n"),
+            "m.lobe:4:1: 'l' needs its velocity factor (1 for an air line)");
+  EXPECT_EQ(error_of(wire + line + "w at middle impedance 50 ohm length 1 m velocity 1\n"),
+            "m.lobe:4:28: 'l' joins a place to itself; its two ends must differ");
+  EXPECT_EQ(error_of(wire + line + "w at 0.2 impedance 50 ohm length 1 m velocity 1.2\n"),
+            "m.lobe:4:74: the velocity factor is the speed on the line over the speed of light: above 0, at most 1 "
+            "(solid polyethylene coax 0.66, foam 0.8 to 0.85, air-spaced 1)");
+  EXPECT_EQ(error_of(wire + "stub s on w at 0.3 impedance 50 ohm length 1 m velocity 1\n"),
+            "m.lobe:4:1: stub 's' needs 'open' or 'short' (its far end)");
+  EXPECT_EQ(error_of(wire + "port q at x\nport r at x\n"),
+            "m.lobe:5:11: two ports at free point 'x'; one source per point");
+  EXPECT_EQ(error_of(wire + line + "w impedance 50 ohm length 1 m velocity 1\nload r at w resistance 1 ohm\n"),
+            "m.lobe:4:28: 'w' is a wire or plate; a place on it is written 'w at POSITION'");
+  EXPECT_EQ(error_of(wire + line + "w at 0.2 impedance 50 ohm length 1 m velocity 1 "
+                                   "loss 10 dB per 100 m at 100 MHz and 12 dB per 100 m at 1 GHz\n"),
+            "m.lobe:4:112: these two loss points do not fit a sqrt(f) conductor loss plus an f dielectric loss, both "
+            "positive; check them against the data sheet, or give one point");
+  EXPECT_EQ(error_of(wire + "transformer t from w at 0.2 to w at 0.7 ratio 0\n"),
+            "m.lobe:4:47: the impedance ratio must be from 0.001 to 1000, got 0");
+  EXPECT_EQ(error_of(wire + "load r on w at 0.2 resistance 5 ohm\nline r from w at 0.3 to w at 0.6 impedance 50\n"),
+            "m.lobe:5:6: a load named 'r' already exists");
 }
 
 // 'conductor' names a wire, a plate or body, or all of them; a plate's metal may have a
