@@ -45,6 +45,23 @@ void write_ports_csv(const std::filesystem::path& path, const RunRecord& run) {
   finish(file, path);
 }
 
+void write_antenna_ends_csv(const std::filesystem::path& path, const RunRecord& run) {
+  File file = open_for_writing(path);
+  std::fprintf(file.get(),
+               "frequency_hz,place,resistance_ohm,reactance_ohm,vswr,return_loss_db,reflection_magnitude,"
+               "reflection_phase_deg\n");
+  const FeedNetwork& network = run.problem.network;
+  const std::vector<int> ends = network.antenna_ends();
+  for (const auto& r : run.results)
+    for (std::size_t k = 0; k < r.antenna_ends.size(); ++k) {
+      const PortResult& end = r.antenna_ends[k];
+      std::fprintf(file.get(), "%.10g,%s,%.10g,%.10g,%.10g,%.10g,%.10g,%.10g\n", r.frequency_hz,
+                   network.terminals()[ends[k]].label.c_str(), end.impedance.real(), end.impedance.imag(), end.vswr,
+                   end.return_loss_db, std::abs(end.reflection), std::arg(end.reflection) * degrees);
+    }
+  finish(file, path);
+}
+
 void write_pattern_csv(const std::filesystem::path& path, const RunRecord& run) {
   File file = open_for_writing(path);
   std::fprintf(file.get(),

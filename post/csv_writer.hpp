@@ -6,6 +6,10 @@
 
 namespace lobe {
 
+/// Where a feed network meets the antenna: one row per frequency and place (a feed line's
+/// antenna end), as an analyser would see it without the line.
+void write_antenna_ends_csv(const std::filesystem::path& path, const RunRecord& run);
+
 /// One row per frequency and port. Header starts
 /// frequency_hz,port,resistance_ohm,reactance_ohm,vswr,return_loss_db.
 void write_ports_csv(const std::filesystem::path& path, const RunRecord& run);

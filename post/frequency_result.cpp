@@ -17,6 +17,8 @@ FrequencyResult evaluate_frequency(const AntennaProblem& problem, const Frequenc
   const Real z0 = problem.model.reference_ohm;
   result.frequency_hz = solution.frequency_hz;
   result.ports = port_results(solution, z0);
+  result.antenna_ends = antenna_end_results(problem, solution, z0);
+  result.network_powers = network_powers(problem, solution);
   result.z_matrix = impedance_matrix(solution);
   result.s_matrix = scattering_matrix(result.z_matrix, z0);
   result.segment_currents = solution.segment_currents;
@@ -96,7 +98,9 @@ void require_finite(const FrequencyResult& result) {
   bool finite = result.z_matrix.allFinite() && result.s_matrix.allFinite() && std::isfinite(result.power.accepted) &&
                 std::isfinite(result.power.radiated) && result.pattern.gain_dbi.allFinite() &&
                 result.pattern.axial_ratio_db.allFinite() && result.pattern.realized_gain_dbi.allFinite();
-  for (const auto& p : result.ports) finite = finite && std::isfinite(std::abs(p.impedance)) && std::isfinite(p.vswr);
+  for (const auto* ports : {&result.ports, &result.antenna_ends})
+    for (const auto& p : *ports) finite = finite && std::isfinite(std::abs(p.impedance)) && std::isfinite(p.vswr);
+  for (Real p : result.network_powers) finite = finite && std::isfinite(p);
   for (const auto& j : result.surface_currents) finite = finite && j.allFinite();
   if (!finite)
     throw NumericalError("a non-finite value arose at " + std::to_string(result.frequency_hz) + " Hz");

@@ -24,6 +24,10 @@ struct PatternResult {
 struct FrequencyResult {
   Real frequency_hz = 0.0;
   std::vector<PortResult> ports;
+  /// Where a feed network meets the antenna (post/port_quantities.hpp); empty without one.
+  std::vector<PortResult> antenna_ends;
+  /// Power into each feed-network element, W (post/power_budget.hpp).
+  std::vector<Real> network_powers;
   ComplexMatrix z_matrix;  ///< ohm
   ComplexMatrix s_matrix;
   PowerBudget power;

@@ -156,6 +156,31 @@ void write_ports(hid_t file, const RunRecord& run) {
   matrix("s_matrix_im", "1", [np](const FrequencyResult& r, std::size_t k) { return r.s_matrix(k / np, k % np).imag(); });
 }
 
+/// The feed network: where it meets the antenna (impedance seen there, as for a port) and
+/// the power each of its elements takes.
+void write_network(hid_t file, const RunRecord& run) {
+  const FeedNetwork& network = run.problem.network;
+  if (network.empty()) return;
+  Handle g = group(file, "network");
+  const std::vector<int> ends = network.antenna_ends();
+  std::vector<std::string> places, elements;
+  for (int t : ends) places.push_back(network.terminals()[t].label);
+  for (std::size_t e = 0; e < network.element_count(); ++e) elements.push_back(network.element_name(e));
+  write_strings(g, "antenna_end_places", places);
+  const std::size_t nf = run.results.size(), ne = ends.size();
+  auto end = [&](const char* name, const char* unit, const std::function<Real(const PortResult&)>& f) {
+    write_reals(g, name, {nf, ne}, per_frequency(run, ne, [&](const FrequencyResult& r, std::size_t i) { return f(r.antenna_ends[i]); }), unit);
+  };
+  end("antenna_end_resistance_ohm", "ohm", [](const PortResult& p) { return p.impedance.real(); });
+  end("antenna_end_reactance_ohm", "ohm", [](const PortResult& p) { return p.impedance.imag(); });
+  end("antenna_end_vswr", "1", [](const PortResult& p) { return p.vswr; });
+  end("antenna_end_return_loss_db", "dB", [](const PortResult& p) { return p.return_loss_db; });
+  write_strings(g, "element_names", elements);
+  write_reals(g, "element_power_w", {nf, elements.size()},
+              per_frequency(run, elements.size(), [](const FrequencyResult& r, std::size_t e) { return r.network_powers[e]; }),
+              "W (into the element: a line's or stub's loss, a part's dissipation)");
+}
+
 void write_power(hid_t file, const RunRecord& run) {
   Handle g = group(file, "power");
   const std::vector<hsize_t> dims{run.results.size()};
@@ -168,6 +193,7 @@ void write_power(hid_t file, const RunRecord& run) {
   power("load_loss_w", "W", [](const PowerBudget& p) { return p.load_loss; });
   power("surface_wave_w", "W", [](const PowerBudget& p) { return p.surface_wave; });
   power("dielectric_loss_w", "W", [](const PowerBudget& p) { return p.dielectric_loss; });
+  power("line_loss_w", "W", [](const PowerBudget& p) { return p.line_loss; });
   power("efficiency", "1", [](const PowerBudget& p) { return p.efficiency(); });
   power("balance_miss", "1", [](const PowerBudget& p) { return p.imbalance(); });
 }
@@ -285,6 +311,7 @@ void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
   write_model(file, run);
   write_ports(file, run);
   write_power(file, run);
+  write_network(file, run);
   write_pattern(file, run);
   write_currents(file, run);
   Handle solver = group(file, "solver");

@@ -36,6 +36,12 @@ struct PortResult {
 /// Per-port results, against `reference_ohm`.
 std::vector<PortResult> port_results(const FrequencySolution& solution, Real reference_ohm);
 
+/// Where the feed network meets the antenna (FeedNetwork::antenna_ends): the voltage
+/// across each gap, the current into the antenna there and their ratio, against
+/// `reference_ohm`: a feed line's antenna end, as an analyser would see it without the line.
+std::vector<PortResult> antenna_end_results(const AntennaProblem& problem, const FrequencySolution& solution,
+                                            Real reference_ohm);
+
 /// Z = Y⁻¹, ohm.
 ComplexMatrix impedance_matrix(const FrequencySolution& solution);
 /// S = (Z − Z0)(Z + Z0)⁻¹ with the same real reference at every port.

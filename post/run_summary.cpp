@@ -102,6 +102,30 @@ std::string reflected_power_text(const RunRecord& run, Real forward_w) {
   return out;
 }
 
+/// The feed lines' loss as the power delivered past them: −10 log10(1 − P_line/P_accepted).
+Real line_loss_db(const PowerBudget& p) {
+  if (!(p.accepted > 0.0) || p.line_loss >= p.accepted) return return_loss_ceiling_db;
+  return -10.0 * std::log10(1.0 - p.line_loss / p.accepted);
+}
+
+/// Where a feed network meets the antenna: the impedance there, as an analyser would see it
+/// without the network (a feed line's antenna end).
+std::string antenna_ends_text(const RunRecord& run) {
+  const FeedNetwork& network = run.problem.network;
+  const std::vector<int> ends = network.antenna_ends();
+  if (ends.empty()) return "";
+  std::string out = "at the antenna, where the feed network meets it:\n";
+  out += formatted("%-14s %-16s %10s %10s %9s %8s\n", "frequency", "place", "R (ohm)", "X (ohm)", "VSWR", "RL (dB)");
+  for (const auto& r : run.results)
+    for (std::size_t k = 0; k < r.antenna_ends.size(); ++k) {
+      const PortResult& end = r.antenna_ends[k];
+      out += formatted("%-14s %-16s %10.2f %+10.2f %9.3g %8.2f\n", frequency_text(r.frequency_hz).c_str(),
+                       network.terminals()[ends[k]].label.c_str(), end.impedance.real(), end.impedance.imag(), end.vswr,
+                       end.return_loss_db);
+    }
+  return out + "\n";
+}
+
 }  // namespace
 
 std::string frequency_text(Real hz) {
@@ -126,16 +150,21 @@ std::string run_summary(const RunRecord& run) {
                            port.return_loss_db, port.driven ? "" : "  (0 V: self impedance)");
     }
   out += "\n";
-  // On a substrate, where the power that does not radiate goes: surface waves and the dielectric.
+  out += antenna_ends_text(run);
+  // On a substrate, where the power that does not radiate goes: surface waves and the
+  // dielectric; through a feed line, its loss.
   const bool board = model.substrate.has_value();
-  out += formatted("%-14s %11s %15s %12s %7s %10s%s\n", "frequency", "peak (dBi)", "at theta/phi", "AR (dB)", "hand",
-                   "efficiency", board ? "  surface waves  dielectric" : "");
+  const bool lines = std::any_of(run.results.begin(), run.results.end(),
+                                 [](const FrequencyResult& r) { return r.power.line_loss > 0.0; });
+  out += formatted("%-14s %11s %15s %12s %7s %10s%s%s\n", "frequency", "peak (dBi)", "at theta/phi", "AR (dB)", "hand",
+                   "efficiency", board ? "  surface waves  dielectric" : "", lines ? "  line loss (dB)" : "");
   for (const auto& r : run.results) {
     const std::string direction = formatted("%.0f/%.0f deg", r.peak_theta * 180 / pi, r.peak_phi * 180 / pi);
     const Real accepted = r.power.accepted > 0.0 ? r.power.accepted : 1.0;
-    const std::string losses =
+    std::string losses =
         board ? formatted(" %14.1f%% %10.1f%%", 100.0 * r.power.surface_wave / accepted, 100.0 * r.power.dielectric_loss / accepted)
               : std::string();
+    if (lines) losses += formatted(" %15.2f", line_loss_db(r.power));
     out += formatted("%-14s %11.2f %15s %12.2f %7s %9.1f%%%s%s\n", frequency_text(r.frequency_hz).c_str(),
                      r.peak_gain_dbi, direction.c_str(), r.peak_axial_ratio_db, hand_name(r.peak_hand),
                      100.0 * r.power.efficiency(), losses.c_str(),

@@ -63,6 +63,13 @@ FeedNetwork::FeedNetwork(const Model& model, const Eigen::MatrixXd& port_vectors
   }
 }
 
+std::vector<int> FeedNetwork::antenna_ends() const {
+  std::vector<int> ends;
+  for (std::size_t t = 0; t < m_terminals.size(); ++t)
+    if (m_terminals[t].coupling >= 0 && m_terminals[t].has_elements) ends.push_back(static_cast<int>(t));
+  return ends;
+}
+
 int FeedNetwork::terminal_for_coupling(const Eigen::VectorXd& p, const std::string& label) {
   for (std::size_t t = 0; t < m_terminals.size(); ++t)
     if (m_terminals[t].coupling >= 0 && m_couplings.col(m_terminals[t].coupling) == p) return static_cast<int>(t);

@@ -48,6 +48,9 @@ class FeedNetwork {
   /// N × A: the couplings of the antenna's terminals; the solve needs Z⁻¹ times each.
   const Eigen::MatrixXd& couplings() const { return m_couplings; }
   const std::vector<NetworkTerminal>& terminals() const { return m_terminals; }
+  /// The terminals where network elements meet the antenna (a feed line's antenna end),
+  /// in terminal order.
+  std::vector<int> antenna_ends() const;
   /// Whether wire load l stays a stamp in the system matrix (false: it joined the network).
   bool load_is_stamped(std::size_t l) const { return m_load_stamped[l]; }
   /// Which loads joined, by index in Model::loads, in the order of element_currents after

@@ -38,6 +38,8 @@ RunOutcome solve_and_publish(const PreparedRun& prepared, Run& run, const StudyC
 void write_antenna_files(OutputFiles& files, const std::string& stem, const RunRecord& run) {
   write_hdf5(files.staging_path(stem + ".h5"), run);
   write_ports_csv(files.staging_path(stem + "_ports.csv"), run);
+  if (!run.problem.network.antenna_ends().empty())
+    write_antenna_ends_csv(files.staging_path(stem + "_antenna_ends.csv"), run);
   write_pattern_csv(files.staging_path(stem + "_pattern.csv"), run);
   write_currents_csv(files.staging_path(stem + "_currents.csv"), run);
 }

@@ -45,6 +45,18 @@ TEST(FeedLineReference, QuarterWaveLineInvertsTheLoad) {
   expect_close(solve_text(fed_through(line_text(75.0, 0.25))).port_impedance(), 75.0 * 75.0 / load, 1e-9);
 }
 
+// The antenna end of a lossy feed line shows the antenna's own impedance, as an analyser
+// at the antenna would (the line changes only what the connector sees); 1e-9 relative.
+TEST(FeedLineReference, AntennaEndShowsTheAntennaItself) {
+  const Complex load = bare_impedance();
+  char extra[128];
+  std::snprintf(extra, sizeof extra, "loss 1 dB per 1 m at %.17g Hz", one_metre_wavelength_hz);
+  const Solved fed = solve_text(fed_through(line_text(50.0, 1.7, extra)));
+  ASSERT_EQ(fed.result.antenna_ends.size(), 1u);
+  expect_close(fed.result.antenna_ends[0].impedance, load, 1e-9);
+  EXPECT_GT(std::abs(fed.port_impedance() - load), 0.1 * std::abs(load));
+}
+
 // Pozar §2.3: a half-wave line repeats its load whatever its impedance; 1e-9 relative.
 // Its impedance parameters are infinite here, which the chain-matrix form does not use.
 TEST(FeedLineReference, HalfWaveLineRepeatsTheLoad) {
