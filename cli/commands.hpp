@@ -118,6 +118,22 @@ struct TuneOptions {
 /// within the bounds) and writes the model with the best values filled in.
 int tune_command(const TuneOptions& options);
 
+struct MatchOptions {
+  std::string result_path;
+  std::string band;                  ///< LOW:HIGH; empty: the model's first band
+  std::string port;                  ///< empty: the first port
+  std::string goal = "worst-vswr";   ///< worst-vswr, mean-vswr or mean-mismatch-loss
+  std::string series = "E12";        ///< E12 or E24
+  Real velocity_factor = 0.66;       ///< of lines and stubs
+  std::string topology;              ///< the design to write: L, pi, T, stub, quarter-wave; empty: the best
+  std::string output;                ///< the matched model; empty: RESULT-STEM-matched.lobe
+  std::string case_name;             ///< for a sweep file: the case to match
+};
+
+/// Designs matching networks for a port over a band from a result's impedances, prints
+/// them with their band figures as built, and writes the model with one of them added.
+int match_command(const MatchOptions& options);
+
 /// Parses and meshes; prints counts and warnings; solves nothing.
 int check_command(const std::string& model_path, const std::vector<std::string>& set_options);
 

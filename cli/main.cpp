@@ -153,6 +153,22 @@ int main(int argc, char** argv) {
   tune_app->add_option("-o,--output", tune.study.output, "The tuned model (default: MODEL-STEM-tuned.lobe)");
   tune_app->add_option("--threads", tune.threads, "Threads (default: all cores)")->check(thread_range());
 
+  lobe::cli::MatchOptions match;
+  auto* match_app = app.add_subcommand("match", "Design a matching network for a port over a band from a result; write the matched model");
+  match_app->add_option("RESULT", match.result_path, "Result file written by run (.h5)")->required();
+  match_app->add_option("--band", match.band, "The band to match: LOW:HIGH (default: the model's first band)");
+  match_app->add_option("--port", match.port, "The port to match (default: the first)");
+  match_app->add_option("--goal", match.goal, "worst-vswr (default), mean-vswr or mean-mismatch-loss")
+      ->check(CLI::IsMember({"worst-vswr", "mean-vswr", "mean-mismatch-loss"}));
+  match_app->add_option("--series", match.series, "Standard values for inductors and capacitors: E12 (default) or E24")
+      ->check(CLI::IsMember({"E12", "E24"}));
+  match_app->add_option("--velocity", match.velocity_factor, "Velocity factor of stub and line designs (default 0.66)")
+      ->check(CLI::Range(0.1, 1.0));
+  match_app->add_option("--write", match.topology, "The design to write: L, pi, T, stub or quarter-wave (default: the best)")
+      ->check(CLI::IsMember({"L", "pi", "T", "stub", "quarter-wave"}));
+  match_app->add_option("-o,--output", match.output, "The matched model (default: RESULT-STEM-matched.lobe)");
+  match_app->add_option("--case", match.case_name, "For a sweep file: the case to match, e.g. case-000003");
+
   lobe::cli::BenchOptions bench;
   auto* bench_app = app.add_subcommand("bench", "Measure this machine's rates and the solver's speed against them");
   bench_app->add_option("-o,--output", bench.output, "CSV file for the table (default: lobe-bench.csv)");
@@ -182,6 +198,7 @@ int main(int argc, char** argv) {
     if (*sweep_app) return lobe::cli::sweep_command(sweep);
     if (*tune_app) return lobe::cli::tune_command(tune);
     if (*bench_app) return lobe::cli::bench_command(bench);
+    if (*match_app) return lobe::cli::match_command(match);
     return lobe::cli::check_command(check_path, check_sets);
   } catch (const lobe::InputError& e) {
     std::fprintf(stderr, "%s\n", e.formatted().c_str());

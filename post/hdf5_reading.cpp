@@ -1,5 +1,6 @@
 #include "post/hdf5_reading.hpp"
 
+#include <cstring>
 #include <limits>
 
 #include "core/input_error.hpp"
@@ -114,6 +115,25 @@ std::vector<std::string> read_strings(hid_t file, const std::string& name, std::
   for (char* p : pointers) strings.emplace_back(p ? p : "");
   if (count > 0) H5Dvlen_reclaim(type, space, H5P_DEFAULT, pointers.data());
   return strings;
+}
+
+std::string read_text(hid_t file, const std::string& name) {
+  if (!hdf5_exists(file, name)) refuse(file, "this file has no '" + name + "'");
+  std::vector<hsize_t> dims;
+  hsize_t count = 0;
+  Hdf5Handle set(open_checked(file, name, H5T_STRING, dims, count), H5Dclose);
+  Hdf5Handle file_type(H5Dget_type(set), H5Tclose);
+  if (!dims.empty() || H5Tis_variable_str(file_type) != 0) refuse(file, "'" + name + "' is not one fixed-length text");
+  const std::size_t size = H5Tget_size(file_type);
+  if (size == 0 || static_cast<double>(size) > max_values_per_stored_byte * static_cast<double>(H5Dget_storage_size(set)))
+    refuse(file, "'" + name + "' claims more text than the file holds");
+  Hdf5Handle type(H5Tcopy(H5T_C_S1), H5Tclose);
+  H5Tset_size(type, size);
+  std::string text(size, '\0');
+  if (H5Dread(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, text.data()) < 0)
+    refuse(file, "cannot read '" + name + "' (the file may be truncated or damaged)");
+  text.resize(std::strlen(text.c_str()));
+  return text;
 }
 
 }  // namespace lobe

@@ -22,4 +22,7 @@ std::vector<std::string> read_strings(hid_t file, const std::string& name, std::
 /// Whether the object `name` exists (its parent groups included), as in "/ports/names".
 bool hdf5_exists(hid_t file, const std::string& name);
 
+/// A scalar text dataset of fixed length, as lobe writes a model's source.
+std::string read_text(hid_t file, const std::string& name);
+
 }  // namespace lobe

@@ -1,6 +1,7 @@
 #include "post/result_reader.hpp"
 
 #include <cmath>
+#include <cstdio>
 #include <vector>
 
 #include "core/input_error.hpp"
@@ -32,6 +33,56 @@ std::vector<std::string> read_result_port_names(const std::filesystem::path& pat
   for (const std::string& name : names)
     if (name.empty()) throw InputError(where, "a port of this result has an empty name");
   return names;
+}
+
+PortImpedanceCurve read_result_port_impedance(const std::filesystem::path& path, const std::string& group,
+                                              std::size_t port) {
+  const SourceLocation where{path.string(), 1, 1};
+  const std::size_t ports = read_result_port_names(path, group).size();
+  Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
+  std::vector<hsize_t> f_dims, r_dims, x_dims, z_dims;
+  PortImpedanceCurve curve;
+  curve.frequency_hz = read_reals(file, group + "/frequency_hz", f_dims);
+  const std::vector<Real> r = read_reals(file, group + "/ports/resistance_ohm", r_dims);
+  const std::vector<Real> x = read_reals(file, group + "/ports/reactance_ohm", x_dims);
+  const std::vector<Real> z0 = read_reals(file, group + "/model/reference_ohm", z_dims);
+  const std::size_t nf = curve.frequency_hz.size();
+  if (nf == 0 || r.size() != nf * ports || x.size() != nf * ports || z0.size() != 1 || !(z0[0] > 0.0))
+    throw InputError(where, "the port impedances of this result are missing or do not fit its frequencies");
+  require_finite(curve.frequency_hz, "/frequency_hz", where);
+  require_finite(r, "/ports/resistance_ohm", where);
+  require_finite(x, "/ports/reactance_ohm", where);
+  for (std::size_t f = 0; f < nf; ++f) {
+    curve.impedance.emplace_back(r[f * ports + port], x[f * ports + port]);
+    if (f > 0 && !(curve.frequency_hz[f] > curve.frequency_hz[f - 1]))
+      throw InputError(where, "the frequencies of this result do not ascend");
+  }
+  curve.reference_ohm = z0[0];
+  return curve;
+}
+
+ResultModel read_result_model(const std::filesystem::path& path, const std::string& group) {
+  const SourceLocation where{path.string(), 1, 1};
+  Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
+  if (!hdf5_exists(file, group + "/model/source")) throw InputError(where, "this result holds no model source");
+  ResultModel model;
+  model.source = read_text(file, group + "/model/source");
+  if (!hdf5_exists(file, group + "/model/value_names")) return model;
+  std::vector<hsize_t> dims;
+  const std::vector<std::string> names = read_strings(file, group + "/model/value_names", dims);
+  const std::vector<std::string> units = read_strings(file, group + "/model/value_units", dims);
+  const std::vector<Real> values = read_reals(file, group + "/model/values", dims);
+  const std::vector<Real> overridden = read_reals(file, group + "/model/value_overridden", dims);
+  if (units.size() != names.size() || values.size() != names.size() || overridden.size() != names.size())
+    throw InputError(where, "the model values of this result do not fit their names");
+  char text[64];
+  for (std::size_t i = 0; i < names.size(); ++i) {
+    if (overridden[i] == 0.0) continue;
+    if (!std::isfinite(values[i])) throw InputError(where, "a model value of this result is not a finite number");
+    std::snprintf(text, sizeof text, "%.17g", values[i]);
+    model.set_options.push_back(names[i] + "=" + text + (units[i].empty() ? "" : " " + units[i]));
+  }
+  return model;
 }
 
 PatternData read_result_pattern(const std::filesystem::path& path) {

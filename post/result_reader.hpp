@@ -17,6 +17,24 @@ NetworkData read_result_network(const std::filesystem::path& path, const std::st
 /// The port names of an antenna result file, in port order; `group` as above.
 std::vector<std::string> read_result_port_names(const std::filesystem::path& path, const std::string& group = "");
 
+/// One port's impedance at every frequency of an antenna result, as the run drove its
+/// ports (the active impedance when several are driven); `group` as above.
+struct PortImpedanceCurve {
+  std::vector<Real> frequency_hz;
+  std::vector<Complex> impedance;  ///< ohm
+  Real reference_ohm = 50.0;
+};
+PortImpedanceCurve read_result_port_impedance(const std::filesystem::path& path, const std::string& group,
+                                              std::size_t port);
+
+/// The model behind a result: its source text, and the `let` values the run overrode as
+/// --set options (NAME=VALUE in SI units), so that parsing gives the model that was solved.
+struct ResultModel {
+  std::string source;
+  std::vector<std::string> set_options;
+};
+ResultModel read_result_model(const std::filesystem::path& path, const std::string& group = "");
+
 /// The far field on a result's pattern grid, flat arrays indexed (frequency, θ, φ).
 struct PatternData {
   std::vector<Real> frequency_hz, theta_deg, phi_deg;

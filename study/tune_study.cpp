@@ -5,8 +5,6 @@
 #include <algorithm>
 #include <exception>
 #include <optional>
-#include <regex>
-#include <sstream>
 
 #include "core/formatted_text.hpp"
 #include "core/number_text.hpp"
@@ -15,6 +13,7 @@
 #include "post/output_files.hpp"
 #include "study/frequency_loop.hpp"
 #include "study/model_loading.hpp"
+#include "study/model_text.hpp"
 #include "study/output_checks.hpp"
 
 namespace lobe {
@@ -89,25 +88,12 @@ double objective(const std::vector<double>& x, std::vector<double>&, void* data)
 }
 
 /// The model text with every overridden `let` (tuned or fixed by --set) set to the value
-/// `model` was solved with, in the model's own units, the old text kept in a comment, so
-/// the file reproduces the tuned figure on its own.
+/// `model` was solved with, so the file reproduces the tuned figure on its own.
 std::string tuned_text(const Model& model, const std::vector<TunedName>& tuned) {
-  std::istringstream in(model.text);
-  std::ostringstream out;
-  for (std::string line; std::getline(in, line);) {
-    for (const ResolvedValue& v : model.values) {
-      if (!v.overridden) continue;
-      const std::regex let("^(\\s*let\\s+" + v.name + "\\s*=).*$");
-      if (!std::regex_match(line, let)) continue;
-      const bool was_tuned = std::any_of(tuned.begin(), tuned.end(), [&](const TunedName& t) { return t.name == v.name; });
-      std::string old = line.substr(line.find('=') + 1);
-      old = old.substr(std::min(old.size(), old.find_first_not_of(' ')));
-      line = std::regex_replace(line, let, "$1 " + model_value_text(v, model)) +
-             (was_tuned ? "   # tuned by lobe (was: " : "   # set by --set when tuned (was: ") + old + ")";
-    }
-    out << line << '\n';
-  }
-  return out.str();
+  return text_with_values(model, [&](const ResolvedValue& v, const std::string& old) {
+    const bool was_tuned = std::any_of(tuned.begin(), tuned.end(), [&](const TunedName& t) { return t.name == v.name; });
+    return (was_tuned ? "tuned by lobe (was: " : "set by --set when tuned (was: ") + old + ")";
+  });
 }
 
 }  // namespace
