@@ -22,7 +22,8 @@ void print_configuration(const RunOptions& options, const PreparedRun& run) {
   if (!model.wave) parts.push_back(count_text(model.ports.size(), "port"));
   parts.push_back(count_text(model.loads.size(), "load"));
   if (!model.network.empty()) parts.push_back(count_text(model.network.size(), "feed-network part"));
-  parts.push_back("ground " + problem.medium.name());
+  parts.push_back("ground " + problem.medium.name() +
+                  (problem.medium.has_real_ground() ? " (" + problem.medium.ground_method() + ")" : ""));
   if (!model.wave) parts.push_back(formatted("reference %.6g ohm", model.reference_ohm));
   parts.push_back(count_text(model.frequencies_hz.size(), "frequency", "frequencies"));
   parts.push_back(count_text(thread_count(), "thread"));

@@ -146,6 +146,14 @@ struct Substrate {
   Real loss_tangent = 0.0;
 };
 
+/// Real (lossy) ground below z = 0: soil or water of relative permittivity εr and
+/// conductivity σ, so that εg = εr − jσ/(ωε0).
+struct RealGround {
+  SourceLocation where;
+  Real permittivity = 1.0;   ///< relative
+  Real conductivity = 0.0;   ///< S/m
+};
+
 struct Band {
   std::string name;
   Real low_hz = 0.0;
@@ -180,6 +188,7 @@ struct Model {
   std::vector<Load> loads;
   std::vector<NetworkElement> network;  ///< lines, stubs, transformers and parts between ends
   bool ground_perfect = false;
+  std::optional<RealGround> real_ground;  ///< instead of a perfect ground
   std::optional<Substrate> substrate;  ///< implies ground_perfect
   std::vector<Real> frequencies_hz;
   SourceLocation frequency_where;

@@ -833,17 +833,39 @@ class ModelParser {
     }
   }
 
+  /// ground none | perfect | real permittivity E conductivity S
   void ground(TokenCursor& c, const Token& keyword) {
-    const Token& kind = c.expect_name("'none' or 'perfect'");
+    const Token& kind = c.expect_name("'none', 'perfect' or 'real'");
+    m_model.real_ground.reset();
     if (kind.text == "none") m_model.ground_perfect = false;
     else if (kind.text == "perfect") m_model.ground_perfect = true;
-    else throw InputError(kind.where, "ground is 'none' or 'perfect', not '" + kind.text + "'");
+    else if (kind.text == "real") m_model.real_ground = real_ground(c, keyword), m_model.ground_perfect = false;
+    else throw InputError(kind.where, "ground is 'none', 'perfect' or 'real', not '" + kind.text + "'");
     if (!m_model.ground_perfect && m_model.substrate) throw substrate_without_ground(keyword.where);
     m_ground_none_where = m_model.ground_perfect ? std::nullopt : std::optional<SourceLocation>(keyword.where);
   }
 
+  RealGround real_ground(TokenCursor& c, const Token& keyword) {
+    RealGround g;
+    g.where = keyword.where;
+    c.expect_word("permittivity", "after 'real'");
+    const Token& eps_at = c.peek();
+    g.permittivity = quantity_in(c, dimension::none, 1.0, "a relative permittivity").value;
+    if (!(g.permittivity >= 1.0 && g.permittivity <= 100.0))
+      throw InputError(eps_at.where, "the soil's relative permittivity must be from 1 to 100 (dry sand about 3 to 5, "
+                                     "sea water 80), got " + number_text(g.permittivity));
+    c.expect_word("conductivity", "after the permittivity");
+    const Token& sigma_at = c.peek();
+    g.conductivity = quantity_in(c, dimension::conductivity, 1.0, "a conductivity").value;
+    if (!(g.conductivity >= 0.0 && g.conductivity <= 1e8))
+      throw InputError(sigma_at.where, "the soil's conductivity must be from 0 to 1e8 S/m (poor soil about 0.001, "
+                                       "sea water 5), got " + number_text(g.conductivity));
+    return g;
+  }
+
   InputError substrate_without_ground(const SourceLocation& where) const {
-    return InputError(where, "a substrate lies on the ground plane; it cannot be used with 'ground none'");
+    return InputError(where, std::string("a substrate lies on the ground plane; it cannot be used with 'ground ") +
+                                 (m_model.real_ground ? "real" : "none") + "'");
   }
 
   /// substrate NAME thickness H permittivity E [loss-tangent T]

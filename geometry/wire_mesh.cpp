@@ -390,6 +390,7 @@ class Mesher {
   }
 
   void check_ground() {
+    if (m_model.real_ground) return check_real_ground();
     if (!m_model.ground_perfect) return;
     for (auto& node : m_mesh.nodes) {
       const Real tolerance = touch_tolerance(m_mesh.segments[node.ends.front().segment].length());
@@ -403,6 +404,20 @@ class Mesher {
       if (m_mesh.nodes[s.node[0]].on_ground && m_mesh.nodes[s.node[1]].on_ground)
         throw InputError(wire.where, "wire '" + wire.name + "' has a segment lying on the ground plane; "
                                      "a wire may end on the ground but not run along it");
+    }
+  }
+
+  /// Over real ground every wire stays above the soil. A wire into the soil needs a stated
+  /// ground system (radials or a ground rod's loss resistance) and the near-ground kernels
+  /// for the current entering it; lobe refuses it rather than invent that connection.
+  void check_real_ground() {
+    for (const auto& s : m_mesh.segments) {
+      const Wire& wire = m_model.wires[s.wire];
+      if (std::min(s.start.z(), s.end.z()) <= touch_tolerance(s.length()))
+        throw InputError(wire.where, "wire '" + wire.name + "' touches or enters the real ground at z = 0; a wire "
+                                     "connected to soil needs a ground system (radials, or a ground rod's loss "
+                                     "resistance) that lobe does not model yet: raise the antenna above the ground "
+                                     "(an elevated ground plane), or use 'ground perfect'");
     }
   }
 

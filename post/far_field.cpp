@@ -3,6 +3,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "solver/fresnel.hpp"
 #include "solver/gauss_legendre.hpp"
 #include "solver/green_function.hpp"
 #include "solver/phase_factor.hpp"
@@ -13,7 +14,10 @@ FarField::FarField(const AntennaProblem& problem, const FrequencySolution& solut
     : m_k(problem.medium.wavenumber(solution.frequency_hz)), m_omega(2 * pi * solution.frequency_hz),
       m_images(problem.medium.images()), m_ground(problem.medium.has_ground()),
       m_slab(problem.medium.has_slab() ? std::optional<GroundedSlab>(problem.medium.slab(solution.frequency_hz))
-                                       : std::nullopt) {
+                                       : std::nullopt),
+      m_ground_permittivity(problem.medium.has_real_ground()
+                                ? std::optional<Complex>(problem.medium.ground_permittivity(solution.frequency_hz))
+                                : std::nullopt) {
   const WireMesh& mesh = problem.mesh;
   const SurfaceMesh& surface = problem.surfaces.mesh;
   for (const auto& s : mesh.segments) m_centre += s.midpoint();
@@ -33,40 +37,38 @@ FarField::FarField(const AntennaProblem& problem, const FrequencySolution& solut
   }
 }
 
-void FarField::add_point(const Vec3& x, const Eigen::Vector3cd& moment) {
-  m_x.push_back(x.x());
-  m_y.push_back(x.y());
-  m_z.push_back(x.z());
+void FarField::add_point(PointSources& set, const Vec3& x, const Eigen::Vector3cd& moment) {
+  set.x.push_back(x.x());
+  set.y.push_back(x.y());
+  set.z.push_back(x.z());
   for (int c = 0; c < 3; ++c) {
-    m_moment_re[c].push_back(moment[c].real());
-    m_moment_im[c].push_back(moment[c].imag());
+    set.moment_re[c].push_back(moment[c].real());
+    set.moment_im[c].push_back(moment[c].imag());
   }
   m_extent = std::max(m_extent, x.norm());
 }
 
 void FarField::add_source(const Vec3& r, const Eigen::Vector3cd& moment) {
-  add_point(r - m_centre, moment);
+  add_point(m_points, r - m_centre, moment);
   // The medium's images of the current element (m_centre lies on each mirror plane).
-  for (const ImageSource& image : m_images) add_point(image.point(r) - m_centre, image.current(moment));
+  for (const ImageSource& image : m_images)
+    add_point(image.fresnel ? m_reflected : m_points, image.point(r) - m_centre, image.current(moment));
 }
 
-FarFieldSample FarField::at(Real theta, Real phi) const {
-  if (m_ground && theta > 0.5 * pi + 1e-12) return {0.0, 0.0};
-  const Real st = std::sin(theta), ct = std::cos(theta), sp = std::sin(phi), cp = std::cos(phi);
-  const Real rx = m_k * st * cp, ry = m_k * st * sp, rz = m_k * ct;
+Eigen::Vector3cd FarField::PointSources::sum(Real rx, Real ry, Real rz) const {
   // Phases of all points first, then their factors in one vectorised call; per-thread
   // buffers because directions are evaluated in parallel.
   thread_local std::vector<Real> phase, sine, cosine;
-  const int count = static_cast<int>(m_x.size());
+  const int count = static_cast<int>(x.size());
   phase.resize(count);
   sine.resize(count);
   cosine.resize(count);
-  for (int p = 0; p < count; ++p) phase[p] = rx * m_x[p] + ry * m_y[p] + rz * m_z[p];
+  for (int p = 0; p < count; ++p) phase[p] = rx * x[p] + ry * y[p] + rz * z[p];
   sine_cosine(phase.data(), sine.data(), cosine.data(), count);
   Eigen::Vector3cd n;
   for (int c = 0; c < 3; ++c) {
-    const Real* re = m_moment_re[c].data();
-    const Real* im = m_moment_im[c].data();
+    const Real* re = moment_re[c].data();
+    const Real* im = moment_im[c].data();
     Real sum_re = 0.0, sum_im = 0.0;
 #pragma omp simd reduction(+ : sum_re, sum_im)
     for (int p = 0; p < count; ++p) {
@@ -75,9 +77,25 @@ FarFieldSample FarField::at(Real theta, Real phi) const {
     }
     n[c] = Complex(sum_re, sum_im);
   }
+  return n;
+}
+
+FarFieldSample FarField::at(Real theta, Real phi) const {
+  if (m_ground && theta > 0.5 * pi + 1e-12) return {0.0, 0.0};
+  const Real st = std::sin(theta), ct = std::cos(theta), sp = std::sin(phi), cp = std::cos(phi);
+  const Real rx = m_k * st * cp, ry = m_k * st * sp, rz = m_k * ct;
+  const Eigen::Vector3cd n = m_points.sum(rx, ry, rz);
   const Vec3 theta_hat(ct * cp, ct * sp, -st), phi_hat(-sp, cp, 0.0);
   const Complex factor = far_zone_factor(m_omega);
   FarFieldSample e{factor * theta_hat.cast<Complex>().dot(n), factor * phi_hat.cast<Complex>().dot(n)};
+  if (m_ground_permittivity) {
+    // The perfect ground's image field, its vertical (θ̂) part times Γv and its horizontal
+    // (φ̂) part times −Γh at incidence θ (both 1 over a perfect conductor).
+    const Eigen::Vector3cd image = m_reflected.sum(rx, ry, rz);
+    const FresnelCoefficients g = fresnel_coefficients(*m_ground_permittivity, std::max(ct, 0.0));
+    e.e_theta += g.vertical * factor * theta_hat.cast<Complex>().dot(image);
+    e.e_phi -= g.horizontal * factor * phi_hat.cast<Complex>().dot(image);
+  }
   if (m_slab) {
     const SlabFarFieldFactors t = slab_far_field_factors(*m_slab, theta);
     e.e_theta *= t.tm;

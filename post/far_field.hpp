@@ -17,7 +17,8 @@ struct FarFieldSample {
 
 /// Radiation from the current on every segment, triangle and junction star at the points of
 /// solver/basis_samples, and from their images in the problem's medium (over a perfect
-/// ground the field below z = 0 is zero; on a substrate the free-space field of the printed
+/// ground the field below z = 0 is zero; over real ground the image's field is weighted by
+/// Fresnel's coefficients, the space wave only; on a substrate the free-space field of the printed
 /// currents times the slab's factors, solver/grounded_slab). Antennas and scatterers alike. Precomputes the
 /// points once; then each direction costs O(S + T).
 class FarField {
@@ -50,11 +51,19 @@ class FarField {
   Real m_extent = 0.0;
   /// Quadrature points relative to m_centre (m), and current × direction × weight (A·m),
   /// as separate real arrays so that the sum over points vectorises.
-  std::vector<Real> m_x, m_y, m_z;
-  std::array<std::vector<Real>, 3> m_moment_re, m_moment_im;
+  struct PointSources {
+    std::vector<Real> x, y, z;
+    std::array<std::vector<Real>, 3> moment_re, moment_im;
+    /// Σ moment e^{j (rx x + ry y + rz z)}.
+    Eigen::Vector3cd sum(Real rx, Real ry, Real rz) const;
+  };
+  /// The currents and the images with fixed signs; over real ground the perfect ground's
+  /// images apart, weighted per direction by Fresnel's coefficients.
+  PointSources m_points, m_reflected;
+  std::optional<Complex> m_ground_permittivity;
 
   /// A current moment (A·m) at x, relative to m_centre.
-  void add_point(const Vec3& x, const Eigen::Vector3cd& moment);
+  void add_point(PointSources& set, const Vec3& x, const Eigen::Vector3cd& moment);
   /// A current moment at r (absolute) and its images in the medium.
   void add_source(const Vec3& r, const Eigen::Vector3cd& moment);
 };

@@ -30,9 +30,10 @@ FrequencyResult evaluate_frequency(const AntennaProblem& problem, const Frequenc
   result.power = power_budget(problem, solution);
   result.power.radiated = field.radiated_power();
   result.power.surface_wave = surface_wave_power(problem, solution);
-  if (problem.medium.has_slab() && problem.medium.slab_permittivity().imag() != 0.0)
-    result.power.dielectric_loss = result.power.accepted - result.power.radiated - result.power.surface_wave -
-                                   result.power.conductor_loss - result.power.load_loss;
+  const Real remainder = result.power.accepted - result.power.radiated - result.power.surface_wave -
+                        result.power.conductor_loss - result.power.load_loss - result.power.line_loss;
+  if (problem.medium.has_slab() && problem.medium.slab_permittivity().imag() != 0.0) result.power.dielectric_loss = remainder;
+  if (problem.medium.has_real_ground()) result.power.ground_loss = remainder;
 
   // Incident power of waves a = (V + Z0 I)/(2√Z0) from Z0 sources: realized gain counts
   // the mismatch, G_realized = 4πU / P_incident.

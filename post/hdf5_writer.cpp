@@ -106,6 +106,7 @@ void write_model(hid_t file, const RunRecord& run) {
   write_ints(g, "value_overridden", {overridden.size()}, overridden);
   string_attribute(g, "file", model.file);
   string_attribute(g, "ground", run.problem.medium.name());
+  if (run.problem.medium.has_real_ground()) string_attribute(g, "ground_method", run.problem.medium.ground_method());
   if (const auto& board = model.substrate) {
     string_attribute(g, "substrate", board->name);
     write_reals(g, "substrate_thickness_m", {1}, {board->thickness}, "m");
@@ -113,6 +114,10 @@ void write_model(hid_t file, const RunRecord& run) {
     write_reals(g, "substrate_loss_tangent", {1}, {board->loss_tangent}, "1");
   }
   write_reals(g, "reference_ohm", {1}, {model.reference_ohm}, "ohm");
+  if (const auto& soil = model.real_ground) {
+    write_reals(g, "ground_permittivity", {1}, {soil->permittivity}, "1 (relative)");
+    write_reals(g, "ground_conductivity_s_per_m", {1}, {soil->conductivity}, "S/m");
+  }
   std::vector<std::string> band_names;
   std::vector<Real> band_edges;
   for (const auto& b : model.bands) {
@@ -194,6 +199,7 @@ void write_power(hid_t file, const RunRecord& run) {
   power("surface_wave_w", "W", [](const PowerBudget& p) { return p.surface_wave; });
   power("dielectric_loss_w", "W", [](const PowerBudget& p) { return p.dielectric_loss; });
   power("line_loss_w", "W", [](const PowerBudget& p) { return p.line_loss; });
+  power("ground_loss_w", "W (over real ground: the rest of the balance)", [](const PowerBudget& p) { return p.ground_loss; });
   power("efficiency", "1", [](const PowerBudget& p) { return p.efficiency(); });
   power("balance_miss", "1", [](const PowerBudget& p) { return p.imbalance(); });
 }

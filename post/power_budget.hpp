@@ -17,11 +17,15 @@ struct PowerBudget {
   /// In a lossy substrate: what the accepted power leaves after everything else (the one
   /// figure taken by balance, so a lossy board's balance is not checked).
   Real dielectric_loss = 0.0;
+  /// Over real ground: what the accepted power leaves after everything else, the power the
+  /// soil absorbs (taken by balance, so its balance is not checked either).
+  Real ground_loss = 0.0;
   Real efficiency() const { return accepted > 0.0 ? radiated / accepted : 0.0; }
   /// (accepted − radiated − surface waves − losses)/accepted: zero for an exact solution.
   Real imbalance() const {
     return accepted > 0.0
-               ? (accepted - radiated - surface_wave - conductor_loss - load_loss - line_loss - dielectric_loss) / accepted
+               ? (accepted - radiated - surface_wave - conductor_loss - load_loss - line_loss - dielectric_loss -
+                  ground_loss) / accepted
                : 0.0;
   }
 };

@@ -156,14 +156,17 @@ std::string run_summary(const RunRecord& run) {
   const bool board = model.substrate.has_value();
   const bool lines = std::any_of(run.results.begin(), run.results.end(),
                                  [](const FrequencyResult& r) { return r.power.line_loss > 0.0; });
-  out += formatted("%-14s %11s %15s %12s %7s %10s%s%s\n", "frequency", "peak (dBi)", "at theta/phi", "AR (dB)", "hand",
-                   "efficiency", board ? "  surface waves  dielectric" : "", lines ? "  line loss (dB)" : "");
+  const bool soil = run.problem.medium.has_real_ground();
+  out += formatted("%-14s %11s %15s %12s %7s %10s%s%s%s\n", "frequency", "peak (dBi)", "at theta/phi", "AR (dB)", "hand",
+                   "efficiency", board ? "  surface waves  dielectric" : "", soil ? "  into ground" : "",
+                   lines ? "  line loss (dB)" : "");
   for (const auto& r : run.results) {
     const std::string direction = formatted("%.0f/%.0f deg", r.peak_theta * 180 / pi, r.peak_phi * 180 / pi);
     const Real accepted = r.power.accepted > 0.0 ? r.power.accepted : 1.0;
     std::string losses =
         board ? formatted(" %14.1f%% %10.1f%%", 100.0 * r.power.surface_wave / accepted, 100.0 * r.power.dielectric_loss / accepted)
               : std::string();
+    if (soil) losses += formatted(" %12.1f%%", 100.0 * r.power.ground_loss / accepted);
     if (lines) losses += formatted(" %15.2f", line_loss_db(r.power));
     out += formatted("%-14s %11.2f %15s %12.2f %7s %9.1f%%%s%s\n", frequency_text(r.frequency_hz).c_str(),
                      r.peak_gain_dbi, direction.c_str(), r.peak_axial_ratio_db, hand_name(r.peak_hand),

@@ -17,6 +17,7 @@ FillContext::FillContext(const AntennaProblem& p, Real frequency_hz)
       k(p.medium.wavenumber(frequency_hz)),
       vector_factor(p.medium.vector_factor(frequency_hz)),
       scalar_factor(p.medium.scalar_factor(frequency_hz)),
+      ground_permittivity(p.medium.has_real_ground() ? p.medium.ground_permittivity(frequency_hz) : Complex(1.0)),
       slab(p.medium.has_slab() ? shared_slab_kernel_table(p.medium.slab(frequency_hz),
                                                           structure_extent_m(p.mesh, p.surfaces.mesh, p.medium))
                                : nullptr),

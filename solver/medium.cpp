@@ -3,6 +3,7 @@
 #include <cmath>
 
 #include "core/constants.hpp"
+#include "solver/fresnel.hpp"
 
 namespace lobe {
 
@@ -33,9 +34,23 @@ Medium Medium::over_grounded_slab(Real thickness, Complex permittivity) {
   return medium;
 }
 
+Medium Medium::over_real_ground(Real permittivity, Real conductivity) {
+  Medium medium = over_perfect_ground();
+  medium.m_images.front().fresnel = true;
+  medium.m_real_ground = true;
+  medium.m_ground_permittivity = permittivity;
+  medium.m_ground_conductivity = conductivity;
+  return medium;
+}
+
+Complex Medium::ground_permittivity(Real frequency_hz) const {
+  return lobe::ground_permittivity(m_ground_permittivity, m_ground_conductivity, frequency_hz);
+}
+
 Medium Medium::of(const Model& model) {
   if (const auto& board = model.substrate)
     return over_grounded_slab(board->thickness, Complex(board->permittivity, -board->permittivity * board->loss_tangent));
+  if (const auto& soil = model.real_ground) return over_real_ground(soil->permittivity, soil->conductivity);
   return model.ground_perfect ? over_perfect_ground() : free_space();
 }
 

@@ -20,6 +20,9 @@ struct ImageSource {
   Eigen::Matrix3d mirror = Eigen::Matrix3d::Identity();
   Real current_sign = 1.0;
   Real charge_sign = 1.0;
+  /// Over real ground: the perfect ground's image, weighted pair by pair with Fresnel's
+  /// coefficients (solver/fresnel.hpp) instead of the signs above.
+  bool fresnel = false;
 
   Vec3 point(const Vec3& r) const { return mirror * r; }
   /// The image of a current element (or of a field vector, for a reflected wave).
@@ -50,6 +53,10 @@ class Medium {
   /// A slab 0 < z < thickness of relative permittivity εr (Im ≤ 0 when lossy) on a
   /// perfect ground; sources lie on its top face.
   static Medium over_grounded_slab(Real thickness, Complex permittivity);
+  /// Real ground in z < 0 of relative permittivity εr and conductivity σ: the perfect
+  /// ground's image weighted by Fresnel's reflection coefficients (the reflection-
+  /// coefficient approximation, valid for wires well above the soil).
+  static Medium over_real_ground(Real permittivity, Real conductivity);
   static Medium of(const Model& model);
 
   /// Wavenumber of the space the structure is in, rad/m.
@@ -62,6 +69,9 @@ class Medium {
   const std::vector<ImageSource>& images() const { return m_images; }
   /// True when z < 0 is conductor: no source may be there and no field reaches there.
   bool has_ground() const { return m_ground; }
+  bool has_real_ground() const { return m_real_ground; }
+  /// εg = εr − jσ/(ωε0) of real ground.
+  Complex ground_permittivity(Real frequency_hz) const;
   /// True for a grounded slab; then slab() gives it at a frequency.
   bool has_slab() const { return m_slab_thickness > 0.0; }
   GroundedSlab slab(Real frequency_hz) const { return {m_slab_thickness, m_slab_permittivity, wavenumber(frequency_hz)}; }
@@ -69,13 +79,21 @@ class Medium {
   Complex slab_permittivity() const { return m_slab_permittivity; }
   /// The waves that reach the structure when `wave` arrives: itself and its reflections.
   std::vector<IncidentWave> waves_reaching(const IncidentWave& wave) const;
-  std::string name() const { return has_slab() ? "substrate" : has_ground() ? "perfect" : "none"; }
+  std::string name() const {
+    return has_slab() ? "substrate" : m_real_ground ? "real" : has_ground() ? "perfect" : "none";
+  }
+  /// How the ground's near interaction is computed, for the run's report ("" without one).
+  std::string ground_method() const {
+    return m_real_ground ? "reflection-coefficient image" : has_ground() && !has_slab() ? "exact image" : "";
+  }
 
  private:
   std::vector<ImageSource> m_images;
   bool m_ground = false;
   Real m_slab_thickness = 0.0;
   Complex m_slab_permittivity = 1.0;
+  bool m_real_ground = false;
+  Real m_ground_permittivity = 1.0, m_ground_conductivity = 0.0;
 };
 
 }  // namespace lobe

@@ -26,6 +26,7 @@ struct FillContext {
   Real k;                ///< wavenumber, rad/m
   Complex vector_factor; ///< jωμ
   Complex scalar_factor; ///< −j/(ωε)
+  Complex ground_permittivity;  ///< εg of real ground (its images are weighted with it)
   /// On a substrate, its kernels at this frequency (else null): the integrators then take
   /// the quasi-static part from the free-space integrals and add the table's remainder.
   std::shared_ptr<const SlabKernelTable> slab;

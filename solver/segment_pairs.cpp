@@ -1,6 +1,8 @@
 // Segment–segment terms of the wire fill.
 #include "solver/pair_integrators.hpp"
 
+#include "solver/fresnel.hpp"
+
 namespace lobe {
 namespace {
 
@@ -10,14 +12,17 @@ constexpr Real slope[2] = {-1.0, 1.0};
 /// The self pair is symmetric in (i, j); average away the quadrature's asymmetry.
 void symmetrize(PairIntegrals& integrals) { integrals[1] = integrals[2] = 0.5 * (integrals[1] + integrals[2]); }
 
-/// One image term of a pair: its integrals, their sum (the scalar-potential term) and the
-/// dot product of the observer's direction with the imaged source's, worked out once per
-/// pair rather than per pair of basis pieces.
+/// One image term of a pair: its integrals, their sum (the scalar-potential term), the
+/// weight of the vector term (the observer's direction dotted with the image current of a
+/// unit source current) and of the scalar term, worked out once per pair rather than per
+/// pair of basis pieces.
 struct ImagePair {
   PairIntegrals integrals;
   Complex phi;
-  Real dot;
+  Complex current_weight, charge_weight;
 };
+
+Vec3 midpoint(const SegmentGeometry& s) { return 0.5 * (s.start + s.end); }
 
 }  // namespace
 
@@ -36,7 +41,16 @@ void add_segment_segment_terms(const FillContext& c, int s, std::vector<MatrixCo
       image.integrals = segment_pair_integrals(g.segments[s], g.images[i].segments[t], c.k);
       if (s == t) symmetrize(image.integrals);
       image.phi = image.integrals[0] + image.integrals[1] + image.integrals[2] + image.integrals[3];
-      image.dot = g.directions[s].dot(g.images[i].directions[t]);
+      const ImageSource& source = g.images[i].image;
+      if (source.fresnel) {
+        const GroundImageWeights w =
+            ground_image_weights(c.ground_permittivity, midpoint(g.segments[s]), midpoint(g.segments[t]));
+        image.current_weight = g.directions[s].cast<Complex>().dot(w.current * g.directions[t].cast<Complex>());
+        image.charge_weight = w.charge;
+      } else {
+        image.current_weight = source.current_sign * g.directions[s].dot(g.images[i].directions[t]);
+        image.charge_weight = source.charge_sign;
+      }
     }
     const Real direct_dot = g.directions[s].dot(g.directions[t]);
     const Complex phi = direct[0] + direct[1] + direct[2] + direct[3];
@@ -45,12 +59,9 @@ void add_segment_segment_terms(const FillContext& c, int s, std::vector<MatrixCo
         const int ij = 2 * pm.peak_end + pn.peak_end;
         const Real divergence = slope[pm.peak_end] * slope[pn.peak_end] / (g.lengths[s] * g.lengths[t]);
         Complex value = c.vector_factor * direct_dot * direct[ij] + c.scalar_factor * divergence * phi;
-        for (std::size_t i = 0; i < g.images.size(); ++i) {
-          const ImageSource& source = g.images[i].image;
-          const ImagePair& image = image_pairs[i];
-          value += source.current_sign * (c.vector_factor * image.dot * image.integrals[ij]) +
-                   source.charge_sign * (c.scalar_factor * divergence * image.phi);
-        }
+        for (const ImagePair& image : image_pairs)
+          value += image.current_weight * (c.vector_factor * image.integrals[ij]) +
+                   image.charge_weight * (c.scalar_factor * divergence * image.phi);
         out.push_back({pm.basis, pn.basis, s != t, value * (pm.sign * pn.sign)});
       }
   }
