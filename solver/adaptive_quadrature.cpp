@@ -23,6 +23,7 @@ constexpr std::array<Real, 4> gauss_weights = {0.1294849661688696932706114326790
 
 Real magnitude(const Complex& v) { return std::abs(v); }
 Real magnitude(const Eigen::Vector2cd& v) { return v.norm(); }
+Real magnitude(const Eigen::Vector4cd& v) { return v.norm(); }
 
 template <class Value>
 struct Piece {
@@ -72,6 +73,11 @@ Complex integrate_adaptive(const std::function<Complex(Real)>& f, Real a, Real b
 }
 
 Eigen::Vector2cd integrate_adaptive(const std::function<Eigen::Vector2cd(Real)>& f, Real a, Real b, Real relative,
+                                    Real absolute) {
+  return integrate(f, a, b, relative, absolute);
+}
+
+Eigen::Vector4cd integrate_adaptive(const std::function<Eigen::Vector4cd(Real)>& f, Real a, Real b, Real relative,
                                     Real absolute) {
   return integrate(f, a, b, relative, absolute);
 }

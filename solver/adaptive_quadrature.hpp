@@ -16,6 +16,10 @@ Complex integrate_adaptive(const std::function<Complex(Real)>& f, Real a, Real b
 Eigen::Vector2cd integrate_adaptive(const std::function<Eigen::Vector2cd(Real)>& f, Real a, Real b, Real relative,
                                     Real absolute = 0.0);
 
+/// The same for four integrands.
+Eigen::Vector4cd integrate_adaptive(const std::function<Eigen::Vector4cd(Real)>& f, Real a, Real b, Real relative,
+                                    Real absolute = 0.0);
+
 /// The limit of the partial sums `partial`, accelerated by Wynn's ε algorithm (the last
 /// even column's newest entry).
 Complex wynn_epsilon_limit(const std::vector<Complex>& partial);

@@ -165,44 +165,40 @@ std::vector<Probe> probes_of(const Model& model, const WireMesh& mesh, const std
 }
 
 /// Below this height in wavelengths the reflection-coefficient image misjudges the near
-/// interaction with real ground by more than a few per cent, and a wire is refused; below
-/// `real_ground_warning_height` it is used with a warning.
-constexpr Real real_ground_lowest_height = 0.1;
-constexpr Real real_ground_warning_height = 0.25;
+/// interaction with real ground by more than a few per cent: lower wires take the
+/// Sommerfeld integrals.
+constexpr Real sommerfeld_below_height = 0.25;
+/// The Sommerfeld term is integrated by points along each segment; a segment much longer
+/// than its height would need more than the rule has. Closer than a few radii the
+/// thin-wire kernel cannot see the soil.
+constexpr Real longest_segment_over_height = 5.0;
+constexpr Real lowest_height_in_radii = 3.0;
 
 /// Over real ground: wires only (plates, bodies and plane waves need the ground's kernels
-/// for surfaces and its reflected wave, not modelled yet), all of them high enough above
-/// the soil for the reflection-coefficient image (solver/fresnel.hpp).
-std::vector<MeshWarning> check_over_real_ground(const Model& model, const WireMesh& mesh) {
-  const RealGround& soil = *model.real_ground;
+/// for surfaces and its reflected wave, not modelled yet), and the near interaction chosen
+/// by the lowest wire's height: the reflection-coefficient image above a quarter
+/// wavelength (at the lowest frequency), the Sommerfeld integrals below.
+void choose_real_ground_method(const Model& model, const WireMesh& mesh, Medium& medium) {
   if (!model.surfaces.empty())
     throw InputError(model.surfaces.front().where, "plates and bodies over real ground are not modelled yet; model "
                                                    "the structure with wires, or use 'ground perfect'");
   if (model.wave) throw InputError(model.wave->where, "plane waves over real ground are not modelled yet");
+  if (mesh.segments.empty()) return;
   const Real lowest_frequency = *std::min_element(model.frequencies_hz.begin(), model.frequencies_hz.end());
-  const Real wavelength = speed_of_light / lowest_frequency;
-  std::size_t lowest = 0;
-  for (std::size_t s = 0; s < mesh.segments.size(); ++s)
-    if (std::min(mesh.segments[s].start.z(), mesh.segments[s].end.z()) <
-        std::min(mesh.segments[lowest].start.z(), mesh.segments[lowest].end.z()))
-      lowest = s;
-  if (mesh.segments.empty()) return {};
-  const Segment& seg = mesh.segments[lowest];
-  const Real height = std::min(seg.start.z(), seg.end.z()) / wavelength;
-  const Wire& wire = model.wires[seg.wire];
-  const std::string where = formatted("wire '%s' comes within %.3g wavelength of the real ground (%s above it at %.6g MHz)",
-                                      wire.name.c_str(), height, millimetres(height * wavelength).c_str(),
-                                      lowest_frequency / 1e6);
-  if (height < real_ground_lowest_height)
-    throw InputError(wire.where, where + formatted("; below %.2g wavelength the reflection-coefficient image lobe uses "
-                                                   "is not accurate, and the Sommerfeld treatment for wires near soil "
-                                                   "is not implemented yet: raise it, or use 'ground perfect'",
-                                                   real_ground_lowest_height));
-  if (height < real_ground_warning_height)
-    return {{soil.where, where + formatted("; below %.2g wavelength the reflection-coefficient image misjudges the "
-                                           "ground's near field, so the impedance may be off by several per cent",
-                                           real_ground_warning_height)}};
-  return {};
+  Real lowest = INFINITY;
+  for (const Segment& seg : mesh.segments) {
+    const Real z = std::min(seg.start.z(), seg.end.z());
+    const Wire& wire = model.wires[seg.wire];
+    lowest = std::min(lowest, z);
+    if (z < lowest_height_in_radii * seg.radius)
+      throw InputError(wire.where, "wire '" + wire.name + "' comes within " + millimetres(z) + " of the real ground, "
+                                   "closer than three of its radii: the thin-wire model cannot see the soil that close");
+    if (seg.length() > longest_segment_over_height * z && z < sommerfeld_below_height * speed_of_light / lowest_frequency)
+      throw InputError(wire.where, "wire '" + wire.name + "' has segments of " + millimetres(seg.length()) +
+                                       " at " + millimetres(z) + " above the real ground; near the soil a segment may "
+                                       "be at most five times its height: give the wire more segments");
+  }
+  if (lowest < sommerfeld_below_height * speed_of_light / lowest_frequency) medium.use_sommerfeld_near_ground();
 }
 
 void check_surfaces_above_ground(const Model& model, const Medium& medium, const SurfaceMeshReport& surfaces) {
@@ -352,8 +348,7 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
       if (stars[j].bases.front() == probe.basis) probe.star = static_cast<int>(j);
   }
   for (MeshWarning& w : check_frequency_limits(m, medium, mesh, surfaces.mesh)) mesh.warnings.push_back(std::move(w));
-  if (m.real_ground)
-    for (MeshWarning& w : check_over_real_ground(m, mesh)) mesh.warnings.push_back(std::move(w));
+  if (m.real_ground) choose_real_ground_method(m, mesh, medium);
   if (m.substrate)
     mesh.warnings.push_back(
         {m.substrate->where, "substrate '" + m.substrate->name + "' and its ground are modelled as infinite: a real "

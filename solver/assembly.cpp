@@ -11,6 +11,23 @@
 
 namespace lobe {
 
+namespace {
+
+/// The reflected field over every distance between a wire point and a wire point's mirror
+/// image: from twice the lowest height to the farthest pair.
+std::shared_ptr<const GroundKernelTable> ground_kernel_table(const AntennaProblem& p, Real frequency_hz) {
+  Vec3 low = Vec3::Constant(INFINITY), high = Vec3::Constant(-INFINITY);
+  for (const Segment& s : p.mesh.segments)
+    for (const Vec3& r : {s.start, s.end}) low = low.cwiseMin(r), high = high.cwiseMax(r);
+  const Real shortest = 2 * low.z();
+  const Real longest = std::hypot(high.x() - low.x(), high.y() - low.y(), 2 * high.z());
+  return std::make_shared<const GroundKernelTable>(p.medium.ground_permittivity(frequency_hz),
+                                                   p.medium.wavenumber(frequency_hz), shortest, longest,
+                                                   std::asin(shortest / longest));
+}
+
+}  // namespace
+
 FillContext::FillContext(const AntennaProblem& p, Real frequency_hz)
     : problem(p),
       geometry(*p.geometry),
@@ -22,7 +39,8 @@ FillContext::FillContext(const AntennaProblem& p, Real frequency_hz)
                                                           structure_extent_m(p.mesh, p.surfaces.mesh, p.medium))
                                : nullptr),
       probe_kernels(slab && !p.probes.empty() ? shared_probe_kernels(slab->slab(), slab->reach())
-                                              : nullptr) {}
+                                              : nullptr),
+      ground_table(p.medium.near_ground_by_sommerfeld() ? ground_kernel_table(p, frequency_hz) : nullptr) {}
 
 void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMatrix& matrix) {
   LOBE_CHECK(matrix.size() == problem.unknowns(), "system matrix of the wrong size");

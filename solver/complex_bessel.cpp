@@ -33,14 +33,15 @@ SeriesValues series(Complex z) {
   return {j0, y0};
 }
 
-/// Σ (∓j)^k a_k / z^k with a_k = (−1)^k (1·9·…·(2k−1)²)/(k! 8^k), summed to its smallest term:
-/// H0⁽¹,²⁾(z) = √(2/(πz)) e^{±j(z − π/4)} times this sum with the matching sign.
-Complex asymptotic_sum(Complex z, Complex sign) {
+/// Σ (±j)^k a_k(n) / z^k with a_k(n) = Π_{i≤k} (4n² − (2i−1)²)/(k! 8^k), summed to its smallest
+/// term: Hn⁽¹,²⁾(z) = √(2/(πz)) e^{±j(z − nπ/2 − π/4)} times this sum with the matching sign.
+Complex asymptotic_sum(Complex z, Complex sign, int order = 0) {
+  const Real mu = 4.0 * order * order;
   Complex term = 1.0, sum = 1.0;
   Real previous = 1.0;
   for (int k = 1; k < 60; ++k) {
     const Real odd = 2.0 * k - 1.0;
-    const Complex next = term * (-odd * odd / (8.0 * k)) * sign / z;
+    const Complex next = term * ((mu - odd * odd) / (8.0 * k)) * sign / z;
     if (std::abs(next) >= previous) break;
     term = next;
     previous = std::abs(term);
@@ -50,11 +51,25 @@ Complex asymptotic_sum(Complex z, Complex sign) {
   return sum;
 }
 
-Complex hankel_asymptotic(Complex z, bool second_kind) {
-  const Complex chi = z - 0.25 * pi;
+Complex hankel_asymptotic(Complex z, bool second_kind, int order = 0) {
+  const Complex chi = z - 0.5 * order * pi - 0.25 * pi;
   const Complex amplitude = std::sqrt(2.0 / (pi * z));
-  return second_kind ? amplitude * std::exp(-j_unit * chi) * asymptotic_sum(z, -j_unit)
-                     : amplitude * std::exp(j_unit * chi) * asymptotic_sum(z, j_unit);
+  return second_kind ? amplitude * std::exp(-j_unit * chi) * asymptotic_sum(z, -j_unit, order)
+                     : amplitude * std::exp(j_unit * chi) * asymptotic_sum(z, j_unit, order);
+}
+
+/// J_n = (z/2)^n Σ (−z²/4)^k/(k!(k+n)!).
+Complex series_j(int order, Complex z) {
+  const Complex x = -0.25 * z * z;
+  Complex term = 1.0;
+  for (int i = 1; i <= order; ++i) term *= 0.5 * z / Real(i);
+  Complex sum = term;
+  for (int k = 1; k < 200; ++k) {
+    term *= x / Real(k * (k + order));
+    sum += term;
+    if (std::abs(term) < 1e-17 * std::abs(sum)) break;
+  }
+  return sum;
 }
 
 }  // namespace
@@ -62,6 +77,11 @@ Complex hankel_asymptotic(Complex z, bool second_kind) {
 Complex bessel_j0(Complex z) {
   if (std::abs(z) < series_radius) return series(z).j0;
   return 0.5 * (hankel_asymptotic(z, false) + hankel_asymptotic(z, true));
+}
+
+Complex bessel_j(int order, Complex z) {
+  if (std::abs(z) < series_radius) return series_j(order, z);
+  return 0.5 * (hankel_asymptotic(z, false, order) + hankel_asymptotic(z, true, order));
 }
 
 Complex hankel2_0(Complex z) {

@@ -70,6 +70,11 @@ class Medium {
   /// True when z < 0 is conductor: no source may be there and no field reaches there.
   bool has_ground() const { return m_ground; }
   bool has_real_ground() const { return m_real_ground; }
+  /// Over real ground, the wires' near interaction with it by the exact reflected field
+  /// (Sommerfeld integrals, solver/ground_kernel_table) instead of the weighted image;
+  /// the far field keeps the image (exact there).
+  void use_sommerfeld_near_ground(bool use = true) { m_sommerfeld = use && m_real_ground; }
+  bool near_ground_by_sommerfeld() const { return m_sommerfeld; }
   /// εg = εr − jσ/(ωε0) of real ground.
   Complex ground_permittivity(Real frequency_hz) const;
   /// True for a grounded slab; then slab() gives it at a frequency.
@@ -84,7 +89,10 @@ class Medium {
   }
   /// How the ground's near interaction is computed, for the run's report ("" without one).
   std::string ground_method() const {
-    return m_real_ground ? "reflection-coefficient image" : has_ground() && !has_slab() ? "exact image" : "";
+    return m_sommerfeld    ? "Sommerfeld integrals"
+           : m_real_ground ? "reflection-coefficient image"
+           : has_ground() && !has_slab() ? "exact image"
+                                         : "";
   }
 
  private:
@@ -92,7 +100,7 @@ class Medium {
   bool m_ground = false;
   Real m_slab_thickness = 0.0;
   Complex m_slab_permittivity = 1.0;
-  bool m_real_ground = false;
+  bool m_real_ground = false, m_sommerfeld = false;
   Real m_ground_permittivity = 1.0, m_ground_conductivity = 0.0;
 };
 

@@ -11,6 +11,7 @@
 
 #include "solver/antenna_problem.hpp"
 #include "solver/fill_geometry.hpp"
+#include "solver/ground_kernel_table.hpp"
 #include "solver/observer_rows.hpp"
 #include "solver/probe_kernels.hpp"
 #include "solver/slab_kernel_table.hpp"
@@ -27,6 +28,9 @@ struct FillContext {
   Complex vector_factor; ///< jωμ
   Complex scalar_factor; ///< −j/(ωε)
   Complex ground_permittivity;  ///< εg of real ground (its images are weighted with it)
+  /// Near real ground, its reflected field at this frequency (else null): the wires' image
+  /// terms are then replaced by it.
+  std::shared_ptr<const GroundKernelTable> ground_table;
   /// On a substrate, its kernels at this frequency (else null): the integrators then take
   /// the quasi-static part from the free-space integrals and add the table's remainder.
   std::shared_ptr<const SlabKernelTable> slab;

@@ -24,4 +24,10 @@ Complex sommerfeld_integral(const std::function<Complex(Complex)>& spectrum, Rea
 Eigen::Vector2cd sommerfeld_integral(const std::function<Eigen::Vector2cd(Complex)>& spectra, Real rho,
                                      const SommerfeldPath& path, Real relative = 1e-9);
 
+/// ∫₀^∞ f(kρ) dkρ along the same path for four integrands that carry their own Bessel
+/// functions of kρ ρ (and any factor kρ). ρ = 0 is allowed when they decay along the real
+/// axis by themselves (a source and observer above a half-space: e^{−|kz| (z + z')}).
+Eigen::Vector4cd sommerfeld_path_integral(const std::function<Eigen::Vector4cd(Complex)>& integrand, Real rho,
+                                          const SommerfeldPath& path, Real relative = 1e-9);
+
 }  // namespace lobe

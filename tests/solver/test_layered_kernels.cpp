@@ -42,6 +42,21 @@ TEST(ComplexBessel, AgreesWithTheStandardLibrary) {
   }
 }
 
+// J1 and J2 against the standard library on the real axis (C++17 special functions), and
+// the recurrence J0 + J2 = (2/z) J1 (Abramowitz & Stegun 9.1.27) off it, on both sides of
+// the switch from the series to the expansion.
+TEST(ComplexBessel, HigherOrdersAgreeWithTheStandardLibraryAndTheRecurrence) {
+  for (const int n : {0, 1, 2})
+    for (const Real x : {1e-3, 0.3, 1.0, 5.0, 11.9, 12.1, 20.0, 47.3, 300.0})
+      EXPECT_LT(std::abs(bessel_j(n, x) - std::cyl_bessel_j(Real(n), x)), 1e-10) << n << " " << x;
+  for (const Real r : {0.5, 4.0, 11.9, 12.1, 30.0})
+    for (const Real angle : {-0.05, 0.02, 0.08}) {
+      const Complex z = std::polar(r, angle);
+      EXPECT_LT(std::abs(bessel_j(0, z) + bessel_j(2, z) - 2.0 / z * bessel_j(1, z)), 1e-10 * std::max(1.0, std::abs(bessel_j(0, z))))
+          << z;
+    }
+}
+
 TEST(AdaptiveQuadrature, IntegratesKnownIntegrals) {
   // Kronrod's 15 points integrate degree 22 exactly; the adaptive rule, a peak and a log.
   EXPECT_NEAR(integrate_adaptive([](Real t) { return Complex(std::pow(t, 22)); }, 0.0, 1.0, 1e-14).real(), 1.0 / 23,
