@@ -33,6 +33,11 @@ int check_command(const std::string& model_path, const std::vector<std::string>&
               count_text(problem.mesh.junction_count, "junction").c_str(),
               count_text(problem.unknowns(), "unknown").c_str(), model.wave ? "lit by a plane wave" : count_text(model.ports.size(), "port").c_str(),
               count_text(model.loads.size(), "load").c_str());
+  if (!model.network.empty())
+    std::printf("feed network: %s meeting the antenna at %s\n", count_text(model.network.size(), "part").c_str(),
+                count_text(problem.network.antenna_ends().size(), "gap").c_str());
+  if (problem.medium.has_real_ground())
+    std::printf("ground: real, its near interaction by %s\n", problem.medium.ground_method().c_str());
   if (!model.surfaces.empty())
     std::printf("surfaces: %s, %s, %s, %s, smallest triangle angle %.1f deg\n",
                 count_text(model.surfaces.size(), "plate or body", "plates and bodies").c_str(),

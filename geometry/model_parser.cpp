@@ -757,14 +757,20 @@ class ModelParser {
     return loss;
   }
 
-  /// line NAME from END to END impedance Z0 length L velocity VF [loss ...] [crossed]
-  void line(TokenCursor& c, const Token& keyword) {
+  /// A network element of `kind` with its (new) name read.
+  NetworkElement new_element(TokenCursor& c, const Token& keyword, NetworkKind kind, const std::string& what) {
     NetworkElement e;
-    const Token& name = c.expect_name("a line name");
+    const Token& name = c.expect_name(what);
     require_new_part_name(name);
     e.name = name.text;
     e.where = keyword.where;
-    e.kind = NetworkKind::line;
+    e.kind = kind;
+    return e;
+  }
+
+  /// line NAME from END to END impedance Z0 length L velocity VF [loss ...] [crossed]
+  void line(TokenCursor& c, const Token& keyword) {
+    NetworkElement e = new_element(c, keyword, NetworkKind::line, "a line name");
     e.ends = two_ends(c, e.name);
     line_values(c, keyword, e, [&](const Token& option) { return option.text == "crossed" && (e.crossed = true); });
     m_model.network.push_back(e);
@@ -772,12 +778,7 @@ class ModelParser {
 
   /// stub NAME (on WIRE at POS | at NODE) impedance Z0 length L velocity VF (open | short) [loss ...]
   void stub(TokenCursor& c, const Token& keyword) {
-    NetworkElement e;
-    const Token& name = c.expect_name("a stub name");
-    require_new_part_name(name);
-    e.name = name.text;
-    e.where = keyword.where;
-    e.kind = NetworkKind::stub;
+    NetworkElement e = new_element(c, keyword, NetworkKind::stub, "a stub name");
     e.ends = {one_end(c, e.name)};
     int terminations = 0;
     line_values(c, keyword, e, [&](const Token& option) {
@@ -792,12 +793,7 @@ class ModelParser {
 
   /// transformer NAME from END to END ratio R: the impedance at `to` is R times that at `from`.
   void transformer(TokenCursor& c, const Token& keyword) {
-    NetworkElement e;
-    const Token& name = c.expect_name("a transformer name");
-    require_new_part_name(name);
-    e.name = name.text;
-    e.where = keyword.where;
-    e.kind = NetworkKind::transformer;
+    NetworkElement e = new_element(c, keyword, NetworkKind::transformer, "a transformer name");
     e.ends = two_ends(c, e.name);
     c.expect_word("ratio", "after the ends (the impedance ratio, 'to' over 'from', e.g. 4 for a 4:1 balun)");
     const Token& at = c.peek();

@@ -361,11 +361,10 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
   for (std::size_t p = 0; p < m.ports.size(); ++p) {
     if (m.ports[p].line) {
       port_vectors.col(p) = line_vector(m, m.ports[p], surfaces.line_edges[line++], surfaces, rwg, unknowns());
-    } else if (!m.ports[p].node.empty()) {
-      port_vectors.col(p).setZero();
     } else {
+      // A port at a free point of the feed network couples to the antenna only through it.
       port_vectors.col(p).setZero();
-      port_vectors.col(p).head(basis.size()) = basis.gap_vector(mesh.port_gaps[gap++]);
+      if (m.ports[p].node.empty()) port_vectors.col(p).head(basis.size()) = basis.gap_vector(mesh.port_gaps[gap++]);
     }
   }
   require_independent_ports(m, port_vectors);
