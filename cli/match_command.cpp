@@ -69,6 +69,14 @@ int match_command(const MatchOptions& options) {
   check_output_directory(directory);
 
   const std::vector<MatchDesign> designs = design_matches(request, {"--band", 1, 1});
+  const auto chosen = options.topology.empty()
+                          ? designs.begin()
+                          : std::find_if(designs.begin(), designs.end(), [&](const MatchDesign& d) { return d.topology == options.topology; });
+  const std::string heading = formatted("matching network ('%s', as built) designed by lobe match for %s to %s: %s",
+                                        chosen->topology.c_str(), frequency_text(request.band.low_hz).c_str(),
+                                        frequency_text(request.band.high_hz).c_str(), report_line(chosen->built_report).c_str());
+  // Made before anything is printed: a port the network cannot join is refused first.
+  const std::string matched = matched_model_text(model, port, chosen->built, heading);
   std::printf("lobe match: %s, port '%s' against %.6g ohm over %s to %s; goal: %s\n", options.result_path.c_str(),
               names[port].c_str(), request.reference_ohm, frequency_text(request.band.low_hz).c_str(),
               frequency_text(request.band.high_hz).c_str(), band_figure_title(request.goal).c_str());
@@ -80,14 +88,8 @@ int match_command(const MatchOptions& options) {
   std::printf("\n(inductors and capacitors: %s values; lines and stubs: %.6g ohm, velocity factor %.3g, to 0.1 mm)\n",
               options.series.c_str(), request.reference_ohm, request.velocity_factor);
 
-  const auto chosen = options.topology.empty()
-                          ? designs.begin()
-                          : std::find_if(designs.begin(), designs.end(), [&](const MatchDesign& d) { return d.topology == options.topology; });
-  const std::string heading = formatted("matching network ('%s', as built) designed by lobe match for %s to %s: %s",
-                                        chosen->topology.c_str(), frequency_text(request.band.low_hz).c_str(),
-                                        frequency_text(request.band.high_hz).c_str(), report_line(chosen->built_report).c_str());
   OutputFiles files(directory);
-  files.stage_text(output.filename().string(), matched_model_text(model, port, chosen->built, heading));
+  files.stage_text(output.filename().string(), matched);
   files.commit();
   std::printf("\nwritten: %s with the '%s' network as built; its band report:\n  %s\n", output.string().c_str(),
               chosen->topology.c_str(), report_line(chosen->built_report).c_str());

@@ -532,6 +532,19 @@ TEST(DemoModels, MatchDesignsANetworkWhoseRunConfirmsIt) {
   EXPECT_EQ(run_lobe("match '" + (dir / "out" / "yagi_3el_144.h5").string() + "' --band 300MHz:310MHz", dir).exit_code, 2);
 }
 
+// A port across a line on a plate cannot take a network: refused before anything is
+// printed or written.
+TEST(DemoModels, MatchRefusesAPlatePort) {
+  const auto dir = fresh_directory("match-plate");
+  const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/strip_dipole_868.lobe";
+  ASSERT_EQ(run_lobe("run '" + model + "' -o '" + (dir / "out").string() + "'", dir).exit_code, 0);
+  const ProcessResult r = run_lobe("match '" + (dir / "out" / "strip_dipole_868.h5").string() + "' -o m.lobe", dir);
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_NE(r.err.find("is on a plate; a matching network joins a port on a wire"), std::string::npos) << r.err;
+  EXPECT_TRUE(r.out.empty()) << r.out;
+  EXPECT_FALSE(std::filesystem::exists(dir / "m.lobe"));
+}
+
 // The 2 m ground plane over average soil: at grazing incidence real ground reflects the
 // vertically polarised wave with Γv = −1 (Balanis, Antenna Theory, §4.8), so the field
 // vanishes at the horizon and the beam lifts above it; matched at the radio through its
