@@ -513,10 +513,12 @@ TEST(DemoModels, MatchDesignsANetworkWhoseRunConfirmsIt) {
   const auto dir = fresh_directory("match");
   const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/yagi_3el_144.lobe";
   ASSERT_EQ(run_lobe("run '" + model + "' -o '" + (dir / "out").string() + "'", dir).exit_code, 0);
-  const ProcessResult designed = run_lobe("match '" + (dir / "out" / "yagi_3el_144.h5").string() + "' -o matched.lobe", dir);
+  const auto matched = dir / "matched.lobe";
+  const ProcessResult designed =
+      run_lobe("match '" + (dir / "out" / "yagi_3el_144.h5").string() + "' -o '" + matched.string() + "'", dir);
   ASSERT_EQ(designed.exit_code, 0) << designed.err;
   EXPECT_NE(designed.out.find("Parasitics of real components are not modelled"), std::string::npos);
-  const ProcessResult confirmed = run_lobe("run matched.lobe -o confirmed", dir);
+  const ProcessResult confirmed = run_lobe("run '" + matched.string() + "' -o '" + (dir / "confirmed").string() + "'", dir);
   ASSERT_EQ(confirmed.exit_code, 0) << confirmed.err;
   // match: "worst VSWR 1.33 at 146.000 MHz"; run: "worst 1.33 at 146.000 MHz".
   std::string predicted = worst_vswr_text(designed.out.substr(designed.out.find("written:")), "worst VSWR ");
@@ -538,7 +540,8 @@ TEST(DemoModels, MatchRefusesAPlatePort) {
   const auto dir = fresh_directory("match-plate");
   const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/strip_dipole_868.lobe";
   ASSERT_EQ(run_lobe("run '" + model + "' -o '" + (dir / "out").string() + "'", dir).exit_code, 0);
-  const ProcessResult r = run_lobe("match '" + (dir / "out" / "strip_dipole_868.h5").string() + "' -o m.lobe", dir);
+  const ProcessResult r =
+      run_lobe("match '" + (dir / "out" / "strip_dipole_868.h5").string() + "' -o '" + (dir / "m.lobe").string() + "'", dir);
   EXPECT_EQ(r.exit_code, 2);
   EXPECT_NE(r.err.find("is on a plate; a matching network joins a port on a wire"), std::string::npos) << r.err;
   EXPECT_TRUE(r.out.empty()) << r.out;
