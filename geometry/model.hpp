@@ -152,6 +152,10 @@ struct RealGround {
   SourceLocation where;
   Real permittivity = 1.0;   ///< relative
   Real conductivity = 0.0;   ///< S/m
+  /// A stated ground system under the antenna (radials or rods), by its loss resistance:
+  /// wires may then end on the ground, each joined to it through this resistance, and the
+  /// near interaction is taken over the system as over a perfect conductor. Ohm.
+  std::optional<Real> system_resistance;
 };
 
 struct Band {

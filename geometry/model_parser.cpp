@@ -829,7 +829,7 @@ class ModelParser {
     }
   }
 
-  /// ground none | perfect | real permittivity E conductivity S
+  /// ground none | perfect | real permittivity E conductivity S [system R]
   void ground(TokenCursor& c, const Token& keyword) {
     const Token& kind = c.expect_name("'none', 'perfect' or 'real'");
     m_model.real_ground.reset();
@@ -856,6 +856,13 @@ class ModelParser {
     if (!(g.conductivity >= 0.0 && g.conductivity <= 1e8))
       throw InputError(sigma_at.where, "the soil's conductivity must be from 0 to 1e8 S/m (poor soil about 0.001, "
                                        "sea water 5), got " + number_text(g.conductivity));
+    if (c.accept_word("system")) {
+      const Token& at = c.peek();
+      g.system_resistance = quantity_in(c, dimension::resistance, 1.0, "the ground system's loss resistance").value;
+      if (!(*g.system_resistance >= 0.0 && *g.system_resistance <= 1e4))
+        throw InputError(at.where, "the ground system's loss resistance must be from 0 to 10 kohm, got " +
+                                       number_text(*g.system_resistance));
+    }
     return g;
   }
 

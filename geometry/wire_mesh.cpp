@@ -390,8 +390,9 @@ class Mesher {
   }
 
   void check_ground() {
-    if (m_model.real_ground) return check_real_ground();
-    if (!m_model.ground_perfect) return;
+    const bool system = m_model.real_ground && m_model.real_ground->system_resistance;
+    if (m_model.real_ground && !system) return check_real_ground();
+    if (!m_model.ground_perfect && !system) return;
     for (auto& node : m_mesh.nodes) {
       const Real tolerance = touch_tolerance(m_mesh.segments[node.ends.front().segment].length());
       if (std::abs(node.position.z()) < tolerance) node.on_ground = true;
@@ -407,17 +408,17 @@ class Mesher {
     }
   }
 
-  /// Over real ground every wire stays above the soil. A wire into the soil needs a stated
-  /// ground system (radials or a ground rod's loss resistance) and the near-ground kernels
-  /// for the current entering it; lobe refuses it rather than invent that connection.
+  /// Over real ground without a stated ground system every wire stays above the soil: a
+  /// wire into the soil needs one (its loss resistance), and lobe refuses it rather than
+  /// invent that connection.
   void check_real_ground() {
     for (const auto& s : m_mesh.segments) {
       const Wire& wire = m_model.wires[s.wire];
       if (std::min(s.start.z(), s.end.z()) <= touch_tolerance(s.length()))
         throw InputError(wire.where, "wire '" + wire.name + "' touches or enters the real ground at z = 0; a wire "
-                                     "connected to soil needs a ground system (radials, or a ground rod's loss "
-                                     "resistance) that lobe does not model yet: raise the antenna above the ground "
-                                     "(an elevated ground plane), or use 'ground perfect'");
+                                     "connected to soil needs a stated ground system (radials or rods): give its loss "
+                                     "resistance, 'ground real ... system R ohm', or raise the antenna above the "
+                                     "ground (an elevated ground plane)");
     }
   }
 

@@ -52,7 +52,7 @@ void FarField::add_source(const Vec3& r, const Eigen::Vector3cd& moment) {
   add_point(m_points, r - m_centre, moment);
   // The medium's images of the current element (m_centre lies on each mirror plane).
   for (const ImageSource& image : m_images)
-    add_point(image.fresnel ? m_reflected : m_points, image.point(r) - m_centre, image.current(moment));
+    add_point(m_ground_permittivity ? m_reflected : m_points, image.point(r) - m_centre, image.current(moment));
 }
 
 Eigen::Vector3cd FarField::PointSources::sum(Real rx, Real ry, Real rz) const {

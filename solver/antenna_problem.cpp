@@ -179,10 +179,14 @@ constexpr Real lowest_height_in_radii = 3.0;
 /// by the lowest wire's height: the reflection-coefficient image above a quarter
 /// wavelength (at the lowest frequency), the Sommerfeld integrals below.
 void choose_real_ground_method(const Model& model, const WireMesh& mesh, Medium& medium) {
-  if (!model.surfaces.empty())
-    throw InputError(model.surfaces.front().where, "plates and bodies over real ground are not modelled yet; model "
-                                                   "the structure with wires, or use 'ground perfect'");
   if (model.wave) throw InputError(model.wave->where, "plane waves over real ground are not modelled yet");
+  // Over a stated ground system the near interaction is the exact image's, which takes
+  // wires on the ground and plates as over a perfect ground.
+  if (model.real_ground->system_resistance) return;
+  if (!model.surfaces.empty())
+    throw InputError(model.surfaces.front().where, "plates and bodies over real ground are not modelled yet (without "
+                                                   "a ground system); model the structure with wires, or use 'ground "
+                                                   "perfect'");
   if (mesh.segments.empty()) return;
   const Real lowest_frequency = *std::min_element(model.frequencies_hz.begin(), model.frequencies_hz.end());
   Real lowest = INFINITY;
@@ -293,6 +297,24 @@ void require_independent_ports(const Model& model, const Eigen::MatrixXd& port_v
     }
 }
 
+/// Per wire node on the ground, the coupling of the basis currents to the current flowing
+/// into the ground there: the sum over the wire ends at the node, each with the sense of
+/// its segment (into the node at a segment's end, out of it at its start).
+Eigen::MatrixXd ground_connections(const WireMesh& mesh, const WireBasis& basis, int unknowns) {
+  std::vector<Eigen::VectorXd> columns;
+  for (std::size_t n = 0; n < mesh.nodes.size(); ++n) {
+    const MeshNode& node = mesh.nodes[n];
+    if (!node.on_ground) continue;
+    Eigen::VectorXd p = Eigen::VectorXd::Zero(unknowns);
+    for (const SegmentEnd& e : node.ends)
+      p.head(basis.size()) += (e.end == 1 ? 1.0 : -1.0) * basis.gap_vector(Gap{e, static_cast<int>(n), {}, ""});
+    columns.push_back(p);
+  }
+  Eigen::MatrixXd vectors(unknowns, static_cast<Eigen::Index>(columns.size()));
+  for (std::size_t c = 0; c < columns.size(); ++c) vectors.col(static_cast<Eigen::Index>(c)) = columns[c];
+  return vectors;
+}
+
 }  // namespace
 
 AntennaProblem::AntennaProblem(const Model& m) : AntennaProblem(m, mesh_wires(m)) {}
@@ -377,6 +399,7 @@ AntennaProblem::AntennaProblem(const Model& m, WireMesh wires, SurfaceMeshReport
     network_gap_vectors.back().head(basis.size()) = basis.gap_vector(g);
   }
   network = FeedNetwork(m, port_vectors, load_vectors, network_gap_vectors);
+  if (m.real_ground && m.real_ground->system_resistance) ground_system_vectors = ground_connections(mesh, basis, unknowns());
 }
 
 void require_solvable(const AntennaProblem& problem) {

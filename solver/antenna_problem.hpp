@@ -57,6 +57,9 @@ struct AntennaProblem {
   Eigen::MatrixXd port_vectors;     ///< N × ports: column p couples basis currents to port p (zero at a free point)
   Eigen::MatrixXd load_vectors;     ///< N × loads
   FeedNetwork network;              ///< lines, stubs, transformers and parts; empty without them
+  /// Over real ground with a stated ground system: N × points where wires end on the
+  /// ground, coupling the basis currents to the current into the ground there.
+  Eigen::MatrixXd ground_system_vectors;
 
   int unknowns() const { return basis.size() + rwg.size(); }
 

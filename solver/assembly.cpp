@@ -83,6 +83,9 @@ void assemble_system(const AntennaProblem& problem, Real frequency_hz, SystemMat
     if (problem.network.load_is_stamped(l))
       matrix.add(load_stamp(problem.load_vectors.col(static_cast<Eigen::Index>(l)),
                             load_impedance(problem.model.loads[l].values, frequency_hz)));
+  // A stated ground system's loss, in series with the current into the ground at each point.
+  for (Eigen::Index g = 0; g < problem.ground_system_vectors.cols(); ++g)
+    matrix.add(load_stamp(problem.ground_system_vectors.col(g), *problem.model.real_ground->system_resistance));
   matrix.finish_fill();
 }
 

@@ -43,6 +43,12 @@ Medium Medium::over_real_ground(Real permittivity, Real conductivity) {
   return medium;
 }
 
+Medium Medium::over_ground_system(Real permittivity, Real conductivity) {
+  Medium medium = over_real_ground(permittivity, conductivity);
+  medium.m_images.front().fresnel = false;
+  return medium;
+}
+
 Complex Medium::ground_permittivity(Real frequency_hz) const {
   return lobe::ground_permittivity(m_ground_permittivity, m_ground_conductivity, frequency_hz);
 }
@@ -50,7 +56,9 @@ Complex Medium::ground_permittivity(Real frequency_hz) const {
 Medium Medium::of(const Model& model) {
   if (const auto& board = model.substrate)
     return over_grounded_slab(board->thickness, Complex(board->permittivity, -board->permittivity * board->loss_tangent));
-  if (const auto& soil = model.real_ground) return over_real_ground(soil->permittivity, soil->conductivity);
+  if (const auto& soil = model.real_ground)
+    return soil->system_resistance ? over_ground_system(soil->permittivity, soil->conductivity)
+                                   : over_real_ground(soil->permittivity, soil->conductivity);
   return model.ground_perfect ? over_perfect_ground() : free_space();
 }
 

@@ -21,7 +21,8 @@ struct ImageSource {
   Real current_sign = 1.0;
   Real charge_sign = 1.0;
   /// Over real ground: the perfect ground's image, weighted pair by pair with Fresnel's
-  /// coefficients (solver/fresnel.hpp) instead of the signs above.
+  /// coefficients (solver/fresnel.hpp) instead of the signs above. (Over real ground the
+  /// far field weights the image by them whether or not the fill does.)
   bool fresnel = false;
 
   Vec3 point(const Vec3& r) const { return mirror * r; }
@@ -57,6 +58,9 @@ class Medium {
   /// ground's image weighted by Fresnel's reflection coefficients (the reflection-
   /// coefficient approximation, valid for wires well above the soil).
   static Medium over_real_ground(Real permittivity, Real conductivity);
+  /// Real ground with a stated ground system under the antenna: the near interaction over
+  /// the system as over a perfect conductor (the exact image), the far field over the soil.
+  static Medium over_ground_system(Real permittivity, Real conductivity);
   static Medium of(const Model& model);
 
   /// Wavenumber of the space the structure is in, rad/m.
@@ -90,6 +94,7 @@ class Medium {
   /// How the ground's near interaction is computed, for the run's report ("" without one).
   std::string ground_method() const {
     return m_sommerfeld    ? "Sommerfeld integrals"
+           : m_real_ground && !m_images.front().fresnel ? "exact image over the ground system"
            : m_real_ground ? "reflection-coefficient image"
            : has_ground() && !has_slab() ? "exact image"
                                          : "";

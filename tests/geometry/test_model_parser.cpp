@@ -225,6 +225,21 @@ TEST(ModelParser, FeedNetworkErrors) {
             "m.lobe:5:6: a load named 'r' already exists");
 }
 
+TEST(ModelParser, RealGround) {
+  const Model m = parse_model(base + "ground real permittivity 13 conductivity 0.005 S/m system 12 ohm\n", "m.lobe");
+  ASSERT_TRUE(m.real_ground.has_value());
+  EXPECT_DOUBLE_EQ(m.real_ground->permittivity, 13.0);
+  EXPECT_DOUBLE_EQ(m.real_ground->conductivity, 0.005);
+  EXPECT_DOUBLE_EQ(*m.real_ground->system_resistance, 12.0);
+  EXPECT_FALSE(m.ground_perfect);
+  EXPECT_FALSE(parse_model(base + "ground real permittivity 5 conductivity 0.001\n", "m.lobe").real_ground->system_resistance);
+  EXPECT_FALSE(parse_model(base + "ground real permittivity 5 conductivity 0.001\nground none\n", "m.lobe").real_ground);
+  EXPECT_EQ(error_of(base + "ground real permittivity 13 conductivity 0.005 system -1 ohm\n"),
+            "m.lobe:4:55: the ground system's loss resistance must be from 0 to 10 kohm, got -1");
+  EXPECT_EQ(error_of(base + "ground real conductivity 0.005\n"),
+            "m.lobe:4:13: expected 'permittivity' after 'real', found 'conductivity'");
+}
+
 // 'conductor' names a wire, a plate or body, or all of them; a plate's metal may have a
 // thickness, a wire has its radius instead.
 TEST(ModelParser, ConductorOnPlates) {

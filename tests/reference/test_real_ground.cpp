@@ -96,6 +96,55 @@ TEST(RealGroundReference, LossySoilAbsorbsPower) {
   EXPECT_LT(soil.result.power.efficiency(), 0.95);
 }
 
+/// A quarter-wave vertical standing on the ground (λ = 1 m), fed at its base.
+Solved vertical_on(const char* ground) {
+  char text[500];
+  std::snprintf(text, sizeof text,
+                "units m\nwire whip from (0, 0, 0) to (0, 0, 0.25) radius 2e-3 segments 20\nport feed on whip at start\n"
+                "ground %s\nfrequency %.17g Hz\npattern theta 0 to 85 step 5 phi 0 to 0 step 1\n",
+                ground, one_metre_wavelength_hz);
+  return solve_text(text);
+}
+
+// A vertical on a stated ground system: its near field as over a perfect ground (the
+// system's screen), the system's loss resistance in series at its base (circuit law, 1e-9),
+// and its far field over the soil: each current element with its image weighted by Γv
+// (Balanis, Antenna Theory, §4.8, the vertical dipole above lossy ground), here summed over
+// the monopole's sinusoidal current I(z) = sin k(L − z) (Balanis §4.2) and divided by the
+// same sum over a perfect ground, Γv = 1. Its pattern, relative to 40° and to the perfect
+// ground's, within 0.05 dB from 5° to 80° of elevation (the solved current is not quite
+// sinusoidal: 0.015 dB at worst here).
+TEST(RealGroundReference, VerticalOnAGroundSystem) {
+  const Solved perfect = vertical_on("perfect");
+  const Solved system = vertical_on("real permittivity 13 conductivity 0.005 S/m system 10 ohm");
+  const Complex expected = perfect.port_impedance() + 10.0;
+  EXPECT_LT(std::abs(system.port_impedance() - expected), 1e-9 * std::abs(expected));
+  const Complex eg(13.0, -0.005 / (2 * pi * one_metre_wavelength_hz * eps0));
+  const Real k = 2 * pi, length = 0.25;
+  const auto field_ratio = [&](Real theta) {
+    const Real s = std::cos(theta), c = std::sin(theta);  // the elevation's sine and cosine
+    const Complex root = std::sqrt(eg - c * c);
+    const Complex gamma_v = (eg * s - root) / (eg * s + root);
+    Complex over_soil = 0.0, over_metal = 0.0;
+    const int n = 400;  // midpoint rule, far finer than the pattern needs
+    for (int i = 0; i < n; ++i) {
+      const Real z = (i + 0.5) * length / n, current = std::sin(k * (length - z));
+      const Complex up = std::polar(1.0, k * z * s), down = std::polar(1.0, -k * z * s);
+      over_soil += current * (up + gamma_v * down);
+      over_metal += current * (up + down);
+    }
+    return std::abs(over_soil / over_metal);
+  };
+  const PatternResult &p = system.result.pattern, &q = perfect.result.pattern;
+  const std::size_t reference = 8;  // θ = 40°
+  for (std::size_t i = 2; i < p.thetas.size(); ++i) {
+    const Real computed = (p.gain_dbi(i, 0) - q.gain_dbi(i, 0)) - (p.gain_dbi(reference, 0) - q.gain_dbi(reference, 0));
+    const Real expected_db = 20 * std::log10(field_ratio(p.thetas[i]) / field_ratio(p.thetas[reference]));
+    EXPECT_NEAR(computed, expected_db, 0.05) << "theta " << p.thetas[i] * 180 / pi;
+  }
+  EXPECT_GT(system.result.power.ground_loss, 0.1 * system.result.power.accepted);
+}
+
 /// The feed impedance of the horizontal dipole at height h over `ground`, its near
 /// interaction with the ground by the Sommerfeld integrals or by the weighted image.
 Complex impedance_by(bool sommerfeld, const char* ground, Real h) {
