@@ -2,6 +2,7 @@
 
 #include "core/number_text.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <map>
 #include <set>
@@ -910,14 +911,29 @@ class ModelParser {
     m_model.ground_perfect = true;
   }
 
+  /// frequency F | F, F, … | F1 to F2 count N | F1 to F2 step DF. A model may have several
+  /// (two bands, say): their frequencies are merged, sorted, and one given twice kept once.
   void frequency(TokenCursor& c, const Token& keyword) {
-    if (!m_model.frequencies_hz.empty()) throw InputError(keyword.where, "the frequencies are already given");
-    m_model.frequency_where = keyword.where;
-    const Real first = frequency_value(c);
-    if (!c.accept_word("to")) {
-      m_model.frequencies_hz = {first};
-      return;
+    if (m_model.frequencies_hz.empty()) m_model.frequency_where = keyword.where;
+    std::vector<Real> values{frequency_value(c)};
+    if (c.accept_word("to")) {
+      range_frequencies(c, values);
+    } else {
+      while (c.accept_symbol(',')) values.push_back(frequency_value(c));
     }
+    std::vector<Real>& f = m_model.frequencies_hz;
+    f.insert(f.end(), values.begin(), values.end());
+    std::sort(f.begin(), f.end());
+    f.erase(std::unique(f.begin(), f.end(), [](Real a, Real b) { return b - a <= 1e-12 * b; }), f.end());
+    if (f.size() > static_cast<std::size_t>(max_frequency_count))
+      throw InputError(keyword.where, "the model's frequency statements give more than " +
+                                          std::to_string(max_frequency_count) + " frequencies");
+  }
+
+  /// The rest of `F1 to F2 count N` or `F1 to F2 step DF`, F1 already in `values`.
+  void range_frequencies(TokenCursor& c, std::vector<Real>& values) {
+    const Real first = values.front();
+    values.clear();
     const Token& stop_token = c.peek();
     const Real last = frequency_value(c);
     if (last < first) throw InputError(stop_token.where, "the last frequency is below the first");
@@ -928,22 +944,20 @@ class ModelParser {
         throw InputError(n_token.where, "count must be a whole number from 1 to " + std::to_string(max_frequency_count));
       const int count = static_cast<int>(n.value);
       if (count == 1 && last != first) throw InputError(n_token.where, "a range with count 1 needs equal ends");
-      for (int i = 0; i < count; ++i)
-        m_model.frequencies_hz.push_back(count == 1 ? first : first + (last - first) * i / (count - 1));
+      for (int i = 0; i < count; ++i) values.push_back(count == 1 ? first : first + (last - first) * i / (count - 1));
     } else if (c.accept_word("step")) {
       const Token& step_token = c.peek();
       const Real step = frequency_value(c);
       const Real count = std::floor((last - first) / step + 1e-9) + 1;
       if (count > max_frequency_count)
         throw InputError(step_token.where, "this step gives more than " + std::to_string(max_frequency_count) + " frequencies");
-      for (int i = 0; i < static_cast<int>(count); ++i) m_model.frequencies_hz.push_back(first + i * step);
+      for (int i = 0; i < static_cast<int>(count); ++i) values.push_back(first + i * step);
     } else {
       throw InputError(c.peek().where, "expected 'count N' or 'step DF' after the frequency range, found " + quoted(c.peek()));
     }
-    // The same frequency twice would be solved twice and break every curve drawn through it.
-    const auto& f = m_model.frequencies_hz;
-    for (std::size_t i = 1; i < f.size(); ++i)
-      if (f[i] - f[i - 1] <= 1e-12 * f[i])
+    // The same frequency twice in one range means a step or count too fine for the numbers.
+    for (std::size_t i = 1; i < values.size(); ++i)
+      if (values[i] - values[i - 1] <= 1e-12 * values[i])
         throw InputError(stop_token.where, "this range gives frequency " + std::to_string(i + 1) +
                                                " equal to the one before it; widen the range or give fewer frequencies");
   }

@@ -2,6 +2,8 @@
 // promises (stated beside each check). Exit code 0 alone proves nothing.
 #include <gtest/gtest.h>
 
+#include <fstream>
+
 #include <map>
 #include <sstream>
 #include <vector>
@@ -565,6 +567,23 @@ TEST(DemoModels, GroundPlaneOverSoilLiftsItsBeamOffTheHorizon) {
   for (const Row& row : in_band(run.ports, 144e6, 146e6)) EXPECT_LT(number(row, "vswr"), 1.5);
   EXPECT_NE(run.summary.find("into ground"), std::string::npos);
   EXPECT_NE(run.summary.find("ground real (reflection-coefficient image)"), std::string::npos);
+}
+
+// A model for two bands, 2 m and 70 cm, in two frequency statements: each band is
+// reported over its own computed frequencies.
+TEST(DemoModels, TwoBandsInOneModelAreEachReportedOverTheirOwnPoints) {
+  const auto dir = fresh_directory("two-bands");
+  const auto model = dir / "two_bands.lobe";
+  std::ofstream(model) << "units m\nwire d from (0, 0, -0.5) to (0, 0, 0.5) radius 2e-3 segments 21\nport feed on d at middle\n"
+                          "frequency 140 MHz to 150 MHz count 5\nfrequency 430 MHz, 435 MHz, 440 MHz\n"
+                          "band two_metre 144 MHz to 146 MHz\nband seventy_cm 430 MHz to 440 MHz\n"
+                          "pattern theta 0 to 180 step 30 phi 0 to 0 step 1\n";
+  const ProcessResult r = run_lobe("run '" + model.string() + "' -o '" + (dir / "out").string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_NE(r.out.find("band two_metre (144.000 MHz to 146.000 MHz): 1 computed frequency inside"), std::string::npos) << r.out;
+  EXPECT_NE(r.out.find("band seventy_cm (430.000 MHz to 440.000 MHz): 3 computed frequencies inside"), std::string::npos)
+      << r.out;
+  EXPECT_EQ(read_csv(dir / "out" / "two_bands_ports.csv").size(), 8u);
 }
 
 }  // namespace

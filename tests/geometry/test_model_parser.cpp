@@ -225,6 +225,19 @@ TEST(ModelParser, FeedNetworkErrors) {
             "m.lobe:5:6: a load named 'r' already exists");
 }
 
+// Several frequency statements (two bands, say) and lists: merged, sorted, each value once.
+TEST(ModelParser, SeveralFrequencyStatements) {
+  const std::string wire = "wire w from (0, 0, -1) to (0, 0, 1) radius 1 mm\nport p on w at middle\n";
+  const Model m = parse_model(wire + "frequency 430 MHz, 440 MHz, 435 MHz\nfrequency 140 MHz to 150 MHz count 3\n"
+                                     "frequency 145 MHz\n",
+                              "m.lobe");
+  const std::vector<Real> expected = {140e6, 145e6, 150e6, 430e6, 435e6, 440e6};
+  ASSERT_EQ(m.frequencies_hz.size(), expected.size());
+  for (std::size_t i = 0; i < expected.size(); ++i) EXPECT_DOUBLE_EQ(m.frequencies_hz[i], expected[i]);
+  EXPECT_EQ(m.frequency_where.line, 3);
+  EXPECT_EQ(error_of(wire + "frequency 430 MHz, 440\n"), "m.lobe:3:20: expected a frequency with a unit; a plain number is ambiguous here");
+}
+
 TEST(ModelParser, RealGround) {
   const Model m = parse_model(base + "ground real permittivity 13 conductivity 0.005 S/m system 12 ohm\n", "m.lobe");
   ASSERT_TRUE(m.real_ground.has_value());
