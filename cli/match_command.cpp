@@ -38,6 +38,9 @@ Band chosen_band(const MatchOptions& options, const std::string& group) {
 }  // namespace
 
 int match_command(const MatchOptions& options) {
+  // CLI11's range check lets NaN through (every comparison with it is false).
+  if (!(options.velocity_factor >= 0.1 && options.velocity_factor <= 1.0))
+    throw InputError({"--velocity", 1, 1}, "the velocity factor must be from 0.1 to 1");
   const std::string group = result_group(options.result_path, options.case_name);
   const std::vector<std::string> names = read_result_port_names(options.result_path, group);
   std::size_t port = 0;

@@ -15,6 +15,7 @@ struct MatchPart {
   Real impedance = 0.0;        ///< a line's or stub's characteristic impedance, ohm
   Real velocity_factor = 1.0;  ///< a line's or stub's
   bool is_lumped() const { return kind != MatchPartKind::line && kind != MatchPartKind::open_stub && kind != MatchPartKind::shorted_stub; }
+  bool is_inductor() const { return kind == MatchPartKind::series_inductor || kind == MatchPartKind::shunt_inductor; }
   bool is_series() const {
     return kind == MatchPartKind::series_inductor || kind == MatchPartKind::series_capacitor || kind == MatchPartKind::line;
   }

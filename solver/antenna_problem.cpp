@@ -420,27 +420,41 @@ void add_segment_currents(const AntennaProblem& problem, FrequencySolution& solu
       solution.segment_currents[s][piece.peak_end] += piece.sign * solution.coefficients[piece.basis];
 }
 
+/// Z⁻¹ times each of `couplings`' columns (unit drives at gaps) and, under the model's wave,
+/// its excitation in one more column after them.
+ComplexMatrix responses_to(const AntennaProblem& problem, const Eigen::MatrixXd& couplings, Real frequency_hz,
+                           const SystemMatrix& matrix, SolveReport& report) {
+  const Eigen::Index drives = couplings.cols();
+  ComplexMatrix rhs(problem.unknowns(), drives + (problem.model.wave ? 1 : 0));
+  rhs.leftCols(drives) = couplings.cast<Complex>();
+  if (problem.model.wave) rhs.col(drives) = plane_wave_vector(problem, incident_wave(*problem.model.wave), frequency_hz);
+  return matrix.solve(rhs, report);
+}
+
+ComplexVector model_port_voltages(const Model& model) {
+  ComplexVector v(static_cast<Eigen::Index>(model.ports.size()));
+  for (Eigen::Index p = 0; p < v.size(); ++p) v[p] = model.ports[p].voltage;
+  return v;
+}
+
 /// With a feed network: the antenna's admittance at every terminal from one solve for each
 /// terminal's unit drive (and the wave), then the network with it (solver/feed_network.hpp).
-FrequencySolution solve_with_network(const AntennaProblem& problem, Real frequency_hz, SystemMatrix& matrix) {
+FrequencySolution solve_with_network(const AntennaProblem& problem, Real frequency_hz, const SystemMatrix& matrix) {
   const FeedNetwork& network = problem.network;
-  const Eigen::Index terminals = network.couplings().cols();
+  const Eigen::MatrixXd& couplings = network.couplings();
+  const Eigen::Index terminals = couplings.cols();
   const auto ports = static_cast<Eigen::Index>(problem.model.ports.size());
   const bool lit = problem.model.wave.has_value();
-  ComplexMatrix rhs(problem.unknowns(), terminals + (lit ? 1 : 0));
-  rhs.leftCols(terminals) = network.couplings().cast<Complex>();
-  if (lit) rhs.col(terminals) = plane_wave_vector(problem, incident_wave(*problem.model.wave), frequency_hz);
   FrequencySolution solution;
   solution.frequency_hz = frequency_hz;
-  const ComplexMatrix responses = matrix.solve(rhs, solution.report);
-  const ComplexMatrix drives = rhs.leftCols(terminals).transpose();
+  const ComplexMatrix responses = responses_to(problem, couplings, frequency_hz, matrix, solution.report);
+  const ComplexMatrix drives = couplings.transpose().cast<Complex>();
   const ComplexMatrix antenna_admittance = drives * responses.leftCols(terminals);
   const ComplexVector short_circuit = lit ? ComplexVector(drives * responses.col(terminals)) : ComplexVector();
   const NetworkSolution ns = network.solve(frequency_hz, antenna_admittance, short_circuit);
 
   solution.port_admittance = ns.port_admittance;
-  solution.port_voltages.resize(ports);
-  for (Eigen::Index p = 0; p < ports; ++p) solution.port_voltages[p] = problem.model.ports[p].voltage;
+  solution.port_voltages = model_port_voltages(problem.model);
   solution.port_currents = solution.port_admittance * solution.port_voltages;
   solution.network_voltages = ns.terminal_voltages.leftCols(ports) * solution.port_voltages;
   solution.network_currents = ns.element_currents.leftCols(ports) * solution.port_voltages;
@@ -470,23 +484,18 @@ FrequencySolution solve_frequency(const AntennaProblem& problem, Real frequency_
   if (!problem.network.empty()) return solve_with_network(problem, frequency_hz, matrix);
   // One solve for every port's unit drive and the wave.
   const auto ports = static_cast<Eigen::Index>(problem.model.ports.size());
-  const bool lit = problem.model.wave.has_value();
-  ComplexMatrix rhs(problem.unknowns(), ports + (lit ? 1 : 0));
-  rhs.leftCols(ports) = problem.port_vectors.cast<Complex>();
-  if (lit) rhs.col(ports) = plane_wave_vector(problem, incident_wave(*problem.model.wave), frequency_hz);
   FrequencySolution solution;
   solution.frequency_hz = frequency_hz;
-  const ComplexMatrix responses = matrix.solve(rhs, solution.report);
-  const ComplexMatrix drives = rhs.leftCols(ports);
+  const ComplexMatrix responses = responses_to(problem, problem.port_vectors, frequency_hz, matrix, solution.report);
+  const ComplexMatrix drives = problem.port_vectors.transpose().cast<Complex>();
   const auto unit_responses = responses.leftCols(ports);
-  solution.port_admittance = drives.transpose() * unit_responses;
-  solution.port_voltages.resize(ports);
-  for (Eigen::Index p = 0; p < ports; ++p) solution.port_voltages[p] = problem.model.ports[p].voltage;
+  solution.port_admittance = drives * unit_responses;
+  solution.port_voltages = model_port_voltages(problem.model);
   solution.coefficients = unit_responses * solution.port_voltages;
   solution.port_currents = solution.port_admittance * solution.port_voltages;
-  if (lit) {
+  if (problem.model.wave) {
     solution.coefficients += responses.col(ports);
-    solution.received_currents = drives.transpose() * responses.col(ports);
+    solution.received_currents = drives * responses.col(ports);
   }
 
   add_segment_currents(problem, solution);

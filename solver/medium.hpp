@@ -91,13 +91,11 @@ class Medium {
   std::string name() const {
     return has_slab() ? "substrate" : m_real_ground ? "real" : has_ground() ? "perfect" : "none";
   }
-  /// How the ground's near interaction is computed, for the run's report ("" without one).
+  /// How real ground's near interaction is computed, for the run's report ("" without it).
   std::string ground_method() const {
-    return m_sommerfeld    ? "Sommerfeld integrals"
-           : m_real_ground && !m_images.front().fresnel ? "exact image over the ground system"
-           : m_real_ground ? "reflection-coefficient image"
-           : has_ground() && !has_slab() ? "exact image"
-                                         : "";
+    if (!m_real_ground) return "";
+    if (m_sommerfeld) return "Sommerfeld integrals";
+    return m_images.front().fresnel ? "reflection-coefficient image" : "exact image over the ground system";
   }
 
  private:

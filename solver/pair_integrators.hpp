@@ -28,14 +28,14 @@ struct FillContext {
   Complex vector_factor; ///< jωμ
   Complex scalar_factor; ///< −j/(ωε)
   Complex ground_permittivity;  ///< εg of real ground (its images are weighted with it)
-  /// Near real ground, its reflected field at this frequency (else null): the wires' image
-  /// terms are then replaced by it.
-  std::shared_ptr<const GroundKernelTable> ground_table;
   /// On a substrate, its kernels at this frequency (else null): the integrators then take
   /// the quasi-static part from the free-space integrals and add the table's remainder.
   std::shared_ptr<const SlabKernelTable> slab;
   /// With probes through the substrate, their kernels at this frequency (else null).
   std::shared_ptr<const ProbeKernels> probe_kernels;
+  /// Near real ground, its reflected field at this frequency (else null): the wires' image
+  /// terms are then replaced by it.
+  std::shared_ptr<const GroundKernelTable> ground_table;
 };
 
 /// Segment s against segments t ≥ s (thin-wire reduced kernel; solver/segment_integrals).

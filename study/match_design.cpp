@@ -100,13 +100,13 @@ class Designer {
   /// A lumped part of `kind` whose reactance at the centre is Z0 e^u in magnitude.
   MatchPart lumped(MatchPartKind kind, Real u) const {
     const Real x = m_request.reference_ohm * std::exp(u), omega = 2 * pi * m_centre;
-    const bool inductor = kind == MatchPartKind::series_inductor || kind == MatchPartKind::shunt_inductor;
-    return {kind, inductor ? x / omega : 1.0 / (omega * x)};
+    MatchPart part{kind};
+    part.value = part.is_inductor() ? x / omega : 1.0 / (omega * x);
+    return part;
   }
   Real log_reactance(const MatchPart& p) const {
     const Real omega = 2 * pi * m_centre;
-    const bool inductor = p.kind == MatchPartKind::series_inductor || p.kind == MatchPartKind::shunt_inductor;
-    return std::log((inductor ? omega * p.value : 1.0 / (omega * p.value)) / m_request.reference_ohm);
+    return std::log((p.is_inductor() ? omega * p.value : 1.0 / (omega * p.value)) / m_request.reference_ohm);
   }
 
   /// Local search from `start`; returns the best variables found.

@@ -532,6 +532,13 @@ TEST(DemoModels, MatchDesignsANetworkWhoseRunConfirmsIt) {
   EXPECT_EQ(worst_vswr_text(written, "mean "), worst_vswr_text(confirmed.out.substr(confirmed.out.find("port feed")), "mean "));
   const double worst = std::stod(predicted);
   EXPECT_LT(worst, 1.5);
+  // A velocity factor that is not a number is refused, and nothing written.
+  const auto refused = dir / "refused.lobe";
+  EXPECT_EQ(run_lobe("match '" + (dir / "out" / "yagi_3el_144.h5").string() + "' --velocity nan -o '" + refused.string() + "'",
+                     dir)
+                .exit_code,
+            2);
+  EXPECT_FALSE(std::filesystem::exists(refused));
   // A band the result does not reach is refused with exit code 2.
   EXPECT_EQ(run_lobe("match '" + (dir / "out" / "yagi_3el_144.h5").string() + "' --band 300MHz:310MHz", dir).exit_code, 2);
 }

@@ -1,7 +1,7 @@
 // libFuzzer target, structure-aware: a genuine result file is changed through the HDF5 API
 // as the input bytes direct (datasets deleted, turned into groups, replaced by numbers of any
 // shape and value, NaN among them, by text, by integers, or by sizes far beyond the bytes
-// stored), then every result and sweep reader is run on it. Each must return checked data
+// stored), then every result and sweep reader is run on it (lobe match's among them). Each must return checked data
 // or throw an InputError. (libhdf5's own parsing of raw bytes is outside this project; the
 // readers' trust in what a well-formed file claims is what is tested here.)
 // Build and run: see fuzz_model_parser.cpp; corpus tests/fuzz/corpus/result_file.
@@ -29,7 +29,8 @@ const char* const datasets[] = {"/frequency_hz",       "/ports/s_matrix_re", "/p
                                 "/model/reference_ohm", "/model/band_names", "/model/band_edges_hz", "/pattern/theta_deg",
                                 "/pattern/phi_deg",    "/pattern/gain_dbi",  "/pattern/rhcp_dbi",   "/pattern/lhcp_dbi",
                                 "/pattern/axial_ratio_db", "/cases/names",   "/cases/values",       "/cases/values_si",
-                                "/cases/labels"};
+                                "/cases/labels",       "/ports/resistance_ohm", "/ports/reactance_ohm", "/model/source",
+                                "/model/value_names",  "/model/values",     "/model/value_units",  "/model/value_overridden"};
 
 std::string base_file;
 
@@ -122,6 +123,11 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
   guarded([&] { lobe::read_result_port_names(path); });
   guarded([&] { lobe::read_result_pattern(path); });
   guarded([&] { lobe::read_result_bands(path); });
+  guarded([&] {
+    for (const lobe::Complex z : lobe::read_result_port_impedance(path, "", 0).impedance)
+      if (!std::isfinite(std::abs(z))) __builtin_trap();
+  });
+  guarded([&] { lobe::read_result_model(path); });
   guarded([&] {
     if (lobe::is_sweep_file(path)) lobe::read_sweep_table(path);
   });
