@@ -54,6 +54,9 @@ int main(int argc, char** argv) {
   run_app->add_option("MODEL", run.study.model_path, "Model file (.lobe)")->required();
   run_app->add_option("-o,--output", run.study.output_directory, "Directory for result files (default: MODEL-STEM-results)");
   run_app->add_option("--set", run.study.set_options, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
+  run_app->add_option("--toward", run.study.toward,
+                      "Judge polarisation (axial ratio, RHCP/LHCP, cross-polar) toward THETA,PHI in degrees "
+                      "(default: the main beam)");
   run_app->add_option("--band", run.study.band_options, "Also report a band: LOW:HIGH, e.g. 5.65GHz:5.95GHz (repeatable)")
       ->allow_extra_args(false);
   run_app->add_option("--tx-power", run.tx_power_w, "Transmitter forward power in W: print the reflected power")

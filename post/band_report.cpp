@@ -129,7 +129,7 @@ Band default_band(const std::vector<Band>& bands, Real lowest_hz, Real highest_h
   return bands.empty() ? all_frequencies_band(lowest_hz, highest_hz) : bands.front();
 }
 
-const std::vector<std::string>& band_figure_names() {
+const std::vector<std::string>& port_figure_names() {
   static const std::vector<std::string> names{"worst-vswr", "mean-vswr", "mean-mismatch-loss", "share-under-vswr-2"};
   return names;
 }
@@ -142,9 +142,56 @@ Real band_figure(const PortBandReport& report, const std::string& name) {
   throw std::invalid_argument("unknown band figure '" + name + "'");
 }
 
-bool larger_is_better(const std::string& figure_name) { return figure_name == "share-under-vswr-2"; }
+BandFigures band_figures(const ReflectionCurve& port, const BeamCurves& beam, Real low_hz, Real high_hz) {
+  return {band_report(port, low_hz, high_hz), beam_band_report(beam, low_hz, high_hz)};
+}
+
+namespace {
+
+/// The beam figure kind behind "centre-X" or "worst-X", and whether it is the centre's.
+std::optional<std::pair<const BeamFigureKind*, bool>> beam_figure_of(const std::string& name) {
+  for (const auto& kind : beam_figure_kinds()) {
+    if (name == "centre-" + kind.name) return std::pair{&kind, true};
+    if (name == "worst-" + kind.name) return std::pair{&kind, false};
+  }
+  return std::nullopt;
+}
+
+}  // namespace
+
+const std::vector<std::string>& band_figure_names() {
+  static const std::vector<std::string> names = [] {
+    std::vector<std::string> all = port_figure_names();
+    for (const auto& kind : beam_figure_kinds()) {
+      all.push_back("centre-" + kind.name);
+      all.push_back("worst-" + kind.name);
+    }
+    return all;
+  }();
+  return names;
+}
+
+bool is_beam_figure(const std::string& name) { return beam_figure_of(name).has_value(); }
+
+std::optional<Real> band_figure(const BandFigures& figures, const std::string& name) {
+  const auto beam = beam_figure_of(name);
+  if (!beam) return band_figure(figures.port, name);
+  const auto found = figures.beam.find(beam->first->name);
+  if (found == figures.beam.end()) return std::nullopt;
+  return beam->second ? found->second.centre : found->second.worst;
+}
+
+bool larger_is_better(const std::string& figure_name) {
+  if (const auto beam = beam_figure_of(figure_name)) return beam->first->larger_is_better;
+  return figure_name == "share-under-vswr-2";
+}
 
 std::string band_figure_title(const std::string& name) {
+  if (const auto beam = beam_figure_of(name)) {
+    const BeamFigureKind& kind = *beam->first;
+    const std::string worst = kind.larger_is_better ? "lowest" : kind.unit == "deg" ? "widest" : "highest";
+    return (beam->second ? "centre" : worst) + " " + kind.title + " (" + kind.unit + ")";
+  }
   if (name == "worst-vswr") return "worst VSWR";
   if (name == "mean-vswr") return "mean VSWR";
   if (name == "mean-mismatch-loss") return "mean mismatch loss (dB)";

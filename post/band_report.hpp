@@ -1,12 +1,14 @@
 #pragma once
 /// Honest figures over a whole band: extremes and frequency averages of a port's match,
 /// not its single best point.
+#include <map>
 #include <optional>
 #include <string>
 #include <vector>
 
 #include "core/types.hpp"
 #include "geometry/model.hpp"
+#include "post/beam_band_report.hpp"
 
 namespace lobe {
 
@@ -54,11 +56,25 @@ Band all_frequencies_band(Real lowest_hz, Real highest_hz);
 /// all computed frequencies.
 Band default_band(const std::vector<Band>& bands, Real lowest_hz, Real highest_hz);
 
-/// The band figures a sweep ranks by, a tuner minimises and a heat map shows, by name:
-/// worst-vswr, mean-vswr, mean-mismatch-loss (dB) and share-under-vswr-2 (the fraction of
-/// the band with VSWR at most 2; the only one where larger is better).
-const std::vector<std::string>& band_figure_names();
+/// The match figures of one port, by name: worst-vswr, mean-vswr, mean-mismatch-loss (dB)
+/// and share-under-vswr-2 (the fraction of the band with VSWR at most 2).
+const std::vector<std::string>& port_figure_names();
 Real band_figure(const PortBandReport& report, const std::string& name);
+
+/// Every figure of a design over a band: the first port's match and the main beam's.
+struct BandFigures {
+  PortBandReport port;
+  std::map<std::string, BandFigure> beam;  ///< post/beam_band_report.hpp
+};
+BandFigures band_figures(const ReflectionCurve& port, const BeamCurves& beam, Real low_hz, Real high_hz);
+
+/// The figures a sweep ranks by, a tuner minimises, a limit bounds and a map shows: the
+/// port's, and for every beam figure X (beam_figure_kinds) centre-X at the band centre and
+/// worst-X at its worst over the band.
+const std::vector<std::string>& band_figure_names();
+bool is_beam_figure(const std::string& name);
+/// None where the figure is not defined over this band (the back of a zenith beam).
+std::optional<Real> band_figure(const BandFigures& figures, const std::string& name);
 bool larger_is_better(const std::string& figure_name);
 /// The figure's name in words with its unit, for headings and axes ("worst VSWR").
 std::string band_figure_title(const std::string& name);

@@ -52,7 +52,7 @@ std::string exposure_text(const RunRecord& run, Real forward_w) {
       const FrequencyResult* worst = nullptr;
       ExposureFigure worst_figure;
       for (const FrequencyResult* r : results_for(run, band)) {
-        const Real eirp = forward_w * driven * std::pow(10.0, r->peak_gain_dbi / 10);
+        const Real eirp = forward_w * driven * std::pow(10.0, r->beam.gain_dbi / 10);
         const ExposureFigure figure = exposure_figures(eirp, r->frequency_hz)[rule];
         if (figure.distance_m && (!worst_figure.distance_m || *figure.distance_m > *worst_figure.distance_m))
           worst = r, worst_figure = figure;
@@ -61,10 +61,10 @@ std::string exposure_text(const RunRecord& run, Real forward_w) {
         out += "    " + exposure_figures(1.0, band.low_hz)[rule].rule + ": its table does not cover these frequencies\n";
         continue;
       }
-      const Real eirp = forward_w * driven * std::pow(10.0, worst->peak_gain_dbi / 10);
+      const Real eirp = forward_w * driven * std::pow(10.0, worst->beam.gain_dbi / 10);
       out += formatted("    %-14s limit %6.3g W/m^2 at %s; EIRP %.3g W (peak gain %.2f dBi): under it beyond %.2f m\n",
                        worst_figure.rule.c_str(), *worst_figure.limit_w_m2, frequency_text(worst->frequency_hz).c_str(),
-                       eirp, worst->peak_gain_dbi, *worst_figure.distance_m);
+                       eirp, worst->beam.gain_dbi, *worst_figure.distance_m);
       // Every distance inside its near-field bound is flagged, not only the nearest one.
       const Real start = far_field_start_m(size, worst->frequency_hz);
       if (*worst_figure.distance_m < start) {

@@ -7,12 +7,8 @@
 
 namespace lobe {
 
-Real to_dbi(Real ratio) {
-  if (!(ratio > 0.0)) return gain_floor_dbi;
-  return std::max(gain_floor_dbi, 10.0 * std::log10(ratio));
-}
-
-FrequencyResult evaluate_frequency(const AntennaProblem& problem, const FrequencySolution& solution) {
+FrequencyResult evaluate_frequency(const AntennaProblem& problem, const FrequencySolution& solution,
+                                   const FigureOptions& options) {
   FrequencyResult result;
   const Real z0 = problem.model.reference_ohm;
   result.frequency_hz = solution.frequency_hz;
@@ -83,13 +79,18 @@ FrequencyResult evaluate_frequency(const AntennaProblem& problem, const Frequenc
           pj_index = j;
           found = true;
         }
-    result.peak_gain_dbi = pattern.gain_dbi(pi_index, pj_index);
-    result.peak_theta = pattern.thetas[pi_index];
-    result.peak_phi = pattern.phis[pj_index];
-    result.peak_axial_ratio_db = pattern.axial_ratio_db(pi_index, pj_index);
-    result.peak_rhcp_dbi = pattern.rhcp_dbi(pi_index, pj_index);
-    result.peak_lhcp_dbi = pattern.lhcp_dbi(pi_index, pj_index);
-    result.peak_hand = static_cast<Hand>(pattern.hand(pi_index, pj_index));
+    const Direction peak{pattern.thetas[pi_index], pattern.phis[pj_index]};
+    const IntensityAt intensity = [&](const Vec3& r) {
+      const Direction d = direction_of(r);
+      return field.intensity(d.theta, d.phi);
+    };
+    const bool over_ground = problem.medium.has_ground() || problem.medium.has_slab();
+    result.beam = beam_figures(intensity, peak, accepted > 0 ? 4 * pi / accepted : 0.0,
+                               incident > 0 ? 4 * pi / incident : 0.0, over_ground);
+    const Direction toward = options.toward.value_or(peak);
+    const FarFieldSample e = field.at(toward.theta, toward.phi);
+    result.polarization =
+        polarization_figures(toward, circular_components(e.e_theta, e.e_phi), accepted > 0 ? 4 * pi / accepted : 0.0);
   }
   require_finite(result);
   return result;
@@ -98,7 +99,12 @@ FrequencyResult evaluate_frequency(const AntennaProblem& problem, const Frequenc
 void require_finite(const FrequencyResult& result) {
   bool finite = result.z_matrix.allFinite() && result.s_matrix.allFinite() && std::isfinite(result.power.accepted) &&
                 std::isfinite(result.power.radiated) && result.pattern.gain_dbi.allFinite() &&
-                result.pattern.axial_ratio_db.allFinite() && result.pattern.realized_gain_dbi.allFinite();
+                result.pattern.axial_ratio_db.allFinite() && result.pattern.realized_gain_dbi.allFinite() &&
+                std::isfinite(result.beam.gain_dbi + result.beam.realized_gain_dbi + result.beam.beamwidth_theta_deg +
+                              result.beam.beamwidth_phi_deg + result.beam.front_to_back_db.value_or(0.0) +
+                              result.beam.front_to_side_db.value_or(0.0)) &&
+                std::isfinite(result.polarization.axial_ratio_db + result.polarization.rhcp_dbi +
+                              result.polarization.lhcp_dbi + result.polarization.cross_polar_discrimination_db);
   for (const auto* ports : {&result.ports, &result.antenna_ends})
     for (const auto& p : *ports) finite = finite && std::isfinite(std::abs(p.impedance)) && std::isfinite(p.vswr);
   for (Real p : result.network_powers) finite = finite && std::isfinite(p);

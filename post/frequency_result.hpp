@@ -1,16 +1,15 @@
 #pragma once
 /// Every figure reported at one frequency, computed from the solved currents.
+#include <optional>
 #include <vector>
 
+#include "post/beam_figures.hpp"
 #include "post/far_field.hpp"
 #include "post/polarization.hpp"
 #include "post/port_quantities.hpp"
 #include "post/power_budget.hpp"
 
 namespace lobe {
-
-/// Gains below this are reported as this value (no field, e.g. under a ground plane).
-constexpr Real gain_floor_dbi = -150.0;
 
 /// Far-field figures on the model's θ/φ grid; arrays are (θ index, φ index).
 struct PatternResult {
@@ -32,26 +31,27 @@ struct FrequencyResult {
   ComplexMatrix s_matrix;
   PowerBudget power;
   PatternResult pattern;
-  Real peak_gain_dbi = gain_floor_dbi;
-  Real peak_theta = 0.0, peak_phi = 0.0;  ///< rad, on the grid
-  Real peak_axial_ratio_db = axial_ratio_ceiling_db;
-  Real peak_rhcp_dbi = gain_floor_dbi, peak_lhcp_dbi = gain_floor_dbi;  ///< in the peak's direction
-  Hand peak_hand = Hand::linear;
+  BeamFigures beam;
+  PolarizationFigures polarization;  ///< at the main beam, or where FigureOptions::toward says
   std::vector<std::array<Complex, 2>> segment_currents;
   std::vector<Eigen::Vector3cd> surface_currents;  ///< A/m at each triangle's centroid
   SolveReport report;
   bool interpolated = false;  ///< from an adaptive sweep's interpolant, not solved
 };
 
-/// Ports, powers and the pattern on the model's grid (OpenMP-parallel over directions).
-/// Throws NumericalError if any of it is not finite.
-FrequencyResult evaluate_frequency(const AntennaProblem& problem, const FrequencySolution& solution);
+/// What a study asks of the figures beyond the model.
+struct FigureOptions {
+  /// The direction the polarisation figures are judged in; none: the main beam.
+  std::optional<Direction> toward;
+};
+
+/// Ports, powers, the pattern on the model's grid (OpenMP-parallel over directions) and the
+/// main beam's figures. Throws NumericalError if any of it is not finite.
+FrequencyResult evaluate_frequency(const AntennaProblem& problem, const FrequencySolution& solution,
+                                   const FigureOptions& options = {});
 
 /// Throws NumericalError when any reported figure is not finite, so that nothing
 /// non-finite is ever written.
 void require_finite(const FrequencyResult& result);
-
-/// 10 log10(x) with gain_floor_dbi for zero or tiny values.
-Real to_dbi(Real ratio);
 
 }  // namespace lobe

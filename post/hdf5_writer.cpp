@@ -2,12 +2,14 @@
 
 #include <hdf5.h>
 
+#include <algorithm>
 #include <functional>
 #include <stdexcept>
 #include <vector>
 
 #include "core/constants.hpp"
 #include "post/hdf5_handle.hpp"
+#include "post/beam_band_report.hpp"
 #include "post/hdf5_memory_file.hpp"
 #include "post/run_summary.hpp"
 #include "post/scattering_result.hpp"
@@ -204,6 +206,39 @@ void write_power(hid_t file, const RunRecord& run) {
   power("balance_miss", "1", [](const PowerBudget& p) { return p.imbalance(); });
 }
 
+/// The main beam's figures per frequency (post/beam_figures.hpp), under the names of
+/// beam_figure_kinds; where a figure is undefined at some frequency (the back of a beam at
+/// the zenith over a ground plane), its `_defined` array says where (1) and where not (0,
+/// the value then 0).
+void write_beam(hid_t file, const RunRecord& run) {
+  Handle g = group(file, "beam");
+  const std::size_t nf = run.results.size();
+  const BeamCurves curves = beam_curves(run.results);
+  for (const auto& kind : beam_figure_kinds()) {
+    const auto& values = curves.values.at(kind.name);
+    std::vector<Real> data;
+    std::vector<int> defined;
+    for (const auto& v : values) {
+      data.push_back(v.value_or(0.0));
+      defined.push_back(v.has_value());
+    }
+    write_reals(g, kind.dataset.c_str(), {nf}, data, kind.unit + " (" + kind.title + ")");
+    if (std::count(defined.begin(), defined.end(), 0) > 0)
+      write_ints(g, (kind.dataset + "_defined").c_str(), {nf}, defined);
+  }
+  auto degrees = [&](const char* name, const char* unit, const std::function<Real(const FrequencyResult&)>& f) {
+    write_reals(g, name, {nf}, per_frequency(run, 1, [&](const FrequencyResult& r, std::size_t) { return f(r) * 180 / pi; }), unit);
+  };
+  degrees("peak_theta_deg", "deg (the pattern grid's direction of peak gain)", [](const FrequencyResult& r) { return r.beam.peak.theta; });
+  degrees("peak_phi_deg", "deg", [](const FrequencyResult& r) { return r.beam.peak.phi; });
+  degrees("polarization_theta_deg", "deg (where the polarisation figures are taken)",
+          [](const FrequencyResult& r) { return r.polarization.toward.theta; });
+  degrees("polarization_phi_deg", "deg", [](const FrequencyResult& r) { return r.polarization.toward.phi; });
+  std::vector<int> hands;
+  for (const auto& r : run.results) hands.push_back(static_cast<int>(r.polarization.hand));
+  write_ints(g, "hand", {nf}, hands);
+}
+
 void write_pattern(hid_t file, const RunRecord& run) {
   Handle g = group(file, "pattern");
   const PatternGrid& grid = run.problem.model.pattern;
@@ -319,6 +354,7 @@ void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
   write_power(file, run);
   write_network(file, run);
   write_pattern(file, run);
+  write_beam(file, run);
   write_currents(file, run);
   Handle solver = group(file, "solver");
   write_reals(solver, "reciprocal_condition", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.report.reciprocal_condition; }), "1");

@@ -108,6 +108,30 @@ PatternData read_result_pattern(const std::filesystem::path& path) {
   return d;
 }
 
+BeamCurves read_result_beam(const std::filesystem::path& path, const std::string& group) {
+  const SourceLocation where{path.string(), 1, 1};
+  Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
+  std::vector<hsize_t> dims;
+  BeamCurves curves;
+  curves.frequency_hz = read_reals(file, group + "/frequency_hz", dims);
+  require_finite(curves.frequency_hz, "/frequency_hz", where);
+  for (const auto& kind : beam_figure_kinds()) {
+    const std::string name = group + "/beam/" + kind.dataset;
+    if (!hdf5_exists(file, name))
+      throw InputError(where, "this result has no beam figures (" + name + "): run the model again with this version");
+    const std::vector<Real> values = read_reals(file, name, dims);
+    std::vector<Real> defined(values.size(), 1.0);
+    if (hdf5_exists(file, name + "_defined")) defined = read_reals(file, name + "_defined", dims);
+    if (values.size() != curves.frequency_hz.size() || defined.size() != values.size())
+      throw InputError(where, "the beam figure " + name + " does not have one value per frequency");
+    require_finite(values, name, where);
+    auto& curve = curves.values[kind.name];
+    for (std::size_t k = 0; k < values.size(); ++k)
+      curve.push_back(defined[k] != 0.0 ? std::optional<Real>(values[k]) : std::nullopt);
+  }
+  return curves;
+}
+
 std::vector<Band> read_result_bands(const std::filesystem::path& path, const std::string& group) {
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
   if (!hdf5_exists(file, group + "/model/band_names")) return {};

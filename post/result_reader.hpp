@@ -5,6 +5,7 @@
 #include <vector>
 
 #include "geometry/model.hpp"
+#include "post/beam_band_report.hpp"
 #include "post/touchstone.hpp"
 
 namespace lobe {
@@ -44,6 +45,10 @@ struct PatternData {
   }
 };
 PatternData read_result_pattern(const std::filesystem::path& path);
+
+/// The main beam's figures per frequency (the /beam group); `group` as for
+/// read_result_network. Throws InputError when the file has none (written before they were).
+BeamCurves read_result_beam(const std::filesystem::path& path, const std::string& group = "");
 
 /// The bands of the model behind a result (the model's `band` statements and any --band);
 /// `group` as for read_result_network.

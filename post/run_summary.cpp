@@ -13,16 +13,75 @@
 namespace lobe {
 namespace {
 
-/// Linear interpolation of per-frequency values at f (results ascend in frequency).
-Real interpolated(const RunRecord& run, Real f, Real (*value)(const FrequencyResult&)) {
-  const auto& r = run.results;
-  if (f <= r.front().frequency_hz) return value(r.front());
-  for (std::size_t i = 1; i < r.size(); ++i)
-    if (f <= r[i].frequency_hz) {
-      const Real t = (f - r[i - 1].frequency_hz) / (r[i].frequency_hz - r[i - 1].frequency_hz);
-      return (1 - t) * value(r[i - 1]) + t * value(r[i]);
+/// "12.3", or "n/a" where a figure is not defined; a value that rounds to zero has no sign.
+std::string optional_text(const std::optional<Real>& value, const char* format) {
+  if (!value) return "n/a";
+  std::string text = formatted(format, *value);
+  if (text.front() == '-' && text.find_first_of("123456789") == std::string::npos) text.erase(0, 1);
+  return text;
+}
+
+/// A beamwidth of no_half_power_deg reads as "omni": no half-power point in that plane.
+std::string beamwidth_text(Real degrees) {
+  return degrees >= no_half_power_deg ? std::string("omni") : formatted("%.0f", degrees);
+}
+
+/// Whether every frequency's polarisation figures are taken at its main beam.
+bool polarization_at_beam(const RunRecord& run) {
+  return std::all_of(run.results.begin(), run.results.end(), [](const FrequencyResult& r) {
+    return r.polarization.toward.theta == r.beam.peak.theta && r.polarization.toward.phi == r.beam.peak.phi;
+  });
+}
+
+/// Whether the field is linearly polarised (axial ratio above linear_axial_ratio_db) where
+/// the polarisation figures are taken, at every frequency: their table then says so in a line.
+bool linear_everywhere(const RunRecord& run) {
+  return std::all_of(run.results.begin(), run.results.end(),
+                     [](const FrequencyResult& r) { return r.polarization.axial_ratio_db >= linear_axial_ratio_db; });
+}
+
+/// "at the main beam" or "toward theta 0.0, phi 0.0 deg".
+std::string polarization_place(const RunRecord& run) {
+  const Direction toward = run.results.front().polarization.toward;
+  return polarization_at_beam(run) ? "at the main beam"
+                                   : formatted("toward theta %.1f, phi %.1f deg", toward.theta * 180 / pi,
+                                               toward.phi * 180 / pi);
+}
+
+/// The beam's figures over the band, each at the centre and at its worst (post/beam_band_report).
+std::string beam_band_text(const RunRecord& run, const Band& band) {
+  const auto figures = beam_band_report(beam_curves(run.results), band.low_hz, band.high_hz);
+  std::string out;
+  auto line = [&](const char* label, const std::string& name, const char* format, const char* worst_word) {
+    const auto found = figures.find(name);
+    if (found == figures.end()) {
+      out += formatted("  %-15s not defined at every frequency of the band\n", label);
+      return;
     }
-  return value(r.back());
+    const BandFigure& f = found->second;
+    auto text = [&](Real v) { return name.rfind("beamwidth", 0) == 0 ? beamwidth_text(v) + " deg" : formatted(format, v); };
+    const std::string centre = text(f.centre), worst = text(f.worst);
+    out += formatted("  %-15s %s at the centre, %s %s at %s\n", label, centre.c_str(), worst_word, worst.c_str(),
+                     frequency_text(f.worst_hz).c_str());
+  };
+  line("gain", "gain", "%.2f dBi", "lowest");
+  line("realized gain", "realized-gain", "%.2f dBi", "lowest");
+  line("front-to-back", "front-to-back", "%.1f dB", "lowest");
+  line("front-to-side", "front-to-side", "%.1f dB", "lowest");
+  line("beamwidth theta", "beamwidth-theta", "%.0f deg", "widest");
+  line("beamwidth phi", "beamwidth-phi", "%.0f deg", "widest");
+  if (linear_everywhere(run)) {
+    out += "  polarisation   linear " + polarization_place(run) + " (axial ratio above " +
+           formatted("%.0f", linear_axial_ratio_db) + " dB at every frequency)\n";
+  } else {
+    out += "  " + polarization_place(run) + ":\n";
+    line("axial ratio", "axial-ratio", "%.2f dB", "highest");
+    line("RHCP gain", "rhcp-gain", "%.2f dBi", "lowest");
+    line("LHCP gain", "lhcp-gain", "%.2f dBi", "lowest");
+    line("cross-polar", "cross-polar", "%.1f dB", "lowest");
+  }
+  line("efficiency", "efficiency", "%.1f %%", "lowest");
+  return out;
 }
 
 /// The band's match per port (band_report) and the pattern peak's figures at the band
@@ -59,22 +118,7 @@ std::string band_text(const RunRecord& run, const Band& band) {
     else
       out += "return loss stays under 10 dB\n";
   }
-  const Real centre = 0.5 * (band.low_hz + band.high_hz);
-  auto gain = [](const FrequencyResult& r) { return r.peak_gain_dbi; };
-  auto rhcp = [](const FrequencyResult& r) { return r.peak_rhcp_dbi; };
-  auto lhcp = [](const FrequencyResult& r) { return r.peak_lhcp_dbi; };
-  auto axial = [](const FrequencyResult& r) { return r.peak_axial_ratio_db; };
-  Real lowest_gain = std::min(interpolated(run, band.low_hz, gain), interpolated(run, band.high_hz, gain));
-  Real worst_axial = std::max(interpolated(run, band.low_hz, axial), interpolated(run, band.high_hz, axial));
-  for (const auto* r : inside) {
-    lowest_gain = std::min(lowest_gain, r->peak_gain_dbi);
-    worst_axial = std::max(worst_axial, r->peak_axial_ratio_db);
-  }
-  out += formatted("  %-15s gain %.2f dBi at the centre (RHCP %.2f, LHCP %.2f dBi), lowest %.2f dBi\n", "pattern peak",
-                       interpolated(run, centre, gain), interpolated(run, centre, rhcp), interpolated(run, centre, lhcp),
-                       lowest_gain);
-  out += formatted("  %-15s axial ratio %.2f dB at the centre, worst %.2f dB\n", "", interpolated(run, centre, axial),
-                       worst_axial);
+  out += beam_band_text(run, band);
   return out;
 }
 
@@ -157,21 +201,38 @@ std::string run_summary(const RunRecord& run) {
   const bool lines = std::any_of(run.results.begin(), run.results.end(),
                                  [](const FrequencyResult& r) { return r.power.line_loss > 0.0; });
   const bool soil = run.problem.medium.has_real_ground();
-  out += formatted("%-14s %11s %15s %12s %7s %10s%s%s%s\n", "frequency", "peak (dBi)", "at theta/phi", "AR (dB)", "hand",
-                   "efficiency", board ? "  surface waves  dielectric" : "", soil ? "  into ground" : "",
-                   lines ? "  line loss (dB)" : "");
+  out += formatted("%-14s %10s %10s %15s %8s %8s %14s %10s%s%s%s\n", "frequency", "gain (dBi)", "realized", "at theta/phi",
+                   "F/B (dB)", "F/S (dB)", "HPBW th/ph", "efficiency", board ? "  surface waves  dielectric" : "",
+                   soil ? "  into ground" : "", lines ? "  line loss (dB)" : "");
   for (const auto& r : run.results) {
-    const std::string direction = formatted("%.0f/%.0f deg", r.peak_theta * 180 / pi, r.peak_phi * 180 / pi);
+    const BeamFigures& b = r.beam;
+    const std::string direction = formatted("%.0f/%.0f deg", b.peak.theta * 180 / pi, b.peak.phi * 180 / pi);
+    const std::string widths = beamwidth_text(b.beamwidth_theta_deg) + "/" + beamwidth_text(b.beamwidth_phi_deg) + " deg";
     const Real accepted = r.power.accepted > 0.0 ? r.power.accepted : 1.0;
     std::string losses =
         board ? formatted(" %14.1f%% %10.1f%%", 100.0 * r.power.surface_wave / accepted, 100.0 * r.power.dielectric_loss / accepted)
               : std::string();
     if (soil) losses += formatted(" %12.1f%%", 100.0 * r.power.ground_loss / accepted);
     if (lines) losses += formatted(" %15.2f", line_loss_db(r.power));
-    out += formatted("%-14s %11.2f %15s %12.2f %7s %9.1f%%%s%s\n", frequency_text(r.frequency_hz).c_str(),
-                     r.peak_gain_dbi, direction.c_str(), r.peak_axial_ratio_db, hand_name(r.peak_hand),
-                     100.0 * r.power.efficiency(), losses.c_str(),
-                     std::abs(r.power.imbalance()) > power_balance_warning ? " !" : "");
+    out += formatted("%-14s %10.2f %10.2f %15s %8s %8s %14s %9.1f%%%s%s\n", frequency_text(r.frequency_hz).c_str(),
+                     b.gain_dbi, b.realized_gain_dbi, direction.c_str(), optional_text(b.front_to_back_db, "%.1f").c_str(),
+                     optional_text(b.front_to_side_db, "%.1f").c_str(), widths.c_str(), 100.0 * r.power.efficiency(),
+                     losses.c_str(), std::abs(r.power.imbalance()) > power_balance_warning ? " !" : "");
+  }
+  if (linear_everywhere(run))
+    out += "\npolarisation: linear " + polarization_place(run) + " at every frequency (axial ratio above " +
+           formatted("%.0f", linear_axial_ratio_db) + " dB)\n";
+  else
+    out += formatted("\n%-14s %15s %9s %7s %11s %11s %9s\n", "frequency",
+                     polarization_at_beam(run) ? "at the beam" : "toward th/ph", "AR (dB)", "hand", "RHCP (dBi)",
+                     "LHCP (dBi)", "XPD (dB)");
+  for (const auto& r : run.results) {
+    if (linear_everywhere(run)) break;
+    const PolarizationFigures& p = r.polarization;
+    const std::string direction = formatted("%.0f/%.0f deg", p.toward.theta * 180 / pi, p.toward.phi * 180 / pi);
+    out += formatted("%-14s %15s %9.2f %7s %11.2f %11.2f %9.1f\n", frequency_text(r.frequency_hz).c_str(),
+                     direction.c_str(), p.axial_ratio_db, hand_name(p.hand), p.rhcp_dbi, p.lhcp_dbi,
+                     p.cross_polar_discrimination_db);
   }
   for (const std::string& w : power_balance_warnings(run)) out += "! " + w + "\n";
 

@@ -1,7 +1,11 @@
 #include "study/model_loading.hpp"
 
 #include <algorithm>
+#include <cmath>
+#include <stdexcept>
 
+#include "core/constants.hpp"
+#include "core/input_error.hpp"
 #include "core/number_text.hpp"
 #include "core/text_file.hpp"
 #include "post/band_report.hpp"
@@ -31,6 +35,26 @@ Band judged_band(const Model& model, const std::string& band_option) {
     throw InputError(where, "band '" + band.name + "' lies outside the model's frequencies (" + exact_text(*lowest / 1e6) +
                                 " to " + exact_text(*highest / 1e6) + " MHz); there is nothing to judge in it");
   return band;
+}
+
+FigureOptions figure_options(const std::string& toward_option) {
+  if (toward_option.empty()) return {};
+  const SourceLocation where{"--toward", 1, 1};
+  const auto comma = toward_option.find(',');
+  double theta = 0.0, phi = 0.0;
+  std::size_t used_theta = 0, used_phi = 0;
+  try {
+    if (comma == std::string::npos) throw std::invalid_argument("no comma");
+    theta = std::stod(toward_option.substr(0, comma), &used_theta);
+    phi = std::stod(toward_option.substr(comma + 1), &used_phi);
+  } catch (const std::exception&) {
+    used_theta = 0;
+  }
+  if (used_theta != comma || used_phi != toward_option.size() - comma - 1 || !std::isfinite(theta) || !std::isfinite(phi))
+    throw InputError(where, "'" + toward_option + "' is not a direction: give THETA,PHI in degrees, e.g. 0,0 for the zenith");
+  if (theta < 0.0 || theta > 180.0)
+    throw InputError(where, "theta " + exact_text(theta) + " deg lies outside 0 to 180 deg (theta is measured from +z)");
+  return {Direction{theta * pi / 180.0, std::fmod(std::fmod(phi, 360.0) + 360.0, 360.0) * pi / 180.0}};
 }
 
 Model load_model(const std::string& path, const std::vector<Override>& overrides) {

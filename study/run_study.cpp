@@ -60,6 +60,7 @@ PreparedRun prepare_run(const RunRequest& request) {
   run.directory = request.output_directory.empty() ? std::filesystem::path(run.stem + "-results")
                                                    : std::filesystem::path(request.output_directory);
   run.sampling = request.sampling;
+  run.figures = figure_options(request.toward);
   run.problem = std::make_unique<AntennaProblem>(*run.model);
   require_solvable(*run.problem);
   check_output_directory(run.directory);
@@ -73,7 +74,10 @@ RunOutcome execute_run(const PreparedRun& run, const RunInfo& info, const StudyC
     return solve_and_publish(run, scattering, control, FrequencySampling::every, evaluate_scattering, write_scattering_files, scattering_summary);
   }
   RunRecord antenna{*run.problem, {}, info};
-  return solve_and_publish(run, antenna, control, run.sampling, evaluate_frequency, write_antenna_files, run_summary);
+  const auto evaluate = [&](const AntennaProblem& problem, const FrequencySolution& solution) {
+    return evaluate_frequency(problem, solution, run.figures);
+  };
+  return solve_and_publish(run, antenna, control, run.sampling, evaluate, write_antenna_files, run_summary);
 }
 
 }  // namespace lobe

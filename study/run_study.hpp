@@ -19,6 +19,7 @@ struct RunRequest {
   std::vector<std::string> set_options;   ///< NAME=EXPRESSION
   std::vector<std::string> band_options;  ///< extra bands, LOW:HIGH
   std::string output_directory;           ///< empty: MODEL-STEM-results
+  std::string toward;                     ///< THETA,PHI for the polarisation figures; empty: the main beam
   FrequencySampling sampling = FrequencySampling::adaptive;
 };
 
@@ -29,6 +30,7 @@ struct PreparedRun {
   std::unique_ptr<AntennaProblem> problem;
   std::filesystem::path directory;
   std::string stem;
+  FigureOptions figures;
   FrequencySampling sampling = FrequencySampling::adaptive;
 };
 

@@ -150,6 +150,10 @@ TEST(BadInput, OptionsAreCheckedBeforeAnyWork) {
            {"run " + model + out + " --tx-power 1e308", "--tx-power: "},
            {"compare x.h5 y.s1p --tx-power inf", "--tx-power: "},
            {"run " + model + out + " --threads 1024", "--threads: "},
+           {"run " + model + out + " --toward 200,0", "--toward:1:1: "},
+           {"run " + model + out + " --toward 10", "--toward:1:1: "},
+           {"run " + model + out + " --toward nan,0", "--toward:1:1: "},
+           {"run " + model + out + " --toward 10,0x", "--toward:1:1: "},
            {"sweep " + model + " --vary length=150mm,160mm --rank worst-vswr --band 2GHz:3GHz" + out, "--band:1:1: "},
            {"tune " + model + " --vary length=150mm:160mm --band 2GHz:3GHz" + out, "--band:1:1: "},
            {"sweep " + model + " --vary length=1mm:10000mm:1mm --vary rod=1mm:10000mm:1mm" + out, "--vary:1:1: "}}) {

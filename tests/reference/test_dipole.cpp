@@ -91,5 +91,25 @@ TEST(DipoleReference, ShortDipoleReactance) {
   EXPECT_NEAR(dipole_impedance(l, a, 20).imag(), reference, 0.05 * std::abs(reference));
 }
 
+// Balanis sec. 4.6: the half-wavelength dipole's half-power beamwidth is 78° in any plane
+// through its axis, and it radiates alike in every azimuth. Through the whole chain (the
+// solved currents, the pattern grid's peak, the beam's figures): 78° ± 1°, omnidirectional
+// about the axis, front-to-back and front-to-side 0 dB (symmetry; ±0.01 dB).
+TEST(DipoleReference, HalfWaveDipoleBeamFigures) {
+  std::string text = dipole_text(0.5, 1e-4, thin_segments);
+  text += "pattern theta 0 to 180 step 5 deg  phi 0 to 355 step 5 deg\n";
+  const Solved s = solve_text(text);
+  const BeamFigures& beam = s.result.beam;
+  EXPECT_NEAR(beam.peak.theta, pi / 2, 1e-12);
+  EXPECT_NEAR(beam.beamwidth_theta_deg, 78.0, 1.0);
+  EXPECT_EQ(beam.beamwidth_phi_deg, no_half_power_deg);
+  ASSERT_TRUE(beam.front_to_back_db && beam.front_to_side_db);
+  EXPECT_NEAR(*beam.front_to_back_db, 0.0, 0.01);
+  EXPECT_NEAR(*beam.front_to_side_db, 0.0, 0.01);
+  // Realized gain is the gain less the mismatch: 10 log10(1 − |Γ|²).
+  const Real gamma = std::abs(s.result.ports[0].reflection);
+  EXPECT_NEAR(beam.realized_gain_dbi, beam.gain_dbi + 10 * std::log10(1 - gamma * gamma), 1e-9);
+}
+
 }  // namespace
 }  // namespace lobe::testing
