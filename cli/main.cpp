@@ -119,7 +119,7 @@ int main(int argc, char** argv) {
       ->check(CLI::IsMember({"auto", "touchstone", "csv"}));
   plot_app->add_option("--band", plot.band_options, "A band to shade, and a sweep map's band: LOW:HIGH (repeatable)")
       ->allow_extra_args(false);
-  plot_app->add_option("--figure", plot.figure, "A sweep map's figure: worst-vswr (default), mean-vswr, mean-mismatch-loss, share-under-vswr-2")
+  plot_app->add_option("--figure", plot.figure, "A sweep map's band figure: worst-vswr (default), mean-vswr, worst-axial-ratio, centre-gain, ...")
       ->check(CLI::IsMember(lobe::band_figure_names()));
   plot_app->add_option("--axes", plot.axes, "A sweep map's varied names: X or X,Y (default: the first two)")
       ->delimiter(',')
@@ -136,8 +136,14 @@ int main(int argc, char** argv) {
       ->allow_extra_args(false);
   sweep_app->add_option("-o,--output", sweep.study.output, "The sweep's HDF5 file (default: MODEL-STEM-sweep.h5)");
   sweep_app->add_flag("--resume", resume, "Go on with an interrupted sweep (re-running the same command does too)");
-  sweep_app->add_option("--rank", sweep.study.rank, "Rank the cases: worst-vswr, mean-vswr, mean-mismatch-loss, share-under-vswr-2")
-      ->check(CLI::IsMember(lobe::band_figure_names()));
+  sweep_app->add_option("--rank", sweep.study.rank,
+                        "Rank the cases by a band figure (worst-vswr, worst-axial-ratio, centre-gain, worst-front-to-back, "
+                        "...) or a weighted sum ('worst-vswr + 0.5*worst-axial-ratio')");
+  sweep_app->add_option("--limit", sweep.study.limits,
+                        "A limit every case should meet: FIGURE<=BOUND or FIGURE>=BOUND, e.g. worst-axial-ratio<=3 (repeatable)")
+      ->allow_extra_args(false);
+  sweep_app->add_option("--toward", sweep.study.toward,
+                        "Judge polarisation toward THETA,PHI in degrees (default: the main beam)");
   sweep_app->add_option("--band", sweep.study.band, "The band to rank over: LOW:HIGH (default: the model's first band)");
   sweep_app->add_option("--threads", sweep.threads, "Threads (default: all cores)")->check(thread_range());
   bool sweep_every_frequency = false;
@@ -145,12 +151,17 @@ int main(int argc, char** argv) {
                       "Solve every frequency of every case in full (default: long ranges adaptively)");
 
   lobe::cli::TuneOptions tune;
-  auto* tune_app = app.add_subcommand("tune", "Search let values for the best match over a band; write the tuned model");
+  auto* tune_app = app.add_subcommand("tune", "Search let values for the best band figures, within limits; write the tuned model");
   tune_app->add_option("MODEL", tune.study.model_path, "Model file (.lobe)")->required();
   tune_app->add_option("--vary", tune.study.vary_options, "NAME=MIN:MAX (repeatable)")->required()->allow_extra_args(false);
   tune_app->add_option("--set", tune.study.set_options, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
-  tune_app->add_option("--goal", tune.study.goal, "worst-vswr (default), mean-vswr or mean-mismatch-loss")
-      ->check(CLI::IsMember({"worst-vswr", "mean-vswr", "mean-mismatch-loss"}));
+  tune_app->add_option("--goal", tune.study.goal,
+                       "A band figure (worst-vswr, the default; worst-axial-ratio, centre-gain, ...) or a weighted sum "
+                       "to minimise ('worst-vswr + 0.5*worst-axial-ratio')");
+  tune_app->add_option("--limit", tune.study.limits,
+                       "A limit the result must meet: FIGURE<=BOUND or FIGURE>=BOUND, e.g. worst-axial-ratio<=3 (repeatable)")
+      ->allow_extra_args(false);
+  tune_app->add_option("--toward", tune.study.toward, "Judge polarisation toward THETA,PHI in degrees (default: the main beam)");
   tune_app->add_option("--band", tune.study.band, "The band to judge: LOW:HIGH (default: the model's first band)");
   tune_app->add_option("--evaluations", tune.study.evaluations, "Most models to solve (default 60)")->check(CLI::Range(2, 100000));
   tune_app->add_option("-o,--output", tune.study.output, "The tuned model (default: MODEL-STEM-tuned.lobe)");

@@ -6,6 +6,7 @@
 #include "cli/commands.hpp"
 #include "cli/interrupt.hpp"
 #include "cli/progress_line.hpp"
+#include "core/formatted_text.hpp"
 #include "post/run_summary.hpp"
 #include "post/sweep_file.hpp"
 #include "solver/threads.hpp"
@@ -13,6 +14,43 @@
 #include "study/sweep_study.hpp"
 
 namespace lobe::cli {
+namespace {
+
+/// The best cases, best first: the goal's value, whether each meets the limits and by how
+/// much the others miss, and a warning when the best lies on the edge of the grid.
+void print_ranking(const PreparedSweep& sweep, const std::vector<RankedCase>& ranked) {
+  const DesignGoal& goal = *sweep.goal;
+  const std::string goal_text = goal.single() ? band_figure_title(goal.terms.front().figure) : goal.text + " (minimised)";
+  std::printf("\nbest cases by %s over %s (%s to %s), first port", goal_text.c_str(), sweep.band->name.c_str(),
+              frequency_text(sweep.band->low_hz).c_str(), frequency_text(sweep.band->high_hz).c_str());
+  if (!sweep.limits.empty()) {
+    std::string limits;
+    for (const auto& l : sweep.limits) limits += (limits.empty() ? "" : ", ") + l.text;
+    const auto meeting = std::count_if(ranked.begin(), ranked.end(), [](const RankedCase& r) { return r.judgement.meets(); });
+    std::printf(", subject to %s: %zu of %zu cases meet them", limits.c_str(), static_cast<std::size_t>(meeting), ranked.size());
+  }
+  std::printf(":\n");
+  for (std::size_t k = 0; k < std::min<std::size_t>(10, ranked.size()); ++k) {
+    const Judgement& j = ranked[k].judgement;
+    const std::string value = j.value ? formatted("%-10.4g", *j.value) : std::string("n/a       ");
+    std::printf("  %2zu. %s  %s", k + 1, case_name(ranked[k].index).c_str(), value.c_str());
+    for (std::size_t v = 0; v < sweep.grid.varied.size(); ++v)
+      std::printf("  %s = %s", sweep.grid.varied[v].name.c_str(), sweep.grid.labels[ranked[k].index][v].c_str());
+    if (!sweep.limits.empty()) std::printf("  %s", j.meets() ? "meets the limits" : misses_text(j, sweep.limits).c_str());
+    std::printf("\n");
+  }
+  if (ranked.empty()) return;
+  const auto edge = names_at_grid_edge(sweep, ranked.front().index);
+  if (!edge.empty()) {
+    std::string names;
+    for (const auto& n : edge) names += (names.empty() ? "" : ", ") + n;
+    std::printf("! the best case lies on the edge of the grid (%s): a better one may lie beyond; widen the range there\n",
+                names.c_str());
+  }
+}
+
+}  // namespace
+
 int sweep_command(const SweepOptions& options) {
   // Processes started together on one machine share its cores unless told otherwise.
   const int cores = static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
@@ -51,16 +89,8 @@ int sweep_command(const SweepOptions& options) {
   }
   std::printf("%zu cases (%zu solved now, %zu from before) in %s\n", sweep.grid.size(), outcome.solved, outcome.skipped,
               sweep.output.string().c_str());
-  if (options.study.rank.empty()) return 0;
-  const std::vector<RankedCase> ranked = rank_sweep(sweep, outcome.case_files);
-  std::printf("\nbest cases by %s over %s (%s to %s), first port:\n", options.study.rank.c_str(), sweep.band->name.c_str(),
-              frequency_text(sweep.band->low_hz).c_str(), frequency_text(sweep.band->high_hz).c_str());
-  for (std::size_t k = 0; k < std::min<std::size_t>(10, ranked.size()); ++k) {
-    std::printf("  %2zu. %s  %-12.4g", k + 1, case_name(ranked[k].index).c_str(), ranked[k].figure);
-    for (std::size_t v = 0; v < sweep.grid.varied.size(); ++v)
-      std::printf("  %s = %s", sweep.grid.varied[v].name.c_str(), sweep.grid.labels[ranked[k].index][v].c_str());
-    std::printf("\n");
-  }
+  if (!sweep.goal) return 0;
+  print_ranking(sweep, rank_sweep(sweep, outcome.case_files));
   return 0;
 }
 

@@ -16,7 +16,8 @@
 namespace lobe::cli {
 namespace {
 
-/// The band figure of the first port of every case of a sweep file.
+/// The band figure of every case of a sweep file (the first port's match, the beam's
+/// figures); a case where the figure is not defined is an InputError at --figure.
 std::vector<Real> case_figures(const std::filesystem::path& path, std::size_t cases, const Band& band,
                                const std::string& figure) {
   std::vector<Real> figures;
@@ -24,12 +25,18 @@ std::vector<Real> case_figures(const std::filesystem::path& path, std::size_t ca
     const NetworkData network = read_result_network(path, case_group(c));
     ReflectionCurve curve{network.frequency_hz, {}};
     for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
+    const BeamCurves beam = is_beam_figure(figure) ? read_result_beam(path, case_group(c)) : BeamCurves{network.frequency_hz, {}};
+    std::optional<Real> value;
     try {
-      figures.push_back(band_figure(band_report(curve, band.low_hz, band.high_hz), figure));
+      value = band_figure(band_figures(curve, beam, band.low_hz, band.high_hz), figure);
     } catch (const std::invalid_argument&) {
       throw InputError({"--band", 1, 1}, "the band " + frequency_text(band.low_hz) + " to " + frequency_text(band.high_hz) +
                                              " lies outside the sweep's frequencies");
     }
+    if (!value)
+      throw InputError({"--figure", 1, 1}, figure + " is not defined over this band for " + case_name(c) +
+                                               " (the back of a beam at the zenith over a ground)");
+    figures.push_back(*value);
   }
   return figures;
 }

@@ -2,6 +2,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/interrupt.hpp"
+#include "core/formatted_text.hpp"
 #include "core/number_text.hpp"
 #include "post/run_summary.hpp"
 #include "solver/threads.hpp"
@@ -22,11 +23,28 @@ int tune_command(const TuneOptions& options) {
     return 130;
   }
   if (!outcome.finished) std::fprintf(stderr, "interrupted: the best of %d evaluations is written\n", outcome.evaluations);
-  std::printf("best %s %.5g over %s (%s to %s) after %d evaluations:\n", options.study.goal.c_str(), outcome.best,
-              tuning.band.name.c_str(), frequency_text(tuning.band.low_hz).c_str(),
+  const DesignGoal& goal = tuning.goal;
+  const Judgement& best = outcome.best;
+  const std::string value = best.value ? formatted("%.5g", *best.value) : std::string("n/a");
+  std::printf("best %s %s over %s (%s to %s) after %d evaluations", goal.text.c_str(), value.c_str(), tuning.band.name.c_str(), frequency_text(tuning.band.low_hz).c_str(),
               frequency_text(tuning.band.high_hz).c_str(), outcome.evaluations);
+  if (!tuning.limits.empty()) {
+    std::string limits;
+    for (const auto& l : tuning.limits) limits += (limits.empty() ? "" : ", ") + l.text;
+    std::printf(", subject to %s", limits.c_str());
+  }
+  std::printf(":\n");
   for (std::size_t i = 0; i < tuning.tuned.size(); ++i)
     std::printf("  %s = %s\n", tuning.tuned[i].name.c_str(), shown_text(outcome.best_si[i], tuning.tuned[i].shown).c_str());
+  if (!tuning.limits.empty() && !best.meets())
+    std::printf("! no evaluation met every limit; the nearest %s: loosen a limit, widen a range or allow more evaluations\n",
+                misses_text(best, tuning.limits).c_str());
+  if (!outcome.at_bounds.empty()) {
+    std::string names;
+    for (const auto& n : outcome.at_bounds) names += (names.empty() ? "" : ", ") + n;
+    std::printf("! the best lies on a bound of the search (%s): a better one may lie beyond; widen the range there\n",
+                names.c_str());
+  }
   std::printf("written: %s\n", outcome.written.string().c_str());
   return outcome.finished ? 0 : 130;
 }

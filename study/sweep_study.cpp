@@ -30,6 +30,8 @@ std::string manifest(const std::string& model_text, const SweepRequest& request,
   for (const auto& s : request.set_options) m << ' ' << s;
   // Solving every frequency gives other numbers than the adaptive sweep's interpolants.
   if (request.sampling == FrequencySampling::every) m << "\nevery frequency solved";
+  // The polarisation figures stored with each case are taken there.
+  if (!request.toward.empty()) m << "\npolarisation toward " << request.toward;
   m << "\nvaried:";
   for (const auto& v : grid.varied) m << ' ' << v.name;
   m << '\n';
@@ -84,13 +86,18 @@ PreparedSweep prepare_sweep(const SweepRequest& request) {
   PreparedSweep sweep;
   sweep.request = request;
   sweep.grid = case_grid(request.vary_options);
+  sweep.figures = figure_options(request.toward);
+  for (std::size_t i = 0; i < request.limits.size(); ++i)
+    sweep.limits.push_back(parse_design_limit(request.limits[i], static_cast<int>(i) + 1));
+  if (!request.rank.empty() || !sweep.limits.empty())
+    sweep.goal = parse_design_goal(request.rank.empty() ? "worst-vswr" : request.rank, "--rank");
   // Every case must load, and the ranking band must lie within every case's frequencies,
   // before any is solved: a bad value is an input error now, not hours into the night.
   std::string model_text;
   for (std::size_t c = 0; c < sweep.grid.size(); ++c) {
     const Model model = load_model(request.model_path, case_overrides(sweep, c));
     if (model.wave) throw InputError({request.model_path, 1, 1}, "sweeps solve antennas driven by ports, not plane waves");
-    if (!request.rank.empty()) {
+    if (sweep.goal) {
       const Band band = judged_band(model, request.band);
       if (!sweep.band) sweep.band = band;
     }
@@ -210,7 +217,7 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
       const bool whole = solve_each_frequency(
           problem, {control.cancel, {}, {}, {}, {}, share_frequencies},
           [&](std::size_t index, FrequencySolution&& s) {
-            if (writes_cases) run.results[index] = evaluate_frequency(problem, s);
+            if (writes_cases) run.results[index] = evaluate_frequency(problem, s, sweep.figures);
           },
           sweep.request.sampling);
 #pragma omp critical(lobe_sweep_state)
@@ -267,19 +274,35 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
 }
 
 std::vector<RankedCase> rank_sweep(const PreparedSweep& sweep, const std::vector<std::filesystem::path>& case_files) {
-  const std::string& figure_name = sweep.request.rank;
+  const DesignGoal& goal = *sweep.goal;
+  const bool beam = goal.needs_beam() || std::any_of(sweep.limits.begin(), sweep.limits.end(),
+                                                     [](const DesignLimit& l) { return l.needs_beam(); });
   std::vector<RankedCase> ranked;
   for (std::size_t c = 0; c < case_files.size(); ++c) {
     const NetworkData network = read_result_network(case_files[c]);
     ReflectionCurve curve{network.frequency_hz, {}};
     for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
-    ranked.push_back({c, band_figure(band_report(curve, sweep.band->low_hz, sweep.band->high_hz), figure_name)});
+    const BeamCurves beam_curves = beam ? read_result_beam(case_files[c]) : BeamCurves{network.frequency_hz, {}};
+    const BandFigures figures = band_figures(curve, beam_curves, sweep.band->low_hz, sweep.band->high_hz);
+    ranked.push_back({c, judge(goal, sweep.limits, figures)});
   }
-  const bool larger = larger_is_better(figure_name);
   std::stable_sort(ranked.begin(), ranked.end(), [&](const RankedCase& a, const RankedCase& b) {
-    return larger ? a.figure > b.figure : a.figure < b.figure;
+    return judged_better(a.judgement, b.judgement, sweep.limits);
   });
   return ranked;
+}
+
+std::vector<std::string> names_at_grid_edge(const PreparedSweep& sweep, std::size_t index) {
+  std::vector<std::string> names;
+  for (std::size_t v = 0; v < sweep.grid.varied.size(); ++v) {
+    Real low = sweep.values_si.front()[v], high = low;
+    for (const auto& values : sweep.values_si) low = std::min(low, values[v]), high = std::max(high, values[v]);
+    const Real value = sweep.values_si[index][v];
+    if (high > low && (value == low || value == high))
+      names.push_back(sweep.grid.varied[v].name + " = " + sweep.grid.labels[index][v] +
+                      (value == low ? " (its smallest)" : " (its largest)"));
+  }
+  return names;
 }
 
 }  // namespace lobe

@@ -7,7 +7,9 @@
 #include <vector>
 
 #include "geometry/model.hpp"
+#include "post/frequency_result.hpp"
 #include "study/case_grid.hpp"
+#include "study/design_goal.hpp"
 #include "study/study_control.hpp"
 
 namespace lobe {
@@ -17,8 +19,10 @@ struct SweepRequest {
   std::vector<std::string> vary_options;  ///< NAME=START:STOP:STEP or NAME=A,B,C
   std::vector<std::string> set_options;   ///< fixed overrides for every case
   std::string output;                     ///< the sweep's HDF5 file; empty: MODEL-STEM-sweep.h5
-  std::string rank;                       ///< a band figure to rank by; empty: no ranking
+  std::string rank;                       ///< a goal to rank by (study/design_goal); empty: no ranking
+  std::vector<std::string> limits;        ///< FIGURE<=BOUND or FIGURE>=BOUND, each case must meet
   std::string band;                       ///< LOW:HIGH for the ranking; default the model's first band
+  std::string toward;                     ///< THETA,PHI for the polarisation figures; empty: the main beam
   FrequencySampling sampling = FrequencySampling::adaptive;
 };
 
@@ -29,6 +33,9 @@ struct PreparedSweep {
   CaseGrid grid;
   std::vector<std::vector<Real>> values_si;  ///< per case, the varied values as resolved (SI)
   std::optional<Band> band;                  ///< the ranking band, when ranking
+  std::optional<DesignGoal> goal;            ///< when ranking (--rank, or worst-vswr with --limit alone)
+  std::vector<DesignLimit> limits;
+  FigureOptions figures;
   std::filesystem::path output;
   std::filesystem::path case_directory;      ///< OUTPUT.cases
   std::string manifest;                      ///< what identifies this sweep's cases
@@ -54,10 +61,16 @@ SweepOutcome execute_sweep(const PreparedSweep& sweep, const StudyControl& contr
 
 struct RankedCase {
   std::size_t index;
-  Real figure;
+  Judgement judgement;
 };
 
-/// The cases ordered best first by the request's band figure of the first port.
+/// The cases ordered best first (judged_better): those meeting every limit by the goal,
+/// then the others by how far they miss; the first port's match and the beam's figures
+/// over the ranking band.
 std::vector<RankedCase> rank_sweep(const PreparedSweep& sweep, const std::vector<std::filesystem::path>& case_files);
+
+/// The varied names whose value in case `index` is the smallest or largest of the sweep's
+/// ("length = 160 mm (its largest)"): a best case there may have a better one beyond.
+std::vector<std::string> names_at_grid_edge(const PreparedSweep& sweep, std::size_t index);
 
 }  // namespace lobe

@@ -9,6 +9,7 @@
 #include "core/formatted_text.hpp"
 #include "core/number_text.hpp"
 #include "post/band_report.hpp"
+#include "post/beam_band_report.hpp"
 #include "post/frequency_result.hpp"
 #include "post/output_files.hpp"
 #include "study/frequency_loop.hpp"
@@ -26,16 +27,20 @@ std::vector<std::string> names_of(const std::vector<TunedName>& tuned) {
   return names;
 }
 
-/// The goal's value for one set of overrides: a band figure of the first port.
+/// Goal and limits for one set of overrides: the band figures of the first port and, when
+/// the goal or a limit needs them, of the beam.
 struct Evaluator {
   const PreparedTuning& tuning;
   const StudyControl& control;
   const std::vector<TunedName>& tuned;
   int evaluations = 0;
   std::exception_ptr failure;
-  Real best = 1e300;
+  std::optional<Judgement> best;
+  std::vector<double> best_x;
   std::vector<std::string> best_values;
-  std::vector<Real> best_si;
+  /// The last point evaluated: NLopt asks for the objective and then each constraint there.
+  std::vector<double> last_x;
+  BandFigures last;
 
   std::vector<Real> si_of(const std::vector<double>& x) const {
     std::vector<Real> si;
@@ -47,44 +52,93 @@ struct Evaluator {
     for (std::size_t i = 0; i < tuned.size(); ++i) texts.push_back(exact_text(si_of(x)[i]) + tuned[i].unit);
     return texts;
   }
+  bool needs_beam() const {
+    return tuning.goal.needs_beam() ||
+           std::any_of(tuning.limits.begin(), tuning.limits.end(), [](const DesignLimit& l) { return l.needs_beam(); });
+  }
 
-  /// The goal at these values, or nothing when cancelled before the last frequency.
-  std::optional<Real> goal(const std::vector<std::string>& values) {
+  /// The band figures at these values, or nothing when cancelled before the last frequency.
+  std::optional<BandFigures> figures(const std::vector<std::string>& values) {
     const TuneRequest& r = tuning.request;
     const Model model = load_model(r.model_path, overrides_with(r.set_options, names_of(tuned), values));
     const AntennaProblem problem(model);
     require_solvable(problem);
-    ReflectionCurve curve{model.frequencies_hz, std::vector<Complex>(model.frequencies_hz.size())};
+    const std::size_t n = model.frequencies_hz.size();
+    ReflectionCurve curve{model.frequencies_hz, std::vector<Complex>(n)};
+    const bool beam = needs_beam();
+    std::vector<FrequencyResult> results(beam ? n : 0);
     const StudyControl frequencies{control.cancel, {}, {}, {}, {}};
     const bool whole = solve_each_frequency(problem, frequencies, [&](std::size_t index, FrequencySolution&& solution) {
-      curve.reflection[index] = port_results(solution, model.reference_ohm)[0].reflection;
+      if (beam) {
+        results[index] = evaluate_frequency(problem, solution, tuning.figures);
+        curve.reflection[index] = results[index].ports[0].reflection;
+      } else {
+        curve.reflection[index] = port_results(solution, model.reference_ohm)[0].reflection;
+      }
     });
     if (!whole) return std::nullopt;
-    return band_figure(band_report(curve, tuning.band.low_hz, tuning.band.high_hz), r.goal);
+    const BeamCurves beam_values = beam ? beam_curves(results) : BeamCurves{model.frequencies_hz, {}};
+    return band_figures(curve, beam_values, tuning.band.low_hz, tuning.band.high_hz);
+  }
+
+  /// Evaluates x unless it was the last point; false when cancelled mid-evaluation.
+  bool evaluate(const std::vector<double>& x) {
+    if (x == last_x) return true;
+    const auto values = values_of(x);
+    const auto found = figures(values);
+    if (!found) return false;
+    last_x = x;
+    last = *found;
+    ++evaluations;
+    const Judgement j = judge(tuning.goal, tuning.limits, last);
+    if (!best || judged_better(j, *best, tuning.limits)) best = j, best_x = x, best_values = values;
+    if (control.progress) {
+      auto text = [&](const Judgement& k) {
+        std::string t = k.value ? formatted("%.5g", *k.value) : std::string("n/a");
+        if (!tuning.limits.empty()) t += k.meets() ? " meeting the limits" : " (" + misses_text(k, tuning.limits) + ")";
+        return t;
+      };
+      control.progress(static_cast<std::size_t>(evaluations), static_cast<std::size_t>(tuning.request.evaluations),
+                       static_cast<std::size_t>(evaluations),
+                       tuning.goal.text + " " + text(j) + "; best " + text(*best));
+    }
+    return true;
   }
 };
 
-double objective(const std::vector<double>& x, std::vector<double>&, void* data) {
-  auto& e = *static_cast<Evaluator*>(data);
-  const auto values = e.values_of(x);
-  std::optional<Real> goal;
+/// A goal or limit the optimiser cannot read (a figure undefined there) counts as far off.
+constexpr double undefined_penalty = 1e6;
+
+/// Runs `step` for NLopt: an exception would become a bare "nlopt failure", so it is kept to
+/// rethrow, and a cancelled evaluation (which does not count) stops the search.
+template <class Step>
+double guarded(Evaluator& e, const std::vector<double>& x, Step step) {
   try {
-    goal = e.goal(values);
+    if (!e.evaluate(x)) throw nlopt::forced_stop();
+  } catch (const nlopt::forced_stop&) {
+    throw;
   } catch (...) {
-    // NLopt would turn any exception into a bare "nlopt failure": keep it to rethrow.
     e.failure = std::current_exception();
     throw nlopt::forced_stop();
   }
-  if (!goal) throw nlopt::forced_stop();  // cancelled mid-evaluation: it does not count
-  const Real g = *goal;
-  ++e.evaluations;
-  if (g < e.best) e.best = g, e.best_values = values, e.best_si = e.si_of(x);
-  if (e.control.progress)
-    e.control.progress(static_cast<std::size_t>(e.evaluations), static_cast<std::size_t>(e.tuning.request.evaluations),
-                       static_cast<std::size_t>(e.evaluations),
-                       e.tuning.request.goal + " " + formatted("%.5g", g) + " (best " + formatted("%.5g", e.best) + ")");
   if (e.control.cancelled()) throw nlopt::forced_stop();
-  return g;
+  return step();
+}
+
+double objective(const std::vector<double>& x, std::vector<double>&, void* data) {
+  auto& e = *static_cast<Evaluator*>(data);
+  return guarded(e, x, [&] { return e.tuning.goal.cost(e.last).value_or(undefined_penalty); });
+}
+
+struct LimitConstraint {
+  Evaluator* evaluator;
+  std::size_t limit;
+};
+
+double limit_constraint(const std::vector<double>& x, std::vector<double>&, void* data) {
+  const auto& c = *static_cast<LimitConstraint*>(data);
+  Evaluator& e = *c.evaluator;
+  return guarded(e, x, [&] { return e.tuning.limits[c.limit].excess(e.last).value_or(undefined_penalty); });
 }
 
 /// The model text with every overridden `let` (tuned or fixed by --set) set to the value
@@ -99,7 +153,9 @@ std::string tuned_text(const Model& model, const std::vector<TunedName>& tuned) 
 }  // namespace
 
 PreparedTuning prepare_tuning(const TuneRequest& request) {
-  PreparedTuning tuning{request, {}, {}, {}};
+  PreparedTuning tuning{request, {}, {}, {}, parse_design_goal(request.goal, "--goal"), {}, figure_options(request.toward)};
+  for (std::size_t i = 0; i < request.limits.size(); ++i)
+    tuning.limits.push_back(parse_design_limit(request.limits[i], static_cast<int>(i) + 1));
   for (std::size_t i = 0; i < request.vary_options.size(); ++i)
     tuning.tuned.push_back(parse_tune_option(request.vary_options[i], static_cast<int>(i) + 1));
   const std::string stem = std::filesystem::path(request.model_path).stem().string();
@@ -118,11 +174,15 @@ PreparedTuning prepare_tuning(const TuneRequest& request) {
 
 TuneOutcome execute_tuning(const PreparedTuning& tuning, const StudyControl& control) {
   const std::vector<TunedName>& tuned = tuning.tuned;
-  Evaluator evaluator{tuning, control, tuned, 0, nullptr, 1e300, {}, {}};
-  nlopt::opt optimiser(nlopt::LN_BOBYQA, static_cast<unsigned>(tuned.size()));
+  Evaluator evaluator{tuning, control, tuned};
+  const bool limited = !tuning.limits.empty();
+  nlopt::opt optimiser(limited ? nlopt::LN_COBYLA : nlopt::LN_BOBYQA, static_cast<unsigned>(tuned.size()));
   optimiser.set_lower_bounds(std::vector<double>(tuned.size(), 0.0));
   optimiser.set_upper_bounds(std::vector<double>(tuned.size(), 1.0));
   optimiser.set_min_objective(objective, &evaluator);
+  std::vector<LimitConstraint> constraints;
+  for (std::size_t i = 0; i < tuning.limits.size(); ++i) constraints.push_back({&evaluator, i});
+  for (auto& c : constraints) optimiser.add_inequality_constraint(limit_constraint, &c, 0.0);
   optimiser.set_maxeval(tuning.request.evaluations);
   optimiser.set_xtol_abs(1e-4);
   std::vector<double> x(tuned.size(), 0.5);
@@ -134,7 +194,7 @@ TuneOutcome execute_tuning(const PreparedTuning& tuning, const StudyControl& con
   } catch (const nlopt::forced_stop&) {
     if (evaluator.failure) std::rethrow_exception(evaluator.failure);
     // Cancelled: the best point so far is written, if there is one.
-    if (evaluator.best_values.empty()) return {false, 0.0, {}, 0, {}};
+    if (!evaluator.best) return {false, {}, {}, {}, 0, {}};
   }
   const TuneRequest& r = tuning.request;
   const std::filesystem::path directory =
@@ -143,7 +203,13 @@ TuneOutcome execute_tuning(const PreparedTuning& tuning, const StudyControl& con
   const Model tuned_model = load_model(r.model_path, overrides_with(r.set_options, names_of(tuned), evaluator.best_values));
   files.stage_text(tuning.output.filename().string(), tuned_text(tuned_model, tuned));
   files.commit();
-  return {!control.cancelled(), evaluator.best, evaluator.best_si, evaluator.evaluations, tuning.output};
+  TuneOutcome outcome{!control.cancelled(), *evaluator.best, evaluator.si_of(evaluator.best_x), {}, evaluator.evaluations,
+                      tuning.output};
+  // The search box's edge: the best may lie beyond it (1e-3 of the range, ten times xtol).
+  for (std::size_t i = 0; i < tuned.size(); ++i)
+    if (evaluator.best_x[i] < 1e-3 || evaluator.best_x[i] > 1 - 1e-3)
+      outcome.at_bounds.push_back(tuned[i].name + (evaluator.best_x[i] < 0.5 ? " (at its minimum)" : " (at its maximum)"));
+  return outcome;
 }
 
 }  // namespace lobe

@@ -19,6 +19,7 @@
 #include "post/band_report.hpp"
 #include "cli/result_datasets.hpp"
 #include "post/result_reader.hpp"
+#include "post/sweep_file.hpp"
 #include "post/touchstone.hpp"
 #include "support/xml_check.hpp"
 
@@ -144,6 +145,62 @@ TEST(Tune, WrittenModelKeepsSetValuesAndReproducesTheFigure) {
   for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
   const Real rerun = band_figure(band_report(curve, 863e6, 870e6), "worst-vswr");
   EXPECT_NEAR(rerun, tuned_value, 1e-4 * tuned_value);  // tune prints five digits
+}
+
+// Ranking a crossed-dipole sweep by worst VSWR subject to axial ratio <= 3 dB over the band:
+// every case listed as meeting the limit does (its worst axial ratio from its own file),
+// those come first in ascending worst VSWR, the others say by how much they miss, and a
+// best case on the grid's edge is flagged.
+TEST(Sweep, RanksByAGoalSubjectToLimits) {
+  const auto dir = fresh_directory("sweep-limits");
+  const ProcessResult r = run_lobe("sweep '" + models + "crossed_dipole_reflector_137.lobe' --vary arm=480mm,500mm,520mm "
+                                   "--vary height=500mm,700mm --rank worst-vswr --limit 'worst-axial-ratio<=3' -o '" +
+                                       (dir / "s.h5").string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const std::regex row(R"( *\d+\. case-(\d+)  ([0-9.]+) .*(meets the limits|misses worst-axial-ratio<=3 by ([0-9.e+-]+)))");
+  std::istringstream lines(r.out);
+  std::string line;
+  int rows = 0, meeting = 0;
+  bool failing_seen = false;
+  double previous_vswr = 0.0;
+  while (std::getline(lines, line)) {
+    std::smatch m;
+    if (!std::regex_match(line, m, row)) continue;
+    ++rows;
+    const std::size_t c = std::stoul(m[1]) - 1;  // case-000001 is the first
+    const BeamCurves beam = read_result_beam(dir / "s.h5", case_group(c));
+    const double worst_ar = beam_band_report(beam, 137e6, 138e6).at("axial-ratio").worst;
+    const bool meets = m[3] == "meets the limits";
+    if (meets) {
+      ++meeting;
+      EXPECT_FALSE(failing_seen) << r.out;
+      EXPECT_LE(worst_ar, 3.0) << line;
+      EXPECT_GE(std::stod(m[2]), previous_vswr) << r.out;
+      previous_vswr = std::stod(m[2]);
+    } else {
+      failing_seen = true;
+      EXPECT_NEAR(std::stod(m[4]), worst_ar - 3.0, 1e-3 * worst_ar) << line;
+    }
+  }
+  EXPECT_EQ(rows, 6) << r.out;
+  EXPECT_GT(meeting, 0) << r.out;
+  EXPECT_NE(r.out.find(std::to_string(meeting) + " of 6 cases meet them"), std::string::npos) << r.out;
+  EXPECT_NE(r.out.find("on the edge of the grid"), std::string::npos) << r.out;
+}
+
+// Constrained tuning (COBYLA): the tuned model, run on its own, meets the limit over the
+// band (within the optimiser's constraint tolerance, 0.01 dB).
+TEST(Tune, ConstrainedTuningMeetsItsLimit) {
+  const auto dir = fresh_directory("tune-limits");
+  const ProcessResult tuned = run_lobe("tune '" + models + "crossed_dipole_reflector_137.lobe' --vary arm=480mm:560mm "
+                                       "--vary height=400mm:700mm --limit 'worst-axial-ratio<=3' --evaluations 25 -o '" +
+                                           (dir / "t.lobe").string() + "'", dir);
+  ASSERT_EQ(tuned.exit_code, 0) << tuned.err;
+  EXPECT_NE(tuned.out.find("subject to worst-axial-ratio<=3"), std::string::npos) << tuned.out;
+  EXPECT_EQ(tuned.out.find("no evaluation met every limit"), std::string::npos) << tuned.out;
+  ASSERT_EQ(run_lobe("run '" + (dir / "t.lobe").string() + "' -o '" + (dir / "r").string() + "'", dir).exit_code, 0);
+  const BeamCurves beam = read_result_beam(dir / "r" / "t.h5");
+  EXPECT_LE(beam_band_report(beam, 137e6, 138e6).at("axial-ratio").worst, 3.01);
 }
 
 // Giving one name twice would silently use the first value: refused, naming the option.
