@@ -72,29 +72,43 @@ int compare_command(const CompareOptions& options) {
               network.reference_ohm);
 
   const auto simulated_dips = resonances(simulated), measured_dips = resonances(measured.curve);
-  std::printf("dips of |S11| (return loss at least 3 dB):\n");
-  for (const auto& d : simulated_dips)
-    std::printf("  simulated  %-14s return loss %.1f dB\n", frequency_text(d.frequency_hz).c_str(), d.return_loss_db);
-  for (const auto& d : measured_dips) {
+  const DipPairing pairing = pair_dips(simulated_dips, measured_dips);
+  std::printf("dips of |S11| (return loss at least 3 dB, standing 3 dB above their surroundings):\n");
+  for (std::size_t s = 0; s < simulated_dips.size(); ++s) {
+    const Resonance& d = simulated_dips[s];
+    std::printf("  simulated  %-14s return loss %.1f dB", frequency_text(d.frequency_hz).c_str(), d.return_loss_db);
+    if (!pairing.simulated_unpaired[s].empty()) std::printf("  unpaired: %s", pairing.simulated_unpaired[s].c_str());
+    std::printf("\n");
+  }
+  for (std::size_t m = 0; m < measured_dips.size(); ++m) {
+    const Resonance& d = measured_dips[m];
     std::printf("  measured   %-14s return loss %.1f dB", frequency_text(d.frequency_hz).c_str(), d.return_loss_db);
-    if (!simulated_dips.empty()) {
-      const auto nearest = std::min_element(simulated_dips.begin(), simulated_dips.end(), [&](const auto& a, const auto& b) {
-        return std::abs(a.frequency_hz - d.frequency_hz) < std::abs(b.frequency_hz - d.frequency_hz);
-      });
-      std::printf(", %+.3g MHz (%+.2f %%) from the simulated dip", (d.frequency_hz - nearest->frequency_hz) / 1e6,
-                  100 * (d.frequency_hz / nearest->frequency_hz - 1));
+    const auto pair = std::find_if(pairing.pairs.begin(), pairing.pairs.end(),
+                                   [&](const DipPairing::Pair& p) { return p.measured == m; });
+    if (pair != pairing.pairs.end()) {
+      const Resonance& partner = simulated_dips[pair->simulated];
+      std::printf("  paired with the simulated dip at %s: %+.3g MHz (%+.2f %%)", frequency_text(partner.frequency_hz).c_str(),
+                  (d.frequency_hz - partner.frequency_hz) / 1e6, 100 * (d.frequency_hz / partner.frequency_hz - 1));
+    } else {
+      std::printf("  unpaired: %s", pairing.measured_unpaired[m].c_str());
     }
     std::printf("\n");
   }
   if (simulated_dips.empty() && measured_dips.empty()) std::printf("  none in either curve\n");
 
-  const Real scale = best_frequency_scale(simulated, measured.curve, low, high);
-  std::printf("\nbest frequency-scale factor: %.4f (the measured curve looks like the simulated one with every "
-              "frequency times %.4f)\n",
-              scale, scale);
-  std::printf("  that is what lengths %.2f %% %s than the model's would do: a simple antenna's resonances scale "
-              "inversely with its size\n",
-              std::abs(100 * (1 / scale - 1)), scale < 1 ? "longer" : "shorter");
+  const ScaleEstimate estimate =
+      frequency_scale_estimate(simulated, measured.curve, low, high, simulated_dips, measured_dips, pairing);
+  if (estimate.scale) {
+    const Real scale = *estimate.scale;
+    std::printf("\nbest frequency-scale factor: %.4f (the measured curve looks like the simulated one with every "
+                "frequency times %.4f)\n",
+                scale, scale);
+    std::printf("  that is what lengths %.2f %% %s than the model's would do: a simple antenna's resonances scale "
+                "inversely with its size\n",
+                std::abs(100 * (1 / scale - 1)), scale < 1 ? "longer" : "shorter");
+  } else {
+    std::printf("\nno reliable shift: %s\n", estimate.reason.c_str());
+  }
   for (const Band& band : bands) {
     const Real b_low = std::max(band.low_hz, low), b_high = std::min(band.high_hz, high);
     std::printf("\nband %s (%s to %s):\n", band.name.c_str(), frequency_text(band.low_hz).c_str(),
@@ -103,9 +117,11 @@ int compare_command(const CompareOptions& options) {
       std::printf("  outside the overlap of the two curves\n");
       continue;
     }
-    std::printf("  RMS return-loss difference %.2f dB; %.2f dB after scaling the frequencies by %.4f\n",
-                rms_return_loss_difference_db(simulated, measured.curve, b_low, b_high),
-                rms_return_loss_difference_db(simulated, measured.curve, b_low, b_high, scale), scale);
+    std::printf("  RMS return-loss difference %.2f dB", rms_return_loss_difference_db(simulated, measured.curve, b_low, b_high));
+    if (estimate.scale)
+      std::printf("; %.2f dB after scaling the frequencies by %.4f",
+                  rms_return_loss_difference_db(simulated, measured.curve, b_low, b_high, *estimate.scale), *estimate.scale);
+    std::printf("\n");
     const PortBandReport sim = band_report(simulated, b_low, b_high), meas = band_report(measured.curve, b_low, b_high);
     std::printf("%s", band_line("simulated", sim).c_str());
     std::printf("%s", band_line("measured", meas).c_str());

@@ -4,6 +4,7 @@
 #include <cmath>
 #include <limits>
 
+#include "core/formatted_text.hpp"
 #include "post/port_quantities.hpp"
 
 namespace lobe {
@@ -66,13 +67,15 @@ Real rms_return_loss_difference_db(const ReflectionCurve& simulated, const Refle
   return count ? std::sqrt(sum / count) : std::numeric_limits<Real>::quiet_NaN();
 }
 
-Real best_frequency_scale(const ReflectionCurve& simulated, const ReflectionCurve& measured, Real low_hz, Real high_hz) {
+Real best_frequency_scale(const ReflectionCurve& simulated, const ReflectionCurve& measured, Real low_hz, Real high_hz,
+                          Real lowest_scale, Real highest_scale) {
   auto cost = [&](Real s) {
+    if (s < lowest_scale || s > highest_scale) return std::numeric_limits<Real>::infinity();
     const Real r = rms_return_loss_difference_db(simulated, measured, low_hz, high_hz, s);
     return std::isnan(r) ? std::numeric_limits<Real>::infinity() : r;
   };
-  Real best = 1.0, best_cost = cost(1.0);
-  for (Real s = 0.8; s <= 1.25; s *= 1.001)
+  Real best = std::clamp(1.0, lowest_scale, highest_scale), best_cost = cost(best);
+  for (Real s = lowest_scale; s <= highest_scale; s *= 1.001)
     if (const Real c = cost(s); c < best_cost) best = s, best_cost = c;
   // Golden section on the bracket around the best scan point.
   const Real golden = 0.5 * (std::sqrt(5.0) - 1);
@@ -84,6 +87,72 @@ Real best_frequency_scale(const ReflectionCurve& simulated, const ReflectionCurv
   }
   const Real refined = 0.5 * (a + b);
   return cost(refined) <= best_cost ? refined : best;
+}
+
+DipPairing pair_dips(const std::vector<Resonance>& simulated, const std::vector<Resonance>& measured) {
+  DipPairing pairing;
+  pairing.simulated_unpaired.assign(simulated.size(), "");
+  pairing.measured_unpaired.assign(measured.size(), "");
+  auto distance = [&](std::size_t s, std::size_t m) {
+    return std::abs(std::log(measured[m].frequency_hz / simulated[s].frequency_hz));
+  };
+  auto in_range = [&](std::size_t s, std::size_t m) {
+    const Real ratio = measured[m].frequency_hz / simulated[s].frequency_hz;
+    return ratio >= lowest_frequency_scale && ratio <= highest_frequency_scale;
+  };
+  auto nearest_simulated = [&](std::size_t m) {
+    std::size_t best = simulated.size();
+    for (std::size_t s = 0; s < simulated.size(); ++s)
+      if (in_range(s, m) && (best == simulated.size() || distance(s, m) < distance(best, m))) best = s;
+    return best;
+  };
+  auto nearest_measured = [&](std::size_t s) {
+    std::size_t best = measured.size();
+    for (std::size_t m = 0; m < measured.size(); ++m)
+      if (in_range(s, m) && (best == measured.size() || distance(s, m) < distance(s, best))) best = m;
+    return best;
+  };
+  for (std::size_t m = 0; m < measured.size(); ++m) {
+    const std::size_t s = nearest_simulated(m);
+    if (s == simulated.size())
+      pairing.measured_unpaired[m] = "no simulated dip within a factor 0.8 to 1.25 of its frequency";
+    else if (nearest_measured(s) != m)
+      pairing.measured_unpaired[m] = "the simulated dip nearest it lies nearer another measured dip";
+    else
+      pairing.pairs.push_back({s, m});
+  }
+  for (std::size_t s = 0; s < simulated.size(); ++s) {
+    if (std::any_of(pairing.pairs.begin(), pairing.pairs.end(), [&](const DipPairing::Pair& p) { return p.simulated == s; }))
+      continue;
+    pairing.simulated_unpaired[s] = nearest_measured(s) == measured.size()
+                                        ? "no measured dip within a factor 0.8 to 1.25 of its frequency"
+                                        : "the measured dip nearest it lies nearer another simulated dip";
+  }
+  return pairing;
+}
+
+ScaleEstimate frequency_scale_estimate(const ReflectionCurve& simulated, const ReflectionCurve& measured, Real low_hz,
+                                       Real high_hz, const std::vector<Resonance>& simulated_dips,
+                                       const std::vector<Resonance>& measured_dips, const DipPairing& pairing) {
+  if (pairing.pairs.empty())
+    return {std::nullopt, "no resonance stands out clearly in both curves, so a shift of frequency cannot be told "
+                          "from a difference of shape"};
+  Real lowest = highest_frequency_scale, highest = lowest_frequency_scale;
+  for (const auto& p : pairing.pairs) {
+    const Real ratio = measured_dips[p.measured].frequency_hz / simulated_dips[p.simulated].frequency_hz;
+    lowest = std::min(lowest, ratio), highest = std::max(highest, ratio);
+  }
+  if (highest / lowest - 1 > scale_spread_limit)
+    return {std::nullopt, formatted("the paired dips shift by factors from %.4f to %.4f: no single scale explains them", lowest,
+                                        highest)};
+  // Fit the whole curve near what the dips say, and refuse a fit that runs to the bound.
+  const Real search_low = std::max(lowest_frequency_scale, lowest / (1 + scale_spread_limit));
+  const Real search_high = std::min(highest_frequency_scale, highest * (1 + scale_spread_limit));
+  const Real scale = best_frequency_scale(simulated, measured, low_hz, high_hz, search_low, search_high);
+  if (scale <= search_low * 1.0005 || scale >= search_high / 1.0005)
+    return {std::nullopt, "the curves fit best at the edge of the range the dips allow, so the fit does not "
+                          "confirm them"};
+  return {scale, ""};
 }
 
 }  // namespace lobe

@@ -1,5 +1,7 @@
 #pragma once
 /// Where a measured reflection curve departs from the simulated one, and by how much.
+#include <optional>
+#include <string>
 #include <vector>
 
 #include "post/band_report.hpp"
@@ -31,9 +33,38 @@ Real rms_return_loss_difference_db(const ReflectionCurve& simulated, const Refle
 /// Return losses deeper than this compare as this (dB).
 constexpr Real return_loss_compare_cap_db = 40.0;
 
-/// The frequency-scale factor s in [0.8, 1.25] for which measured(f) ≈ simulated(f / s)
+/// The frequency-scale factor s in [low, high] (default the search range) for which measured(f) ≈ simulated(f / s)
 /// fits best over [low, high] (scan at 0.1 % steps, then golden-section refinement).
 /// s < 1: the built antenna resonates lower, as if its lengths were 1/s times the model's.
-Real best_frequency_scale(const ReflectionCurve& simulated, const ReflectionCurve& measured, Real low_hz, Real high_hz);
+Real best_frequency_scale(const ReflectionCurve& simulated, const ReflectionCurve& measured, Real low_hz, Real high_hz,
+                          Real lowest_scale = 0.8, Real highest_scale = 1.25);
+
+/// The frequency-scale search range: a build off by more than this is another antenna.
+constexpr Real lowest_frequency_scale = 0.8, highest_frequency_scale = 1.25;
+
+/// Dips of the two curves paired one to one: each pair is the nearest of each other (in
+/// frequency ratio) within the scale search range. Every dip left unpaired says why.
+struct DipPairing {
+  struct Pair {
+    std::size_t simulated, measured;
+  };
+  std::vector<Pair> pairs;
+  std::vector<std::string> simulated_unpaired, measured_unpaired;  ///< per dip, empty when paired
+};
+DipPairing pair_dips(const std::vector<Resonance>& simulated, const std::vector<Resonance>& measured);
+
+/// Paired dips shifted by factors further apart than this are no uniform frequency scale.
+constexpr Real scale_spread_limit = 0.02;
+
+/// The frequency scale, only where it can be told: at least one resonance clear in both
+/// curves (a pair), the pairs agreeing on one factor within scale_spread_limit, and the
+/// fitted factor inside the search range, not at its bound. Otherwise none, and why.
+struct ScaleEstimate {
+  std::optional<Real> scale;
+  std::string reason;  ///< why there is none
+};
+ScaleEstimate frequency_scale_estimate(const ReflectionCurve& simulated, const ReflectionCurve& measured, Real low_hz,
+                                       Real high_hz, const std::vector<Resonance>& simulated_dips,
+                                       const std::vector<Resonance>& measured_dips, const DipPairing& pairing);
 
 }  // namespace lobe

@@ -139,6 +139,60 @@ TEST(CurveComparison, RecoversAFrequencyShift) {
   EXPECT_NEAR(scale, 1.03, 1e-3);
   EXPECT_GT(rms_return_loss_difference_db(simulated, measured, 0.9e9, 1.15e9), 3.0);
   EXPECT_LT(rms_return_loss_difference_db(simulated, measured, 0.9e9, 1.15e9, scale), 0.5);
+  // The dips pair, and the estimate (what compare prints) agrees with the fit.
+  const DipPairing pairing = pair_dips(sim, meas);
+  ASSERT_EQ(pairing.pairs.size(), 1u);
+  const ScaleEstimate estimate = frequency_scale_estimate(simulated, measured, 0.9e9, 1.15e9, sim, meas, pairing);
+  ASSERT_TRUE(estimate.scale.has_value()) << estimate.reason;
+  EXPECT_NEAR(*estimate.scale, 1.03, 1e-3);
+}
+
+/// A broadband response without a resonance: |Γ| drifting gently across the span.
+ReflectionCurve broadband_curve(Real start_magnitude, Real end_magnitude) {
+  ReflectionCurve curve;
+  for (int i = 0; i <= 100; ++i) {
+    curve.frequency_hz.push_back(1e9 + 1e7 * i);
+    curve.reflection.push_back(start_magnitude + (end_magnitude - start_magnitude) * i / 100.0);
+  }
+  return curve;
+}
+
+// Two broadband curves have no resonance to compare: stretching one over the other still
+// lowers their difference (that once printed a confident factor of 1.12 at a search
+// bound), but there is no reliable shift, and the estimate says so and why.
+TEST(CurveComparison, AFlatResponseHasNoReliableShift) {
+  const ReflectionCurve simulated = broadband_curve(0.10, 0.30), measured = broadband_curve(0.15, 0.25);
+  const auto sim = resonances(simulated), meas = resonances(measured);
+  EXPECT_TRUE(sim.empty() && meas.empty());
+  const Real fit = best_frequency_scale(simulated, measured, 1e9, 2e9);
+  EXPECT_NE(fit, 1.0) << "the trap: a fit of shapes alone moves the scale";
+  const ScaleEstimate estimate =
+      frequency_scale_estimate(simulated, measured, 1e9, 2e9, sim, meas, pair_dips(sim, meas));
+  EXPECT_FALSE(estimate.scale.has_value());
+  EXPECT_NE(estimate.reason.find("no resonance"), std::string::npos) << estimate.reason;
+}
+
+// Dips are paired one to one with their nearest; an extra measured dip (a second
+// resonance of the build) is listed unpaired with the reason, and two pairs shifted by
+// factors 5 % apart give no single scale.
+TEST(CurveComparison, DipsArePairedOneToOneAndDisagreeingShiftsGiveNoScale) {
+  const std::vector<Resonance> simulated{{1.00e9, 20}, {1.50e9, 15}};
+  const std::vector<Resonance> measured{{1.02e9, 18}, {1.05e9, 12}, {1.47e9, 14}};
+  const DipPairing pairing = pair_dips(simulated, measured);
+  ASSERT_EQ(pairing.pairs.size(), 2u);
+  EXPECT_EQ(pairing.pairs[0].simulated, 0u);
+  EXPECT_EQ(pairing.pairs[0].measured, 0u);
+  EXPECT_EQ(pairing.pairs[1].simulated, 1u);
+  EXPECT_EQ(pairing.pairs[1].measured, 2u);
+  EXPECT_NE(pairing.measured_unpaired[1].find("nearer another measured dip"), std::string::npos);
+  EXPECT_TRUE(pairing.simulated_unpaired[0].empty() && pairing.simulated_unpaired[1].empty());
+  // 1.02 and 0.98: no single factor; the curves are not consulted.
+  const ReflectionCurve any = rlc_curve(1.0e9, 0.85e9, 1.15e9, 30);
+  const ScaleEstimate estimate = frequency_scale_estimate(any, any, 0.9e9, 1.1e9, simulated, measured, pairing);
+  EXPECT_FALSE(estimate.scale.has_value());
+  EXPECT_NE(estimate.reason.find("no single scale"), std::string::npos) << estimate.reason;
+  // A dip with nothing within 0.8 to 1.25 of it stays unpaired.
+  EXPECT_NE(pair_dips({{1.0e9, 20}}, {{2.0e9, 20}}).measured_unpaired[0].find("no simulated dip"), std::string::npos);
 }
 
 }  // namespace
