@@ -122,6 +122,18 @@ int compare_command(const CompareOptions& options) {
       std::printf("; %.2f dB after scaling the frequencies by %.4f",
                   rms_return_loss_difference_db(simulated, measured.curve, b_low, b_high, *estimate.scale), *estimate.scale);
     std::printf("\n");
+    if (measured.phase_known) {
+      if (const auto d = complex_difference(simulated, measured.curve, b_low, b_high, network.reference_ohm)) {
+        std::printf("  on the Smith chart |measured - simulated Gamma|: RMS %.3f, largest %.3f at %s\n", d->rms_reflection,
+                    d->largest_reflection, frequency_text(d->largest_reflection_hz).c_str());
+        auto tidy = [](Real ohm) { return std::abs(ohm) < 0.05 ? 0.0 : ohm; };  // no "-0.0" from rounding noise
+        std::printf("  impedance, measured - simulated: mean %+.1f %+.1fj ohm, largest |dZ| %.1f ohm at %s\n",
+                    tidy(d->mean_impedance.real()), tidy(d->mean_impedance.imag()), d->largest_impedance,
+                    frequency_text(d->largest_impedance_hz).c_str());
+      }
+    } else {
+      std::printf("  (the measurement has no phase: only magnitudes are compared)\n");
+    }
     const PortBandReport sim = band_report(simulated, b_low, b_high), meas = band_report(measured.curve, b_low, b_high);
     std::printf("%s", band_line("simulated", sim).c_str());
     std::printf("%s", band_line("measured", meas).c_str());

@@ -89,6 +89,36 @@ Real best_frequency_scale(const ReflectionCurve& simulated, const ReflectionCurv
   return cost(refined) <= best_cost ? refined : best;
 }
 
+std::optional<ComplexDifference> complex_difference(const ReflectionCurve& simulated, const ReflectionCurve& measured,
+                                                    Real low_hz, Real high_hz, Real reference_ohm) {
+  const auto& x = simulated.frequency_hz;
+  auto impedance = [&](Complex g) { return reference_ohm * (1.0 + g) / (1.0 - g); };
+  ComplexDifference d;
+  Real sum = 0.0;
+  for (std::size_t i = 0; i < measured.frequency_hz.size(); ++i) {
+    const Real f = measured.frequency_hz[i];
+    if (f < low_hz || f > high_hz || f < x.front() || f > x.back()) continue;
+    const std::size_t k = std::min<std::size_t>(std::upper_bound(x.begin(), x.end(), f) - x.begin(), x.size() - 1);
+    const Real t = k == 0 ? 0.0 : (f - x[k - 1]) / (x[k] - x[k - 1]);
+    const Complex g_sim = k == 0 ? simulated.reflection.front() : (1 - t) * simulated.reflection[k - 1] + t * simulated.reflection[k];
+    const Complex g_meas = measured.reflection[i];
+    const Real dg = std::abs(g_meas - g_sim);
+    sum += dg * dg;
+    if (dg > d.largest_reflection) d.largest_reflection = dg, d.largest_reflection_hz = f;
+    // |Γ| = 1 (a short or open in the data) has no finite impedance to compare.
+    if (std::abs(1.0 - g_sim) > 1e-9 && std::abs(1.0 - g_meas) > 1e-9) {
+      const Complex dz = impedance(g_meas) - impedance(g_sim);
+      d.mean_impedance += dz;
+      if (std::abs(dz) > d.largest_impedance) d.largest_impedance = std::abs(dz), d.largest_impedance_hz = f;
+    }
+    ++d.count;
+  }
+  if (d.count == 0) return std::nullopt;
+  d.rms_reflection = std::sqrt(sum / d.count);
+  d.mean_impedance /= static_cast<Real>(d.count);
+  return d;
+}
+
 DipPairing pair_dips(const std::vector<Resonance>& simulated, const std::vector<Resonance>& measured) {
   DipPairing pairing;
   pairing.simulated_unpaired.assign(simulated.size(), "");

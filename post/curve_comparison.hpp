@@ -39,6 +39,19 @@ constexpr Real return_loss_compare_cap_db = 40.0;
 Real best_frequency_scale(const ReflectionCurve& simulated, const ReflectionCurve& measured, Real low_hz, Real high_hz,
                           Real lowest_scale = 0.8, Real highest_scale = 1.25);
 
+/// Where both curves carry phase: how far apart they lie on the Smith chart (|ΔΓ|) and in
+/// impedance (measured − simulated), at the measured frequencies in [low, high] with the
+/// simulated Γ interpolated linearly (complex) between its frequencies.
+struct ComplexDifference {
+  std::size_t count = 0;  ///< measured frequencies compared
+  Real rms_reflection = 0.0, largest_reflection = 0.0, largest_reflection_hz = 0.0;
+  Complex mean_impedance;  ///< ohm: a steady ΔX hints at a connector's or lead's series reactance
+  Real largest_impedance = 0.0, largest_impedance_hz = 0.0;  ///< |ΔZ|, ohm
+};
+/// None when no measured frequency in [low, high] falls within the simulated curve.
+std::optional<ComplexDifference> complex_difference(const ReflectionCurve& simulated, const ReflectionCurve& measured,
+                                                    Real low_hz, Real high_hz, Real reference_ohm);
+
 /// The frequency-scale search range: a build off by more than this is another antenna.
 constexpr Real lowest_frequency_scale = 0.8, highest_frequency_scale = 1.25;
 

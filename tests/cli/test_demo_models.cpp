@@ -443,6 +443,9 @@ TEST(DemoModels, CompareFindsTheFrequencyScaleOfTheInventedMeasurement) {
   ASSERT_EQ(r.exit_code, 0) << r.err;
   EXPECT_NE(r.out.find("best frequency-scale factor: 1.0000"), std::string::npos) << r.out;
   EXPECT_NE(r.out.find("RMS return-loss difference 0.00 dB"), std::string::npos) << r.out;
+  // Touchstone carries phase: the Smith-chart distance and impedance difference are nil.
+  EXPECT_NE(r.out.find("|measured - simulated Gamma|: RMS 0.000, largest 0.000"), std::string::npos) << r.out;
+  EXPECT_NE(r.out.find("mean +0.0 +0.0j ohm"), std::string::npos) << r.out;
   EXPECT_EQ(run_lobe("compare '" + result + "' '" + models + "ground_plane_433_measured.csv' --port nope", dir).exit_code, 2);
 }
 

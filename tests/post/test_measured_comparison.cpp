@@ -147,6 +147,32 @@ TEST(CurveComparison, RecoversAFrequencyShift) {
   EXPECT_NEAR(*estimate.scale, 1.03, 1e-3);
 }
 
+// A build with 8 Ω of extra series reactance (a longer lead): with phase, the impedance
+// difference is that reactance at every frequency (Z = Z0 (1 + Γ)/(1 − Γ) both ways), and
+// the Smith-chart distance is |Γ(Z + 8j) − Γ(Z)|.
+TEST(CurveComparison, ComplexDifferenceFindsASeriesReactance) {
+  const ReflectionCurve simulated = rlc_curve(1.0e9, 0.9e9, 1.1e9, 200);
+  ReflectionCurve measured;
+  Real largest = 0.0;
+  for (int i = 0; i <= 50; ++i) {
+    const Real f = 0.95e9 + 2e6 * i;
+    const Complex g = rlc_reflection(f, 1.0e9);
+    const Complex z = 50.0 * (1.0 + g) / (1.0 - g) + Complex(0, 8);
+    measured.frequency_hz.push_back(f);
+    measured.reflection.push_back((z - 50.0) / (z + 50.0));
+    largest = std::max(largest, std::abs(measured.reflection.back() - g));
+  }
+  const auto d = complex_difference(simulated, measured, 0.9e9, 1.1e9, 50.0);
+  ASSERT_TRUE(d.has_value());
+  EXPECT_EQ(d->count, 51u);
+  // The simulated curve is sampled every 1 MHz, so the measured 2 MHz points fall on it.
+  EXPECT_NEAR(d->mean_impedance.real(), 0.0, 1e-6);
+  EXPECT_NEAR(d->mean_impedance.imag(), 8.0, 1e-6);
+  EXPECT_NEAR(d->largest_impedance, 8.0, 1e-6);
+  EXPECT_NEAR(d->largest_reflection, largest, 1e-9);
+  EXPECT_FALSE(complex_difference(simulated, measured, 2e9, 3e9, 50.0).has_value());
+}
+
 /// A broadband response without a resonance: |Γ| drifting gently across the span.
 ReflectionCurve broadband_curve(Real start_magnitude, Real end_magnitude) {
   ReflectionCurve curve;
