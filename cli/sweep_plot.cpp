@@ -110,7 +110,7 @@ int plot_sweep(const PlotOptions& options) {
     map.values[row][column] = figures[c];
   }
   const std::vector<std::string> ports = read_result_port_names(path, case_group(0));
-  map.title = band_figure_title(figure) + " over " + band.name + ", port " + ports.front();
+  map.title = path.stem().string() + ": " + band_figure_title(figure) + " over " + band.name + ", port " + ports.front();
   map.note = frequency_text(band.low_hz) + " to " + frequency_text(band.high_hz) +
              (held.empty() ? std::string() : "; other names held at the best case's values: " + held);
   map.x_label = table.names[x];

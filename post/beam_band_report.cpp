@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <stdexcept>
 
+#include "core/constants.hpp"
+
 #include "post/beam_figures.hpp"
 #include "post/frequency_result.hpp"
 
@@ -30,6 +32,8 @@ BeamCurves beam_curves(const std::vector<FrequencyResult>& results) {
   auto& v = curves.values;
   for (const auto& r : results) {
     curves.frequency_hz.push_back(r.frequency_hz);
+    curves.peak_theta_deg.push_back(r.beam.peak.theta * 180 / pi);
+    curves.peak_phi_deg.push_back(r.beam.peak.phi * 180 / pi);
     v["gain"].push_back(r.beam.gain_dbi);
     v["realized-gain"].push_back(r.beam.realized_gain_dbi);
     v["efficiency"].push_back(100.0 * r.power.efficiency());

@@ -31,6 +31,7 @@ const std::vector<BeamFigureKind>& beam_figure_kinds();
 struct BeamCurves {
   std::vector<Real> frequency_hz;
   std::map<std::string, std::vector<std::optional<Real>>> values;
+  std::vector<Real> peak_theta_deg, peak_phi_deg;  ///< the main beam per frequency (may be empty)
 };
 
 BeamCurves beam_curves(const std::vector<FrequencyResult>& results);

@@ -108,6 +108,34 @@ PatternData read_result_pattern(const std::filesystem::path& path) {
   return d;
 }
 
+bool is_scattering_result(const std::filesystem::path& path) {
+  Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
+  return hdf5_exists(file, "/scattering/rcs_m2");
+}
+
+RcsData read_result_rcs(const std::filesystem::path& path) {
+  const SourceLocation where{path.string(), 1, 1};
+  Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
+  std::vector<hsize_t> dims;
+  RcsData d;
+  d.frequency_hz = read_reals(file, "/frequency_hz", dims);
+  d.theta_deg = read_reals(file, "/scattering/theta_deg", dims);
+  d.phi_deg = read_reals(file, "/scattering/phi_deg", dims);
+  d.rcs_m2 = read_reals(file, "/scattering/rcs_m2", dims);
+  d.monostatic_m2 = read_reals(file, "/scattering/monostatic_m2", dims);
+  auto wave_theta = read_reals(file, "/scattering/wave_theta_deg", dims);
+  auto wave_phi = read_reals(file, "/scattering/wave_phi_deg", dims);
+  const std::size_t points = d.frequency_hz.size() * d.theta_deg.size() * d.phi_deg.size();
+  if (points == 0 || d.rcs_m2.size() != points || d.monostatic_m2.size() != d.frequency_hz.size() || wave_theta.size() != 1 ||
+      wave_phi.size() != 1)
+    throw InputError(where, "this is not a lobe scattering result (its /scattering arrays are missing or do not fit)");
+  for (const auto* values : {&d.frequency_hz, &d.theta_deg, &d.phi_deg, &d.rcs_m2, &d.monostatic_m2, &wave_theta, &wave_phi})
+    require_finite(*values, "/scattering", where);
+  d.wave_theta_deg = wave_theta.front();
+  d.wave_phi_deg = wave_phi.front();
+  return d;
+}
+
 BeamCurves read_result_beam(const std::filesystem::path& path, const std::string& group) {
   const SourceLocation where{path.string(), 1, 1};
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
@@ -129,6 +157,12 @@ BeamCurves read_result_beam(const std::filesystem::path& path, const std::string
     for (std::size_t k = 0; k < values.size(); ++k)
       curve.push_back(defined[k] != 0.0 ? std::optional<Real>(values[k]) : std::nullopt);
   }
+  curves.peak_theta_deg = read_reals(file, group + "/beam/peak_theta_deg", dims);
+  curves.peak_phi_deg = read_reals(file, group + "/beam/peak_phi_deg", dims);
+  if (curves.peak_theta_deg.size() != curves.frequency_hz.size() || curves.peak_phi_deg.size() != curves.frequency_hz.size())
+    throw InputError(where, "the beam directions of this result do not have one value per frequency");
+  require_finite(curves.peak_theta_deg, "/beam/peak_theta_deg", where);
+  require_finite(curves.peak_phi_deg, "/beam/peak_phi_deg", where);
   return curves;
 }
 

@@ -50,6 +50,19 @@ PatternData read_result_pattern(const std::filesystem::path& path);
 /// read_result_network. Throws InputError when the file has none (written before they were).
 BeamCurves read_result_beam(const std::filesystem::path& path, const std::string& group = "");
 
+/// A scatterer's radar cross-section: bistatic on the pattern grid, indexed
+/// (frequency, θ, φ), and monostatic per frequency.
+struct RcsData {
+  std::vector<Real> frequency_hz, theta_deg, phi_deg, rcs_m2, monostatic_m2;
+  Real wave_theta_deg = 0.0, wave_phi_deg = 0.0;  ///< where the wave comes from
+  std::size_t at(std::size_t f, std::size_t t, std::size_t p) const {
+    return (f * theta_deg.size() + t) * phi_deg.size() + p;
+  }
+};
+/// Whether the file is a result of a model lit by a wave (it has /scattering).
+bool is_scattering_result(const std::filesystem::path& path);
+RcsData read_result_rcs(const std::filesystem::path& path);
+
 /// The bands of the model behind a result (the model's `band` statements and any --band);
 /// `group` as for read_result_network.
 std::vector<Band> read_result_bands(const std::filesystem::path& path, const std::string& group = "");

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <optional>
 
 #include "core/formatted_text.hpp"
 
@@ -39,16 +40,83 @@ std::vector<Real> ticks(Real low, Real high, int count = 6) {
   return out;
 }
 
-std::string header(const std::string& title) {
+std::string header(const std::string& title, Real document_width = width) {
   return formatted("<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"%.0f\" height=\"%.0f\" viewBox=\"0 0 %.0f %.0f\" "
                  "font-family=\"sans-serif\" font-size=\"13\">\n",
-                 width, height, width, height) +
+                 document_width, height, document_width, height) +
          "<rect width=\"100%\" height=\"100%\" fill=\"white\"/>\n" +
-         formatted("<text x=\"%.0f\" y=\"26\" text-anchor=\"middle\" font-size=\"16\">", width / 2) + escaped(title) +
+         formatted("<text x=\"%.0f\" y=\"26\" text-anchor=\"middle\" font-size=\"16\">", document_width / 2) + escaped(title) +
          "</text>\n";
 }
 
+/// Width of a legend line of `label` at 13 px (sans-serif averages about 7.2 px a character).
+Real text_width(const std::string& label) {
+  std::size_t characters = 0;
+  for (unsigned char c : label) characters += (c & 0xC0) != 0x80;  // UTF-8: count characters, not bytes
+  return 7.2 * static_cast<Real>(characters);
+}
+
+std::string stroke_attributes(const CurveStyle& style) {
+  return "stroke-width=\"2\" stroke=\"" + style.colour + "\"" +
+         (style.dash.empty() ? std::string() : " stroke-dasharray=\"" + style.dash + "\"");
+}
+
+/// One marker centred on (x, y).
+std::string marker_svg(const CurveStyle& style, Real x, Real y) {
+  const std::string fill = " fill=\"" + style.colour + "\"";
+  if (style.marker == "circle") return formatted("<circle cx=\"%.2f\" cy=\"%.2f\" r=\"3.5\"", x, y) + fill + "/>\n";
+  if (style.marker == "square")
+    return formatted("<rect x=\"%.2f\" y=\"%.2f\" width=\"7\" height=\"7\"", x - 3.5, y - 3.5) + fill + "/>\n";
+  if (style.marker == "triangle")
+    return formatted("<polygon points=\"%.2f,%.2f %.2f,%.2f %.2f,%.2f\"", x, y - 4.5, x - 4, y + 3, x + 4, y + 3) + fill + "/>\n";
+  if (style.marker == "diamond")
+    return formatted("<polygon points=\"%.2f,%.2f %.2f,%.2f %.2f,%.2f %.2f,%.2f\"", x, y - 4.5, x + 4, y, x, y + 4.5, x - 4, y) +
+           fill + "/>\n";
+  return "";
+}
+
+/// Markers at about eight points spread along a curve of `count` points, each series
+/// starting at its own offset so that overlapping curves show every series' markers.
+template <class Position>
+std::string markers_along(const CurveStyle& style, std::size_t count, std::size_t series_index, Position position) {
+  if (style.marker.empty() || count == 0) return "";
+  const std::size_t step = std::max<std::size_t>(1, count / 8);
+  std::string out;
+  for (std::size_t i = (series_index * step / 3) % step; i < count; i += step)
+    if (const auto p = position(i)) out += marker_svg(style, p->first, p->second);
+  return out;
+}
+
+/// A legend on a white card at (x, y): one line per entry, sized to the longest label.
+std::string legend_svg(Real x, Real y, const std::vector<std::pair<std::string, CurveStyle>>& entries) {
+  Real longest = 0;
+  for (const auto& [label, style] : entries) longest = std::max(longest, text_width(label));
+  std::string svg = formatted("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"white\" "
+                              "fill-opacity=\"0.9\" stroke=\"#cccccc\"/>\n",
+                              x, y, longest + 50, 18.0 * entries.size() + 8);
+  for (std::size_t i = 0; i < entries.size(); ++i) {
+    const auto& [label, style] = entries[i];
+    const Real ly = y + 16 + 18 * i;
+    svg += formatted("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" ", x + 6, ly, x + 34, ly) +
+           stroke_attributes(style) + "/>\n" + marker_svg(style, x + 20, ly);
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\">", x + 40, ly + 4) + escaped(label) + "</text>\n";
+  }
+  return svg;
+}
+
+Real legend_width(const std::vector<std::string>& labels) {
+  Real longest = 0;
+  for (const auto& l : labels) longest = std::max(longest, text_width(l));
+  return longest + 50;
+}
+
 }  // namespace
+
+CurveStyle series_style(std::size_t index) {
+  static const std::vector<std::string> dashes{"", "8 4", "2 3", "12 4 2 4"};
+  static const std::vector<std::string> markers{"circle", "square", "triangle", "diamond"};
+  return {series_colour(index), dashes[index % dashes.size()], markers[index % markers.size()]};
+}
 
 const std::string& series_colour(std::size_t index) {
   static const std::vector<std::string> colours{"#1f4e9c", "#d1495b", "#2a9d55", "#8a4fbf", "#e08a00", "#333333"};
@@ -101,23 +169,35 @@ std::string line_chart_svg(const LineChart& chart) {
   }
   svg += formatted("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", left, top,
                  pw, ph);
-  for (const auto& s : chart.series) {
+  std::vector<std::string> beyond;  // curves with points past fixed limits
+  for (std::size_t k = 0; k < chart.series.size(); ++k) {
+    const auto& s = chart.series[k];
     std::string points;
+    bool past = false;
     for (std::size_t i = 0; i < s.x.size(); ++i)
-      if (std::isfinite(s.y[i])) points += formatted("%.2f,%.2f ", px(s.x[i]), py(s.y[i]));
-    svg += "<polyline clip-path=\"url(#plot)\" fill=\"none\" stroke-width=\"2\" stroke=\"" + s.colour + "\"" +
-           (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + " points=\"" + points + "\"/>\n";
+      if (std::isfinite(s.y[i])) {
+        points += formatted("%.2f,%.2f ", px(s.x[i]), py(s.y[i]));
+        past = past || s.y[i] > y1 || s.y[i] < y0;
+      }
+    if (past) beyond.push_back(s.label);
+    svg += "<polyline clip-path=\"url(#plot)\" fill=\"none\" " + stroke_attributes(s.style) + " points=\"" + points + "\"/>\n";
+    svg += markers_along(s.style, s.x.size(), k, [&](std::size_t i) -> std::optional<std::pair<Real, Real>> {
+      if (!std::isfinite(s.y[i]) || s.y[i] > y1 || s.y[i] < y0) return std::nullopt;
+      return std::pair{px(s.x[i]), py(s.y[i])};
+    });
   }
-  // The legend sits on a white card so guides and curves beneath it do not cross its text.
-  if (!chart.series.empty())
-    svg += formatted("<rect x=\"%.1f\" y=\"%.1f\" width=\"%.1f\" height=\"%.1f\" fill=\"white\" fill-opacity=\"0.9\"/>\n",
-                     left + pw - 196, top + 6, 192.0, 18.0 * chart.series.size() + 6);
-  for (std::size_t i = 0; i < chart.series.size(); ++i) {
-    const auto& s = chart.series[i];
-    const Real y = top + 18 + 18 * i, x = left + pw - 190;
-    svg += formatted("<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" stroke-width=\"2\" stroke=\"", x, y, x + 28, y) +
-           s.colour + "\"" + (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + "/>\n";
-    svg += formatted("<text x=\"%.1f\" y=\"%.1f\">", x + 34, y + 4) + escaped(s.label) + "</text>\n";
+  // The legend sits on a white card, top right, so guides and curves beneath it do not cross its text.
+  if (!chart.series.empty()) {
+    std::vector<std::pair<std::string, CurveStyle>> entries;
+    std::vector<std::string> labels;
+    for (const auto& s : chart.series) entries.emplace_back(s.label, s.style), labels.push_back(s.label);
+    svg += legend_svg(left + pw - legend_width(labels) - 6, top + 6, entries);
+  }
+  if (!beyond.empty()) {
+    std::string names;
+    for (const auto& b : beyond) names += (names.empty() ? "" : ", ") + b;
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" fill=\"#a02020\">", left, top - 5) +
+           escaped("beyond the axis at some frequencies: " + names) + "</text>\n";
   }
   svg += formatted("<text x=\"%.1f\" y=\"%.1f\" text-anchor=\"middle\">", left + pw / 2, height - 14) + escaped(chart.x_label) +
          "</text>\n";
@@ -126,10 +206,14 @@ std::string line_chart_svg(const LineChart& chart) {
   return svg + "</svg>\n";
 }
 
-std::string smith_chart_svg(const std::string& title, Real reference_ohm, const std::vector<SmithSeries>& series) {
+std::string smith_chart_svg(const std::string& title, Real reference_ohm, const std::vector<SmithSeries>& series,
+                            const std::vector<SmithMark>& marks) {
   const Real cx = 300, cy = 236, radius = 180;
   auto px = [&](Complex g) { return formatted("%.2f,%.2f", cx + radius * g.real(), cy - radius * g.imag()); };
-  std::string svg = header(title);
+  std::vector<std::string> labels;
+  for (const auto& s : series) labels.push_back(s.label);
+  const Real document_width = std::max(width, 514 + legend_width(labels) + 8);
+  std::string svg = header(title, document_width);
   svg += formatted("<defs><clipPath id=\"disc\"><circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\"/></clipPath></defs>\n", cx, cy, radius);
   // Constant resistance r: circle centre (r/(1+r), 0), radius 1/(1+r).
   for (Real r : {0.2, 0.5, 1.0, 2.0, 5.0}) {
@@ -154,38 +238,57 @@ std::string smith_chart_svg(const std::string& title, Real reference_ohm, const 
                  cy, radius / 3);
   svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">VSWR 2</text>\n", cx + radius / 3 * 0.72,
                  cy + radius / 3 * 0.72 + 12);
+  std::vector<std::pair<std::string, CurveStyle>> entries;
   for (std::size_t i = 0; i < series.size(); ++i) {
     const auto& s = series[i];
+    entries.emplace_back(s.label, s.style);
     if (s.reflection.empty()) continue;
     std::string points;
     for (const Complex& g : s.reflection) points += px(g) + " ";
-    svg += "<polyline fill=\"none\" stroke-width=\"2\" stroke=\"" + s.colour + "\"" +
-           (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + " points=\"" + points + "\"/>\n";
+    svg += "<polyline fill=\"none\" " + stroke_attributes(s.style) + " points=\"" + points + "\"/>\n";
     const Complex a = s.reflection.front(), b = s.reflection.back();
-    svg += formatted("<circle cx=\"%.2f\" cy=\"%.2f\" r=\"4\" fill=\"", cx + radius * a.real(), cy - radius * a.imag()) +
-           s.colour + "\"/>\n";
-    svg += formatted("<rect x=\"%.2f\" y=\"%.2f\" width=\"8\" height=\"8\" fill=\"", cx + radius * b.real() - 4,
-                   cy - radius * b.imag() - 4) + s.colour + "\"/>\n";
-    const Real y = top + 30 + 20 * i;
-    svg += formatted("<line x1=\"520\" y1=\"%.1f\" x2=\"548\" y2=\"%.1f\" stroke-width=\"2\" stroke=\"", y, y) + s.colour + "\"" +
-           (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + "/>\n";
-    svg += formatted("<text x=\"554\" y=\"%.1f\">", y + 4) + escaped(s.label) + "</text>\n";
+    svg += formatted("<circle cx=\"%.2f\" cy=\"%.2f\" r=\"4.5\" fill=\"white\" stroke-width=\"2\" stroke=\"",
+                     cx + radius * a.real(), cy - radius * a.imag()) + s.style.colour + "\"/>\n";
+    svg += formatted("<rect x=\"%.2f\" y=\"%.2f\" width=\"9\" height=\"9\" fill=\"white\" stroke-width=\"2\" stroke=\"",
+                     cx + radius * b.real() - 4.5, cy - radius * b.imag() - 4.5) + s.style.colour + "\"/>\n";
+    for (const auto& [index, text] : s.point_labels) {
+      if (index >= s.reflection.size()) continue;
+      const Complex g = s.reflection[index];
+      svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"10\" fill=\"", cx + radius * g.real() + 7,
+                       cy - radius * g.imag() - 6) + s.style.colour + "\">" + escaped(text) + "</text>\n";
+    }
   }
-  svg += formatted("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">circle: first frequency, square: last</text>\n",
-                 top + 30 + 20 * series.size() + 6);
+  for (std::size_t i = 0; i < marks.size(); ++i) {
+    const SmithMark& m = marks[i];
+    const Real x = cx + radius * m.reflection.real(), y = cy - radius * m.reflection.imag();
+    svg += formatted("<path d=\"M %.2f %.2f l 5 -9 l -10 0 z\" fill=\"", x, y) + m.colour + "\"/>\n";
+    // Alternate marks label to the left and right: a narrow band's two edges lie close together.
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"10\" text-anchor=\"%s\" fill=\"", i % 2 ? x + 8 : x - 8,
+                     y - 4, i % 2 ? "start" : "end") + m.colour + "\">" + escaped(m.label) + "</text>\n";
+  }
+  svg += legend_svg(514, top + 14, entries);
+  const Real below = top + 14 + 18.0 * entries.size() + 24;
+  svg += formatted("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">open circle: first frequency, square: last</text>\n",
+                   below);
+  if (!marks.empty())
+    svg += formatted("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#7a5c00\">triangles: band edges</text>\n", below + 16);
   svg += formatted("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">labels in ohm (reference %g ohm)</text>\n",
-                 top + 30 + 20 * series.size() + 22, reference_ohm);
+                   below + 32, reference_ohm);
   return svg + "</svg>\n";
 }
 
-std::string polar_chart_svg(const std::string& title, Real floor_db, Real ceiling_db, const std::vector<PolarSeries>& series) {
+std::string polar_chart_svg(const std::string& title, Real floor_db, Real ceiling_db, const std::vector<PolarSeries>& series,
+                            const std::string& unit, const std::string& orientation) {
   const Real cx = 300, cy = 240, radius = 175, pi = 3.14159265358979323846;
   auto scaled = [&](Real db) { return radius * std::clamp((db - floor_db) / (ceiling_db - floor_db), 0.0, 1.0); };
-  std::string svg = header(title);
+  std::vector<std::string> labels;
+  for (const auto& s : series) labels.push_back(s.label);
+  const Real document_width = std::max(width, 514 + legend_width(labels) + 8);
+  std::string svg = header(title, document_width);
   for (Real ring : ticks(floor_db, ceiling_db)) {
     svg += formatted("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#dddddd\"/>\n", cx, cy, scaled(ring));
-    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"10\" fill=\"#777777\">%g dBi</text>\n", cx + 3,
-                   cy - scaled(ring) + 11, ring);
+    svg += formatted("<text x=\"%.1f\" y=\"%.1f\" font-size=\"10\" fill=\"#777777\">%g %s</text>\n", cx + 3,
+                   cy - scaled(ring) + 11, ring, unit.c_str());
   }
   for (int a = 0; a < 360; a += 30) {
     const Real r = a * pi / 180;
@@ -195,22 +298,22 @@ std::string polar_chart_svg(const std::string& title, Real floor_db, Real ceilin
                    cx + (radius + 16) * std::sin(r), cy - (radius + 16) * std::cos(r) + 4, a <= 180 ? a : a - 360);
   }
   svg += formatted("<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" fill=\"none\" stroke=\"#333333\"/>\n", cx, cy, radius);
+  std::vector<std::pair<std::string, CurveStyle>> entries;
   for (std::size_t i = 0; i < series.size(); ++i) {
     const auto& s = series[i];
-    std::string points;
-    for (std::size_t k = 0; k < s.angle_deg.size(); ++k) {
+    entries.emplace_back(s.label, s.style);
+    auto position = [&](std::size_t k) -> std::optional<std::pair<Real, Real>> {
       const Real r = s.angle_deg[k] * pi / 180, d = scaled(s.value_db[k]);
-      points += formatted("%.2f,%.2f ", cx + d * std::sin(r), cy - d * std::cos(r));
-    }
-    svg += "<polyline fill=\"none\" stroke-width=\"2\" stroke=\"" + s.colour + "\"" +
-           (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + " points=\"" + points + "\"/>\n";
-    const Real y = top + 30 + 20 * i;
-    svg += formatted("<line x1=\"520\" y1=\"%.1f\" x2=\"548\" y2=\"%.1f\" stroke-width=\"2\" stroke=\"", y, y) + s.colour +
-           "\"" + (s.dashed ? " stroke-dasharray=\"7 4\"" : "") + "/>\n";
-    svg += formatted("<text x=\"554\" y=\"%.1f\">", y + 4) + escaped(s.label) + "</text>\n";
+      return std::pair{cx + d * std::sin(r), cy - d * std::cos(r)};
+    };
+    std::string points;
+    for (std::size_t k = 0; k < s.angle_deg.size(); ++k) points += formatted("%.2f,%.2f ", position(k)->first, position(k)->second);
+    svg += "<polyline fill=\"none\" " + stroke_attributes(s.style) + " points=\"" + points + "\"/>\n";
+    svg += markers_along(s.style, s.angle_deg.size(), i, position);
   }
-  svg += formatted("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">0&#176; is +z (zenith)</text>\n",
-                 top + 30 + 20 * series.size() + 6);
+  svg += legend_svg(514, top + 14, entries);
+  svg += formatted("<text x=\"520\" y=\"%.1f\" font-size=\"11\" fill=\"#555555\">", top + 14 + 18.0 * entries.size() + 24) +
+         escaped(orientation) + "</text>\n";
   return svg + "</svg>\n";
 }
 

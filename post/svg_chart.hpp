@@ -8,11 +8,23 @@
 
 namespace lobe {
 
+/// How a curve is drawn, so that curves stay told apart in grey print and where they overlap
+/// (one port's curve over another's): a colour, an SVG dash pattern (empty: solid) and a
+/// marker repeated along it ("circle", "square", "triangle", "diamond"; empty: none).
+struct CurveStyle {
+  std::string colour = "#1f4e9c";
+  std::string dash;
+  std::string marker;
+};
+
+/// The style of the index-th of several like curves (ports, frequencies): each differs from
+/// the others in colour, dash and marker alike.
+CurveStyle series_style(std::size_t index);
+
 struct ChartSeries {
   std::string label;
   std::vector<Real> x, y;
-  std::string colour = "#1f4e9c";
-  bool dashed = false;
+  CurveStyle style;
 };
 
 /// A shaded stretch of the x axis (a band), labelled at its top.
@@ -30,30 +42,42 @@ struct LineChart {
 };
 
 /// The chart as a standalone SVG document (720 × 440, axes with round-number ticks, a
-/// legend, shaded bands, dashed guides). Points outside fixed y limits are clipped.
+/// legend sized to its labels, shaded bands, dashed guides). The axes hold every point of
+/// every curve unless y limits are fixed; then a note under the plot names the curves that
+/// run beyond them.
 std::string line_chart_svg(const LineChart& chart);
 
 struct SmithSeries {
   std::string label;
   std::vector<Complex> reflection;
-  std::string colour = "#1f4e9c";
-  bool dashed = false;
+  CurveStyle style;
+  /// Points to label (a frequency, "433.05 MHz"), by index into `reflection`.
+  std::vector<std::pair<std::size_t, std::string>> point_labels;
+};
+
+/// A labelled point that is not a sample, such as a band edge on a curve.
+struct SmithMark {
+  Complex reflection;
+  std::string label;
+  std::string colour = "#7a5c00";
 };
 
 /// A Smith chart (circles of constant normalised resistance 0, 0.2, 0.5, 1, 2, 5 and arcs of
 /// constant reactance ±0.2, ±0.5, ±1, ±2, ±5) with each curve of reflections, its first
-/// point marked by a circle and its last by a square.
-std::string smith_chart_svg(const std::string& title, Real reference_ohm, const std::vector<SmithSeries>& series);
+/// point marked by a circle and its last by a square, its labelled points and the marks.
+std::string smith_chart_svg(const std::string& title, Real reference_ohm, const std::vector<SmithSeries>& series,
+                            const std::vector<SmithMark>& marks = {});
 
 /// A polar cut: angles in degrees from the top (θ from +z), radius in dB from `floor_db`
 /// at the centre to `ceiling_db` at the rim.
 struct PolarSeries {
   std::string label;
   std::vector<Real> angle_deg, value_db;
-  std::string colour = "#1f4e9c";
-  bool dashed = false;
+  CurveStyle style;
 };
-std::string polar_chart_svg(const std::string& title, Real floor_db, Real ceiling_db, const std::vector<PolarSeries>& series);
+/// `unit` labels the rings ("dBi"); `orientation` says what 0° is ("0° is +z (zenith)").
+std::string polar_chart_svg(const std::string& title, Real floor_db, Real ceiling_db, const std::vector<PolarSeries>& series,
+                            const std::string& unit = "dBi", const std::string& orientation = "0\u00b0 is +z (zenith)");
 
 /// A grid of one figure over two varied names: values[row][column], NaN where there is no
 /// case. Colours run from dark (worst) to bright yellow (best); values on the worse side

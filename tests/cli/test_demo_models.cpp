@@ -505,8 +505,9 @@ TEST(DemoModels, ExposureFlagsEveryDistanceInsideTheNearField) {
   EXPECT_EQ(flagged, 2u) << r.out;
 }
 
-// plot writes its six figures as well-formed SVG with the model's band shaded and the
-// measured curve overlaid.
+// plot writes well-formed SVG figures, each titled with the model's name, with the model's
+// band shaded and the measured curve overlaid; a linear antenna gets no axial-ratio chart
+// (and is told why), and its beam near the horizon gets the horizon cut.
 TEST(DemoModels, PlotWritesWellFormedFigures) {
   const auto dir = fresh_directory("plot");
   const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
@@ -515,17 +516,52 @@ TEST(DemoModels, PlotWritesWellFormedFigures) {
                                        "ground_plane_433_measured.csv' -o '" + (dir / "figures").string() + "'",
                                    dir);
   ASSERT_EQ(r.exit_code, 0) << r.err;
-  for (const char* name : {"vswr", "return_loss", "smith", "pattern_phi0", "pattern_phi90", "axial_ratio"}) {
+  for (const char* name : {"vswr", "return_loss", "smith", "pattern_vertical", "pattern_horizontal"}) {
     const std::string svg = read_text(dir / "figures" / ("ground_plane_433_" + std::string(name) + ".svg"));
     EXPECT_EQ(xml_error(svg), "") << name;
     EXPECT_NE(svg.find("<svg xmlns=\"http://www.w3.org/2000/svg\""), std::string::npos) << name;
+    EXPECT_NE(svg.find(">ground_plane_433: "), std::string::npos) << name << ": the model's name in the title";
   }
+  EXPECT_FALSE(std::filesystem::exists(dir / "figures" / "ground_plane_433_axial_ratio.svg"));
+  EXPECT_NE(r.out.find("no axial-ratio chart: the antenna is linearly polarised"), std::string::npos) << r.out;
   for (const char* name : {"vswr", "return_loss", "smith"})
     EXPECT_NE(read_text(dir / "figures" / ("ground_plane_433_" + std::string(name) + ".svg")).find("simulated, port feed"),
               std::string::npos) << name;
   const std::string vswr = read_text(dir / "figures" / "ground_plane_433_vswr.svg");
   EXPECT_NE(vswr.find(">ism433<"), std::string::npos);
   EXPECT_NE(vswr.find("measured (return loss)"), std::string::npos);
+  // The Smith chart labels its first and last frequencies and the band's edges.
+  const std::string smith = read_text(dir / "figures" / "ground_plane_433_smith.svg");
+  for (const char* label : {">420.000 MHz<", ">450.000 MHz<", ">ism433 433.050 MHz<", ">ism433 434.790 MHz<"})
+    EXPECT_NE(smith.find(label), std::string::npos) << label;
+  EXPECT_NE(read_text(dir / "figures" / "ground_plane_433_pattern_horizontal.svg").find("around the horizon"),
+            std::string::npos);
+}
+
+// A circular antenna with two ports: the ports' curves differ in dash and marker (one
+// would hide the other, their impedances being equal), the pattern cuts carry RHCP and
+// LHCP, and the axial-ratio chart is drawn. A scatterer gets its RCS figures.
+TEST(DemoModels, PlotTellsPortsApartAndDrawsCircularAndScatteringFigures) {
+  const auto dir = fresh_directory("plot-cp");
+  const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
+  ASSERT_EQ(run_lobe("run '" + models + "crossed_dipole_gnss.lobe' -o '" + (dir / "cp").string() + "'", dir).exit_code, 0);
+  ASSERT_EQ(run_lobe("plot '" + (dir / "cp" / "crossed_dipole_gnss.h5").string() + "'", dir).exit_code, 0);
+  const std::string vswr = read_text(dir / "cp" / "crossed_dipole_gnss_vswr.svg");
+  EXPECT_NE(vswr.find("stroke-dasharray=\"8 4\""), std::string::npos);  // port b dashed
+  EXPECT_NE(vswr.find("<circle"), std::string::npos);                      // port a's markers
+  EXPECT_NE(vswr.find("<rect x=\""), std::string::npos);
+  const std::string cut = read_text(dir / "cp" / "crossed_dipole_gnss_pattern_vertical.svg");
+  EXPECT_NE(cut.find(">RHCP, "), std::string::npos);
+  EXPECT_NE(cut.find(">LHCP, "), std::string::npos);
+  EXPECT_EQ(xml_error(read_text(dir / "cp" / "crossed_dipole_gnss_axial_ratio.svg")), "");
+  ASSERT_EQ(run_lobe("run '" + models + "calibration_sphere.lobe' -o '" + (dir / "rcs").string() + "'", dir).exit_code, 0);
+  const ProcessResult r = run_lobe("plot '" + (dir / "rcs" / "calibration_sphere.h5").string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  for (const char* name : {"rcs_monostatic", "rcs_bistatic"}) {
+    const std::string svg = read_text(dir / "rcs" / ("calibration_sphere_" + std::string(name) + ".svg"));
+    EXPECT_EQ(xml_error(svg), "") << name;
+    EXPECT_NE(svg.find("dBsm"), std::string::npos) << name;
+  }
 }
 
 TEST(DemoModels, YagiBeamsForward) {
