@@ -84,6 +84,17 @@ int plot_command(const PlotOptions& options);
 /// the other names held at the best case's values; prints the best case.
 int plot_sweep(const PlotOptions& options);
 
+struct ReportOptions {
+  std::string result_path;
+  std::string output_directory;          ///< empty: beside the result
+  std::string measured_path;             ///< optional measured curve to overlay
+  std::string measured_format = "auto";
+};
+
+/// Writes one self-contained HTML page of a result (its summary and every figure) or of a
+/// sweep (its best cases and map): RESULT-STEM-report.html.
+int report_command(const ReportOptions& options);
+
 /// The measured curve from Touchstone (its first port, referred to `reference_ohm`) or from a
 /// CSV table. `format` is "auto" (Touchstone by the extension .sNp or .ts, else CSV),
 /// "touchstone" (for analysers' .txt exports; one port unless the file says otherwise) or "csv".

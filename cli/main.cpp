@@ -125,6 +125,15 @@ int main(int argc, char** argv) {
       ->delimiter(',')
       ->allow_extra_args(false);
 
+  lobe::cli::ReportOptions report;
+  auto* report_app = app.add_subcommand("report", "Write one HTML page of a result or sweep: summary, tables and every figure");
+  report_app->add_option("RESULT", report.result_path, "Result file written by run or sweep (.h5)")->required();
+  report_app->add_option("-o,--output", report.output_directory, "Directory for the page (default: beside the result)");
+  report_app->add_option("--measured", report.measured_path, "A measured curve to overlay: Touchstone or CSV");
+  report_app->add_option("--measured-format", report.measured_format,
+                         "How to read --measured: auto (by extension), touchstone (e.g. an analyser's .txt) or csv")
+      ->check(CLI::IsMember({"auto", "touchstone", "csv"}));
+
   lobe::cli::SweepOptions sweep;
   bool resume = false;
   auto* sweep_app = app.add_subcommand("sweep", "Solve a model for every combination of varied let values");
@@ -209,6 +218,7 @@ int main(int argc, char** argv) {
     if (*export_app) return lobe::cli::export_command(export_options);
     if (*compare_app) return lobe::cli::compare_command(compare);
     if (*plot_app) return lobe::cli::plot_command(plot);
+    if (*report_app) return lobe::cli::report_command(report);
     if (*sweep_app) return lobe::cli::sweep_command(sweep);
     if (*tune_app) return lobe::cli::tune_command(tune);
     if (*bench_app) return lobe::cli::bench_command(bench);

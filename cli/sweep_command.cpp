@@ -40,7 +40,8 @@ void print_ranking(const PreparedSweep& sweep, const std::vector<RankedCase>& ra
     std::printf("\n");
   }
   if (ranked.empty()) return;
-  const auto edge = names_at_grid_edge(sweep, ranked.front().index);
+  const SweepTable table{sweep.grid.names(), sweep.grid.values, sweep.grid.labels, sweep.values_si};
+  const auto edge = names_at_grid_edge(table, ranked.front().index);
   if (!edge.empty()) {
     std::string names;
     for (const auto& n : edge) names += (names.empty() ? "" : ", ") + n;

@@ -347,6 +347,8 @@ void write_run_attributes(hid_t file, const RunInfo& info) {
 void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
   Hdf5MemoryFile file;
   write_run_attributes(file, run.info);
+  // The summary as the run printed it, for reports.
+  write_string(file, "summary", run_summary(run));
   const std::vector<hsize_t> nf{run.results.size()};
   write_reals(file, "frequency_hz", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.frequency_hz; }), "Hz");
   write_model(file, run);
@@ -372,6 +374,7 @@ void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
 void write_scattering_hdf5(const std::filesystem::path& path, const ScatteringRun& run) {
   Hdf5MemoryFile file;
   write_run_attributes(file, run.info);
+  write_string(file, "summary", scattering_summary(run));
   const std::size_t nf = run.results.size();
   std::vector<Real> frequencies, monostatic, rcs, rcond, residual;
   for (const auto& r : run.results) {

@@ -108,6 +108,12 @@ PatternData read_result_pattern(const std::filesystem::path& path) {
   return d;
 }
 
+std::string read_result_summary(const std::filesystem::path& path, const std::string& group) {
+  Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
+  if (!hdf5_exists(file, group + "/summary")) return "";
+  return read_text(file, group + "/summary");
+}
+
 bool is_scattering_result(const std::filesystem::path& path) {
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
   return hdf5_exists(file, "/scattering/rcs_m2");

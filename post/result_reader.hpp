@@ -63,6 +63,10 @@ struct RcsData {
 bool is_scattering_result(const std::filesystem::path& path);
 RcsData read_result_rcs(const std::filesystem::path& path);
 
+/// The summary the run printed, as it stored it; empty for a file written before summaries
+/// were stored. `group` as for read_result_network.
+std::string read_result_summary(const std::filesystem::path& path, const std::string& group = "");
+
 /// The bands of the model behind a result (the model's `band` statements and any --band);
 /// `group` as for read_result_network.
 std::vector<Band> read_result_bands(const std::filesystem::path& path, const std::string& group = "");

@@ -13,12 +13,16 @@
 namespace lobe {
 namespace {
 
-/// "12.3", or "n/a" where a figure is not defined; a value that rounds to zero has no sign.
-std::string optional_text(const std::optional<Real>& value, const char* format) {
-  if (!value) return "n/a";
-  std::string text = formatted(format, *value);
+/// The value as `format` prints it, without the sign of a value that rounds to zero ("-0.0").
+std::string unsigned_zero_text(const char* format, Real value) {
+  std::string text = formatted(format, value);
   if (text.front() == '-' && text.find_first_of("123456789") == std::string::npos) text.erase(0, 1);
   return text;
+}
+
+/// "12.3", or "n/a" where a figure is not defined.
+std::string optional_text(const std::optional<Real>& value, const char* format) {
+  return value ? unsigned_zero_text(format, *value) : std::string("n/a");
 }
 
 /// A beamwidth of no_half_power_deg reads as "omni": no half-power point in that plane.
@@ -59,7 +63,7 @@ std::string beam_band_text(const RunRecord& run, const Band& band) {
       return;
     }
     const BandFigure& f = found->second;
-    auto text = [&](Real v) { return name.rfind("beamwidth", 0) == 0 ? beamwidth_text(v) + " deg" : formatted(format, v); };
+    auto text = [&](Real v) { return name.rfind("beamwidth", 0) == 0 ? beamwidth_text(v) + " deg" : unsigned_zero_text(format, v); };
     const std::string centre = text(f.centre), worst = text(f.worst);
     out += formatted("  %-15s %s at the centre, %s %s at %s\n", label, centre.c_str(), worst_word, worst.c_str(),
                      frequency_text(f.worst_hz).c_str());

@@ -1,5 +1,6 @@
 #include "post/sweep_file.hpp"
 
+#include <algorithm>
 #include <cstdio>
 #include <stdexcept>
 
@@ -92,6 +93,18 @@ SweepTable read_sweep_table(const std::filesystem::path& path) {
     table.values_si.emplace_back(si.begin() + c * columns, si.begin() + (c + 1) * columns);
   }
   return table;
+}
+
+std::vector<std::string> names_at_grid_edge(const SweepTable& table, std::size_t index) {
+  std::vector<std::string> names;
+  for (std::size_t v = 0; v < table.names.size(); ++v) {
+    Real low = table.values_si.front()[v], high = low;
+    for (const auto& values : table.values_si) low = std::min(low, values[v]), high = std::max(high, values[v]);
+    const Real value = table.values_si[index][v];
+    if (high > low && (value == low || value == high))
+      names.push_back(table.names[v] + " = " + table.labels[index][v] + (value == low ? " (its smallest)" : " (its largest)"));
+  }
+  return names;
 }
 
 }  // namespace lobe

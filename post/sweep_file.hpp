@@ -27,6 +27,10 @@ SweepTable read_sweep_table(const std::filesystem::path& path);
 /// Whether `path` is an HDF5 file with a sweep's case table.
 bool is_sweep_file(const std::filesystem::path& path);
 
+/// The varied names whose value in case `index` is the smallest or largest of the table's
+/// ("length = 160 mm (its largest)"): a best case there may have a better one beyond.
+std::vector<std::string> names_at_grid_edge(const SweepTable& table, std::size_t index);
+
 /// The group name of case `index` (from 0): "case-000001" for the first.
 std::string case_name(std::size_t index);
 /// Its path in the sweep file, "/case-000001", as the result readers take it.

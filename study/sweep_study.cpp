@@ -292,17 +292,5 @@ std::vector<RankedCase> rank_sweep(const PreparedSweep& sweep, const std::vector
   return ranked;
 }
 
-std::vector<std::string> names_at_grid_edge(const PreparedSweep& sweep, std::size_t index) {
-  std::vector<std::string> names;
-  for (std::size_t v = 0; v < sweep.grid.varied.size(); ++v) {
-    Real low = sweep.values_si.front()[v], high = low;
-    for (const auto& values : sweep.values_si) low = std::min(low, values[v]), high = std::max(high, values[v]);
-    const Real value = sweep.values_si[index][v];
-    if (high > low && (value == low || value == high))
-      names.push_back(sweep.grid.varied[v].name + " = " + sweep.grid.labels[index][v] +
-                      (value == low ? " (its smallest)" : " (its largest)"));
-  }
-  return names;
-}
 
 }  // namespace lobe

@@ -69,8 +69,4 @@ struct RankedCase {
 /// over the ranking band.
 std::vector<RankedCase> rank_sweep(const PreparedSweep& sweep, const std::vector<std::filesystem::path>& case_files);
 
-/// The varied names whose value in case `index` is the smallest or largest of the sweep's
-/// ("length = 160 mm (its largest)"): a best case there may have a better one beyond.
-std::vector<std::string> names_at_grid_edge(const PreparedSweep& sweep, std::size_t index);
-
 }  // namespace lobe

@@ -1,7 +1,8 @@
 // libFuzzer target, structure-aware: a genuine result file is changed through the HDF5 API
 // as the input bytes direct (datasets deleted, turned into groups, replaced by numbers of any
 // shape and value, NaN among them, by text, by integers, or by sizes far beyond the bytes
-// stored), then every result and sweep reader is run on it (lobe match's among them). Each must return checked data
+// stored), then every result and sweep reader is run on it (lobe match's among them), and
+// the figures that plot and report draw from them. Each must return checked data
 // or throw an InputError. (libhdf5's own parsing of raw bytes is outside this project; the
 // readers' trust in what a well-formed file claims is what is tested here.)
 // Build and run: see fuzz_model_parser.cpp; corpus tests/fuzz/corpus/result_file.
@@ -20,6 +21,7 @@
 #include "geometry/model_parser.hpp"
 #include "post/frequency_result.hpp"
 #include "post/hdf5_writer.hpp"
+#include "post/result_figures.hpp"
 #include "post/result_reader.hpp"
 #include "post/sweep_file.hpp"
 
@@ -30,7 +32,10 @@ const char* const datasets[] = {"/frequency_hz",       "/ports/s_matrix_re", "/p
                                 "/pattern/phi_deg",    "/pattern/gain_dbi",  "/pattern/rhcp_dbi",   "/pattern/lhcp_dbi",
                                 "/pattern/axial_ratio_db", "/cases/names",   "/cases/values",       "/cases/values_si",
                                 "/cases/labels",       "/ports/resistance_ohm", "/ports/reactance_ohm", "/model/source",
-                                "/model/value_names",  "/model/values",     "/model/value_units",  "/model/value_overridden"};
+                                "/model/value_names",  "/model/values",     "/model/value_units",  "/model/value_overridden",
+                                "/beam/gain_dbi",      "/beam/axial_ratio_db", "/beam/front_to_back_db",
+                                "/beam/front_to_back_db_defined", "/beam/peak_theta_deg", "/beam/peak_phi_deg", "/summary",
+                                "/scattering/rcs_m2",  "/scattering/theta_deg", "/scattering/monostatic_m2"};
 
 std::string base_file;
 
@@ -128,6 +133,18 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
       if (!std::isfinite(std::abs(z))) __builtin_trap();
   });
   guarded([&] { lobe::read_result_model(path); });
+  guarded([&] {
+    const lobe::BeamCurves beam = lobe::read_result_beam(path);
+    for (const auto& [name, values] : beam.values)
+      for (const auto& v : values)
+        if (v && !std::isfinite(*v)) __builtin_trap();
+  });
+  guarded([&] { lobe::read_result_summary(path); });
+  guarded([&] {
+    if (lobe::is_scattering_result(path)) lobe::scattering_figures(path);
+  });
+  // The figures read all of it together: whatever the readers let through must draw.
+  guarded([&] { lobe::antenna_figures(path, {}, std::nullopt); });
   guarded([&] {
     if (lobe::is_sweep_file(path)) lobe::read_sweep_table(path);
   });
