@@ -31,6 +31,7 @@ struct FrequencyResult {
   ComplexMatrix s_matrix;
   PowerBudget power;
   PatternResult pattern;
+  PatternResult sphere;  ///< over the whole sphere, when FigureOptions::sphere_step_deg asks for it
   BeamFigures beam;
   PolarizationFigures polarization;  ///< at the main beam, or where FigureOptions::toward says
   std::vector<std::array<Complex, 2>> segment_currents;
@@ -43,6 +44,8 @@ struct FrequencyResult {
 struct FigureOptions {
   /// The direction the polarisation figures are judged in; none: the main beam.
   std::optional<Direction> toward;
+  /// Above 0: also the pattern over the whole sphere at this step (degrees), for 3-D views.
+  Real sphere_step_deg = 0.0;
 };
 
 /// Ports, powers, the pattern on the model's grid (OpenMP-parallel over directions) and the

@@ -1,5 +1,7 @@
 #include "post/vtk_writer.hpp"
 
+#include <algorithm>
+#include <cerrno>
 #include <cstdio>
 #include <fstream>
 #include <sstream>
@@ -11,13 +13,17 @@
 namespace lobe {
 namespace {
 
+/// Significant digits of every number written: the files are for viewing (0.1 µm on a metre),
+/// and a series over many frequencies stays a few megabytes a frequency.
+constexpr int vtk_digits = 7;
+
 /// The parts every unstructured grid shares; `cell_data` is written inside <CellData>.
 void write_grid(const std::filesystem::path& path, const std::vector<Vec3>& points,
-                const std::vector<std::vector<int>>& cells, const std::string& cell_data) {
+                const std::vector<std::vector<int>>& cells, const std::string& cell_data, const std::string& point_data = "") {
   errno = 0;
   std::ofstream out(path);
   if (!out) throw output_error(path.string());
-  out.precision(12);
+  out.precision(vtk_digits);
   out << "<?xml version=\"1.0\"?>\n"
       << "<VTKFile type=\"UnstructuredGrid\" version=\"0.1\" byte_order=\"LittleEndian\">\n"
       << "  <UnstructuredGrid>\n"
@@ -35,35 +41,29 @@ void write_grid(const std::filesystem::path& path, const std::vector<Vec3>& poin
   std::size_t offset = 0;
   for (const auto& cell : cells) out << "          " << (offset += cell.size()) << '\n';
   out << "        </DataArray>\n        <DataArray type=\"UInt8\" Name=\"types\" format=\"ascii\">\n";
-  constexpr int vtk_line = 3, vtk_triangle = 5;
-  for (const auto& cell : cells) out << "          " << (cell.size() == 2 ? vtk_line : vtk_triangle) << '\n';
-  out << "        </DataArray>\n      </Cells>\n      <CellData>\n"
-      << cell_data << "      </CellData>\n    </Piece>\n  </UnstructuredGrid>\n</VTKFile>\n";
+  constexpr int vtk_line = 3, vtk_triangle = 5, vtk_quad = 9;
+  for (const auto& cell : cells)
+    out << "          " << (cell.size() == 2 ? vtk_line : cell.size() == 3 ? vtk_triangle : vtk_quad) << '\n';
+  out << "        </DataArray>\n      </Cells>\n      <CellData>\n" << cell_data << "      </CellData>\n";
+  if (!point_data.empty()) out << "      <PointData>\n" << point_data << "      </PointData>\n";
+  out << "    </Piece>\n  </UnstructuredGrid>\n</VTKFile>\n";
   out.close();
   if (!out) throw output_error(path.string());
 }
 
 template <class Values>
-std::string cell_array(const char* type, const char* name, const Values& values) {
+std::string cell_array(const char* type, const char* name, const Values& values, int components = 1) {
   std::ostringstream text;
-  text.precision(12);
-  text << "        <DataArray type=\"" << type << "\" Name=\"" << name << "\" format=\"ascii\">\n";
-  for (const auto& v : values) text << "          " << v << '\n';
+  text.precision(vtk_digits);
+  text << "        <DataArray type=\"" << type << "\" Name=\"" << name << "\" NumberOfComponents=\"" << components
+       << "\" format=\"ascii\">\n";
+  for (std::size_t i = 0; i < values.size(); ++i)
+    text << (i % components == 0 ? "          " : " ") << values[i] << ((i + 1) % components == 0 ? "\n" : "");
   text << "        </DataArray>\n";
   return text.str();
 }
 
 }  // namespace
-
-CellValues current_cells(Real frequency_hz, const std::vector<std::array<Complex, 2>>& segment_currents,
-                         const std::vector<Eigen::Vector3cd>& surface_currents) {
-  char name[64];
-  std::snprintf(name, sizeof name, "current_%.6g_MHz", frequency_hz / 1e6);
-  CellValues cells{name, {}};
-  for (const auto& c : segment_currents) cells.values.push_back(0.5 * (std::abs(c[0]) + std::abs(c[1])));
-  for (const auto& j : surface_currents) cells.values.push_back(j.norm());
-  return cells;
-}
 
 void write_model_vtu(const std::filesystem::path& path, const WireMesh& wires, const SurfaceMeshReport& surfaces,
                      const std::vector<CellValues>& extra) {
@@ -90,10 +90,70 @@ void write_model_vtu(const std::filesystem::path& path, const WireMesh& wires, c
   std::string data = cell_array("Int32", "kind", kinds) + cell_array("Int32", "object", objects) +
                      cell_array("Float64", "radius_m", radii);
   for (const auto& e : extra) {
-    if (e.values.size() != cells.size()) throw std::logic_error("cell array '" + e.name + "' of the wrong size");
-    data += cell_array("Float64", e.name.c_str(), e.values);
+    if (e.values.size() != cells.size() * e.components) throw std::logic_error("cell array '" + e.name + "' of the wrong size");
+    data += cell_array("Float64", e.name.c_str(), e.values, e.components);
   }
   write_grid(path, points, cells, data);
+}
+
+std::vector<CellValues> current_vector_cells(const WireMesh& wires, const std::vector<std::array<Complex, 2>>& segment_currents,
+                                             const std::vector<Eigen::Vector3cd>& surface_currents) {
+  CellValues line{"line_current_a", {}}, surface{"surface_current_a_per_m", {}};
+  CellValues re{"current_re", {}, 3}, im{"current_im", {}, 3};
+  for (std::size_t k = 0; k < segment_currents.size(); ++k) {
+    const auto& s = wires.segments[k];
+    const Vec3 along = (wires.nodes[s.node[1]].position - wires.nodes[s.node[0]].position).normalized();
+    const Complex mean = 0.5 * (segment_currents[k][0] + segment_currents[k][1]);
+    line.values.push_back(0.5 * (std::abs(segment_currents[k][0]) + std::abs(segment_currents[k][1])));
+    surface.values.push_back(0.0);
+    for (int c = 0; c < 3; ++c) re.values.push_back(mean.real() * along[c]), im.values.push_back(mean.imag() * along[c]);
+  }
+  for (const auto& j : surface_currents) {
+    line.values.push_back(0.0);
+    surface.values.push_back(j.norm());
+    for (int c = 0; c < 3; ++c) re.values.push_back(j[c].real()), im.values.push_back(j[c].imag());
+  }
+  return {line, surface, re, im};
+}
+
+void write_pattern_vtu(const std::filesystem::path& path, const PatternResult& sphere, const Vec3& centre, Real radius) {
+  const auto nt = static_cast<Eigen::Index>(sphere.thetas.size()), np = static_cast<Eigen::Index>(sphere.phis.size());
+  const Real peak = nt * np > 0 ? sphere.gain_dbi.maxCoeff() : 0.0;
+  constexpr Real span_db = 40.0, smallest = 0.02;
+  std::vector<Vec3> points;
+  std::vector<Real> gain, realized, rhcp, lhcp, axial;
+  for (Eigen::Index i = 0; i < nt; ++i)
+    for (Eigen::Index j = 0; j < np; ++j) {
+      const Real t = sphere.thetas[i], p = sphere.phis[j];
+      const Real scale = std::clamp((sphere.gain_dbi(i, j) - (peak - span_db)) / span_db, smallest, 1.0);
+      points.push_back(centre + radius * scale * Vec3(std::sin(t) * std::cos(p), std::sin(t) * std::sin(p), std::cos(t)));
+      gain.push_back(sphere.gain_dbi(i, j)), realized.push_back(sphere.realized_gain_dbi(i, j));
+      rhcp.push_back(sphere.rhcp_dbi(i, j)), lhcp.push_back(sphere.lhcp_dbi(i, j)), axial.push_back(sphere.axial_ratio_db(i, j));
+    }
+  // Quadrilaterals between neighbouring rows and columns, closed around φ.
+  std::vector<std::vector<int>> cells;
+  for (Eigen::Index i = 0; i + 1 < nt; ++i)
+    for (Eigen::Index j = 0; j < np; ++j) {
+      const auto at = [&](Eigen::Index r, Eigen::Index c) { return static_cast<int>(r * np + (c % np)); };
+      cells.push_back({at(i, j), at(i + 1, j), at(i + 1, j + 1), at(i, j + 1)});
+    }
+  const std::string point_data = cell_array("Float64", "gain_dbi", gain) + cell_array("Float64", "realized_gain_dbi", realized) +
+                                 cell_array("Float64", "rhcp_dbi", rhcp) + cell_array("Float64", "lhcp_dbi", lhcp) +
+                                 cell_array("Float64", "axial_ratio_db", axial);
+  write_grid(path, points, cells, "", point_data);
+}
+
+void write_pvd(const std::filesystem::path& path, const std::vector<std::pair<Real, std::string>>& frequency_files) {
+  errno = 0;
+  std::ofstream out(path);
+  if (!out) throw output_error(path.string());
+  out.precision(vtk_digits);
+  out << "<?xml version=\"1.0\"?>\n<VTKFile type=\"Collection\" version=\"0.1\" byte_order=\"LittleEndian\">\n  <Collection>\n";
+  for (const auto& [hz, file] : frequency_files)
+    out << "    <DataSet timestep=\"" << hz / 1e6 << "\" group=\"\" part=\"0\" file=\"" << file << "\"/>\n";
+  out << "  </Collection>\n</VTKFile>\n";
+  out.close();
+  if (!out) throw output_error(path.string());
 }
 
 }  // namespace lobe

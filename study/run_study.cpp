@@ -1,5 +1,7 @@
 #include "study/run_study.hpp"
 
+#include <cstdio>
+
 #include "post/csv_writer.hpp"
 #include "post/hdf5_writer.hpp"
 #include "post/output_files.hpp"
@@ -12,6 +14,13 @@
 
 namespace lobe {
 namespace {
+
+/// "007": the number of a frequency in a file series.
+std::string step_text(std::size_t index) {
+  char text[24];
+  std::snprintf(text, sizeof text, "%03zu", index);
+  return text;
+}
 
 /// Solves every frequency into `run`, then publishes the files `write` stages, the currents
 /// as VTK, and the summary. Antennas and scatterers differ only in what they evaluate and write.
@@ -27,12 +36,36 @@ RunOutcome solve_and_publish(const PreparedRun& prepared, Run& run, const StudyC
   if (!outcome.finished) return outcome;
   OutputFiles files(prepared.directory);
   write(files, prepared.stem, run);
-  std::vector<CellValues> currents;
-  for (const auto& r : run.results) currents.push_back(current_cells(r.frequency_hz, r.segment_currents, r.surface_currents));
-  write_model_vtu(files.staging_path(prepared.stem + "_currents.vtu"), problem.mesh, problem.surfaces, currents);
+  // The currents as a series over frequency for ParaView: one grid per frequency and a .pvd.
+  std::vector<std::pair<Real, std::string>> series;
+  for (std::size_t k = 0; k < run.results.size(); ++k) {
+    const auto& r = run.results[k];
+    const std::string name = prepared.stem + "_currents_" + step_text(k) + ".vtu";
+    write_model_vtu(files.staging_path(name), problem.mesh, problem.surfaces,
+                    current_vector_cells(problem.mesh, r.segment_currents, r.surface_currents));
+    series.emplace_back(r.frequency_hz, name);
+  }
+  write_pvd(files.staging_path(prepared.stem + "_currents.pvd"), series);
   outcome.written = files.commit();
   outcome.summary = summary(run);
   return outcome;
+}
+
+/// The far field over the whole sphere per frequency, drawn around the structure at about
+/// its own size, and the .pvd of the series.
+void write_pattern_series(OutputFiles& files, const std::string& stem, const RunRecord& run) {
+  Eigen::AlignedBox3d box;
+  for (const auto& node : run.problem.mesh.nodes) box.extend(node.position);
+  for (const auto& vertex : run.problem.surfaces.mesh.vertices) box.extend(vertex);
+  const Vec3 centre = box.isEmpty() ? Vec3(Vec3::Zero()) : Vec3(box.center());
+  const Real radius = box.isEmpty() ? 1.0 : std::max(0.6 * box.diagonal().norm(), 1e-3);
+  std::vector<std::pair<Real, std::string>> series;
+  for (std::size_t k = 0; k < run.results.size(); ++k) {
+    const std::string name = stem + "_pattern_3d_" + step_text(k) + ".vtu";
+    write_pattern_vtu(files.staging_path(name), run.results[k].sphere, centre, radius);
+    series.emplace_back(run.results[k].frequency_hz, name);
+  }
+  write_pvd(files.staging_path(stem + "_pattern_3d.pvd"), series);
 }
 
 void write_antenna_files(OutputFiles& files, const std::string& stem, const RunRecord& run) {
@@ -42,6 +75,7 @@ void write_antenna_files(OutputFiles& files, const std::string& stem, const RunR
     write_antenna_ends_csv(files.staging_path(stem + "_antenna_ends.csv"), run);
   write_pattern_csv(files.staging_path(stem + "_pattern.csv"), run);
   write_currents_csv(files.staging_path(stem + "_currents.csv"), run);
+  write_pattern_series(files, stem, run);
 }
 
 void write_scattering_files(OutputFiles& files, const std::string& stem, const ScatteringRun& run) {
@@ -61,6 +95,7 @@ PreparedRun prepare_run(const RunRequest& request) {
                                                    : std::filesystem::path(request.output_directory);
   run.sampling = request.sampling;
   run.figures = figure_options(request.toward);
+  run.figures.sphere_step_deg = sphere_step_deg;
   run.problem = std::make_unique<AntennaProblem>(*run.model);
   require_solvable(*run.problem);
   check_output_directory(run.directory);

@@ -14,6 +14,10 @@
 
 namespace lobe {
 
+/// The step of the whole-sphere pattern a run writes for 3-D views (degrees): fine enough
+/// to show a lobe's shape, coarse enough to cost less than a typical pattern grid.
+constexpr Real sphere_step_deg = 5.0;
+
 struct RunRequest {
   std::string model_path;
   std::vector<std::string> set_options;   ///< NAME=EXPRESSION
