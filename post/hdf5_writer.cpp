@@ -9,6 +9,7 @@
 
 #include "core/constants.hpp"
 #include "post/hdf5_handle.hpp"
+#include "post/band_report.hpp"
 #include "post/beam_band_report.hpp"
 #include "post/hdf5_memory_file.hpp"
 #include "post/run_summary.hpp"
@@ -239,6 +240,50 @@ void write_beam(hid_t file, const RunRecord& run) {
   write_ints(g, "hand", {nf}, hands);
 }
 
+/// Every named band figure (band_report.hpp) of every band of the model (its `band`
+/// statements and any --band): the port figures per port (bands × ports), the beam figures
+/// per band; a `_defined` array marks with 0 where a figure is not defined (a band no
+/// computed frequency reaches, the back of a zenith beam), the value there being 0.
+void write_band_figures(hid_t file, const RunRecord& run) {
+  const auto& bands = run.problem.model.bands;
+  if (bands.empty()) return;
+  Handle g = group(file, "band_figures");
+  std::vector<std::string> names;
+  for (const auto& b : bands) names.push_back(b.name);
+  write_strings(g, "band_names", names);
+  const std::size_t np = run.problem.model.ports.size();
+  const BeamCurves beam = beam_curves(run.results);
+  // figures[band][port]: all of them, the beam's the same for every port.
+  std::vector<std::vector<std::optional<BandFigures>>> figures(bands.size(), std::vector<std::optional<BandFigures>>(np));
+  for (std::size_t b = 0; b < bands.size(); ++b)
+    for (std::size_t p = 0; p < np; ++p) {
+      ReflectionCurve curve;
+      for (const auto& r : run.results) curve.frequency_hz.push_back(r.frequency_hz), curve.reflection.push_back(r.ports[p].reflection);
+      try {
+        figures[b][p] = band_figures(curve, beam, bands[b].low_hz, bands[b].high_hz);
+      } catch (const std::invalid_argument&) {
+        // No computed frequency reaches the band: every figure stays undefined.
+      }
+    }
+  for (const auto& name : band_figure_names()) {
+    const bool per_port = !is_beam_figure(name);
+    const std::size_t columns = per_port ? np : 1;
+    std::vector<Real> values;
+    std::vector<int> defined;
+    for (std::size_t b = 0; b < bands.size(); ++b)
+      for (std::size_t p = 0; p < columns; ++p) {
+        const auto value = figures[b][p] ? band_figure(*figures[b][p], name) : std::nullopt;
+        values.push_back(value.value_or(0.0));
+        defined.push_back(value.has_value());
+      }
+    std::string dataset = name;
+    std::replace(dataset.begin(), dataset.end(), '-', '_');
+    const std::vector<hsize_t> dims = per_port ? std::vector<hsize_t>{bands.size(), np} : std::vector<hsize_t>{bands.size()};
+    write_reals(g, dataset.c_str(), dims, values, band_figure_title(name) + (per_port ? ", per band and port" : ", per band"));
+    if (std::count(defined.begin(), defined.end(), 0) > 0) write_ints(g, (dataset + "_defined").c_str(), dims, defined);
+  }
+}
+
 void write_pattern(hid_t file, const RunRecord& run) {
   Handle g = group(file, "pattern");
   const PatternGrid& grid = run.problem.model.pattern;
@@ -357,6 +402,7 @@ void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
   write_network(file, run);
   write_pattern(file, run);
   write_beam(file, run);
+  write_band_figures(file, run);
   write_currents(file, run);
   Handle solver = group(file, "solver");
   write_reals(solver, "reciprocal_condition", nf, per_frequency(run, 1, [](const FrequencyResult& r, std::size_t) { return r.report.reciprocal_condition; }), "1");

@@ -9,6 +9,7 @@
 #include <sstream>
 #include <vector>
 
+#include "cli/result_datasets.hpp"
 #include "cli/run_process.hpp"
 #include "core/constants.hpp"
 #include "core/formatted_text.hpp"
@@ -222,6 +223,16 @@ TEST(DemoModels, YagiFrontToBackMatchesItsPatternTable) {
   const std::string printed = "front-to-back   " + formatted("%.1f", *beam.values.at("front-to-back")[centre]) + " dB at the centre";
   EXPECT_NE(run.summary.find(printed), std::string::npos) << run.summary;
   EXPECT_NE(run.summary.find("beamwidth phi"), std::string::npos);
+  // The band's figures are stored too (/band_figures), as the band report computes them from
+  // the per-frequency values: the worst front-to-back over 144-146 MHz is the smallest of
+  // the three computed there (the edges are computed frequencies).
+  const auto stored = dataset(run.result, "/band_figures/worst_front_to_back");
+  ASSERT_EQ(stored.size(), 1u);
+  double lowest = 1e9;
+  for (std::size_t k = 0; k < beam.frequency_hz.size(); ++k)
+    if (beam.frequency_hz[k] >= 144e6 && beam.frequency_hz[k] <= 146e6) lowest = std::min(lowest, *beam.values.at("front-to-back")[k]);
+  EXPECT_NEAR(stored[0], lowest, 1e-9);
+  EXPECT_EQ(dataset(run.result, "/band_figures/worst_vswr").size(), 1u);  // one band, one port
 }
 
 // --toward judges polarisation in a named direction: the crossed dipoles' figures 30° off
