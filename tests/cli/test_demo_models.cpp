@@ -462,6 +462,24 @@ TEST(DemoModels, CompareFindsTheFrequencyScaleOfTheInventedMeasurement) {
 
 // With --tx-power the summary lists P |Γ|² per frequency; each value must agree with the
 // ports table's reflection magnitude.
+// A broadband antenna (the helix, VSWR about 3.5 to 50 ohm across its range) against a
+// flat measured return loss (invented for this test): neither curve has a resonance, so
+// compare says there is no reliable shift and prints no factor (it once printed a confident
+// 1.12 in such a case), while still comparing the curves band by band.
+TEST(DemoModels, CompareOfABroadbandResponseGivesNoShift) {
+  const auto dir = fresh_directory("compare-broadband");
+  const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
+  ASSERT_EQ(run_lobe("run '" + models + "helix_axial_2400.lobe' -o '" + (dir / "out").string() + "'", dir).exit_code, 0);
+  std::ofstream(dir / "flat.csv") << "frequency_mhz,return_loss_db\n2300,6.1\n2350,6.4\n2400,6.6\n2450,6.9\n2500,7.2\n2550,7.0\n";
+  const ProcessResult r =
+      run_lobe("compare '" + (dir / "out" / "helix_axial_2400.h5").string() + "' '" + (dir / "flat.csv").string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_NE(r.out.find("no reliable shift: no resonance stands out clearly in both curves"), std::string::npos) << r.out;
+  EXPECT_EQ(r.out.find("frequency-scale factor"), std::string::npos) << r.out;
+  EXPECT_EQ(r.out.find("after scaling"), std::string::npos) << r.out;
+  EXPECT_NE(r.out.find("RMS return-loss difference"), std::string::npos) << r.out;
+}
+
 TEST(DemoModels, ReflectedPowerFollowsTheReflection) {
   const auto dir = fresh_directory("tx-power");
   const std::string model = std::string(LOBE_SOURCE_DIR) + "/models/half_wave_dipole_ism.lobe";
