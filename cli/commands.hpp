@@ -8,6 +8,7 @@
 #include "geometry/model.hpp"
 #include "geometry/wire_mesh.hpp"
 #include "post/measured_csv.hpp"
+#include "post/result_figures.hpp"
 #include "study/run_study.hpp"
 #include "study/sweep_study.hpp"
 #include "study/tune_study.hpp"
@@ -83,6 +84,11 @@ int plot_command(const PlotOptions& options);
 /// The map of a band figure of the first port over one or two varied names of a sweep,
 /// the other names held at the best case's values; prints the best case.
 int plot_sweep(const PlotOptions& options);
+
+/// The figures of a single result (post/result_figures): a scatterer's, or an antenna's with
+/// `bands` shaded and the measured curve at `measured_path` (if any) overlaid.
+ResultFigures figures_of_result(const std::filesystem::path& path, const std::vector<Band>& bands,
+                                const std::string& measured_path, const std::string& measured_format);
 
 struct ReportOptions {
   std::string result_path;

@@ -14,6 +14,18 @@
 
 namespace lobe::cli {
 
+ResultFigures figures_of_result(const std::filesystem::path& path, const std::vector<Band>& bands,
+                                const std::string& measured_path, const std::string& measured_format) {
+  if (is_scattering_result(path)) {
+    if (!measured_path.empty())
+      throw InputError({"--measured", 1, 1}, "a measured reflection is laid over an antenna's result, not a scatterer's");
+    return scattering_figures(path);
+  }
+  std::optional<MeasuredCurve> measured;
+  if (!measured_path.empty()) measured = read_measured(measured_path, read_result_network(path).reference_ohm, measured_format);
+  return antenna_figures(path, bands, measured);
+}
+
 int plot_command(const PlotOptions& options) {
   if (is_sweep_file(options.result_path)) return plot_sweep(options);
   if (!options.figure.empty() || !options.axes.empty())
@@ -23,17 +35,7 @@ int plot_command(const PlotOptions& options) {
   std::vector<Band> bands;
   for (std::size_t b = 0; b < options.band_options.size(); ++b)
     bands.push_back(parse_band_option(options.band_options[b], static_cast<int>(b) + 1));
-  ResultFigures figures;
-  if (is_scattering_result(path)) {
-    if (!options.measured_path.empty())
-      throw InputError({"--measured", 1, 1}, "a measured reflection is laid over an antenna's result, not a scatterer's");
-    figures = scattering_figures(path);
-  } else {
-    std::optional<MeasuredCurve> measured;
-    if (!options.measured_path.empty())
-      measured = read_measured(options.measured_path, read_result_network(path).reference_ohm, options.measured_format);
-    figures = antenna_figures(path, bands, measured);
-  }
+  const ResultFigures figures = figures_of_result(path, bands, options.measured_path, options.measured_format);
   std::filesystem::path directory =
       options.output_directory.empty() ? path.parent_path() : std::filesystem::path(options.output_directory);
   if (directory.empty()) directory = ".";

@@ -74,19 +74,8 @@ int report_command(const ReportOptions& options) {
       throw InputError({"--measured", 1, 1}, "a measured curve is laid over a single result, not a sweep");
     page = sweep_page(path);
   } else {
-    const bool scatterer = is_scattering_result(path);
     page = {"lobe report: " + path.stem().string(), "from " + path.string(), {summary_section(path)}};
-    ResultFigures figures;
-    if (scatterer) {
-      if (!options.measured_path.empty())
-        throw InputError({"--measured", 1, 1}, "a measured reflection is laid over an antenna's result, not a scatterer's");
-      figures = scattering_figures(path);
-    } else {
-      std::optional<MeasuredCurve> measured;
-      if (!options.measured_path.empty())
-        measured = read_measured(options.measured_path, read_result_network(path).reference_ohm, options.measured_format);
-      figures = antenna_figures(path, {}, measured);
-    }
+    const ResultFigures figures = figures_of_result(path, {}, options.measured_path, options.measured_format);
     page.sections.push_back({"Figures", "", {}, figures.figures, figures.notes});
   }
   std::filesystem::path directory =

@@ -77,9 +77,11 @@ std::map<std::string, BandFigure> beam_band_report(const BeamCurves& curves, Rea
       if (f[i] > low && f[i] < high) counted.emplace_back(f[i], values[i]);
     const auto centre = at(std::clamp(0.5 * (low_hz + high_hz), low, high));
     if (!centre || std::any_of(counted.begin(), counted.end(), [](const auto& c) { return !c.second; })) continue;
-    BandFigure figure{*centre, *counted.front().second, counted.front().first};
-    for (const auto& [hz, value] : counted)
+    BandFigure figure{*centre, *counted.front().second, counted.front().first, *counted.front().second, counted.front().first};
+    for (const auto& [hz, value] : counted) {
       if (kind.larger_is_better ? *value < figure.worst : *value > figure.worst) figure.worst = *value, figure.worst_hz = hz;
+      if (kind.larger_is_better ? *value > figure.best : *value < figure.best) figure.best = *value, figure.best_hz = hz;
+    }
     report[kind.name] = figure;
   }
   return report;

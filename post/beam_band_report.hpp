@@ -42,6 +42,8 @@ struct BandFigure {
   Real centre = 0.0;
   Real worst = 0.0;
   Real worst_hz = 0.0;
+  Real best = 0.0;  ///< the other extreme (the highest cross-polar gain is a circular antenna's worst)
+  Real best_hz = 0.0;
 };
 
 /// Every figure of `curves` over [low, high]; a figure is left out where it is undefined

@@ -1,21 +1,12 @@
 #include "post/report_page.hpp"
 
 #include "core/formatted_text.hpp"
+#include "post/svg_chart.hpp"
 
 namespace lobe {
 namespace {
 
-std::string escaped(const std::string& s) {
-  std::string out;
-  for (char c : s) {
-    if (c == '<') out += "&lt;";
-    else if (c == '>') out += "&gt;";
-    else if (c == '&') out += "&amp;";
-    else if (c == '"') out += "&quot;";
-    else out += c;
-  }
-  return out;
-}
+std::string escaped(const std::string& s) { return xml_escaped(s); }
 
 /// Every `from` in `text` replaced by `to`.
 std::string replaced(std::string text, const std::string& from, const std::string& to) {

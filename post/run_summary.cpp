@@ -56,17 +56,20 @@ std::string polarization_place(const RunRecord& run) {
 std::string beam_band_text(const RunRecord& run, const Band& band) {
   const auto figures = beam_band_report(beam_curves(run.results), band.low_hz, band.high_hz);
   std::string out;
-  auto line = [&](const char* label, const std::string& name, const char* format, const char* worst_word) {
+  // `extreme_word` names the extreme printed: the worst, or with `best` the other one.
+  auto line = [&](const char* label, const std::string& name, const char* format, const char* extreme_word,
+                  bool best = false) {
     const auto found = figures.find(name);
     if (found == figures.end()) {
-      out += formatted("  %-15s not defined at every frequency of the band\n", label);
+      out += formatted("  %-15s n/a: not defined at some frequency of the band (a beam near the zenith over a ground "
+                       "has no back)\n", label);
       return;
     }
     const BandFigure& f = found->second;
     auto text = [&](Real v) { return name.rfind("beamwidth", 0) == 0 ? beamwidth_text(v) + " deg" : unsigned_zero_text(format, v); };
-    const std::string centre = text(f.centre), worst = text(f.worst);
-    out += formatted("  %-15s %s at the centre, %s %s at %s\n", label, centre.c_str(), worst_word, worst.c_str(),
-                     frequency_text(f.worst_hz).c_str());
+    const std::string centre = text(f.centre), extreme = text(best ? f.best : f.worst);
+    out += formatted("  %-15s %s at the centre, %s %s at %s\n", label, centre.c_str(), extreme_word, extreme.c_str(),
+                     frequency_text(best ? f.best_hz : f.worst_hz).c_str());
   };
   line("gain", "gain", "%.2f dBi", "lowest");
   line("realized gain", "realized-gain", "%.2f dBi", "lowest");
@@ -80,17 +83,20 @@ std::string beam_band_text(const RunRecord& run, const Band& band) {
   } else {
     out += "  " + polarization_place(run) + ":\n";
     line("axial ratio", "axial-ratio", "%.2f dB", "highest");
-    line("RHCP gain", "rhcp-gain", "%.2f dBi", "lowest");
-    line("LHCP gain", "lhcp-gain", "%.2f dBi", "lowest");
+    // The hand the antenna radiates at the centre is judged by its lowest gain, the other
+    // (cross-polar) hand by its highest.
+    const bool right = figures.count("rhcp-gain") && figures.count("lhcp-gain") &&
+                       figures.at("rhcp-gain").centre >= figures.at("lhcp-gain").centre;
+    line("RHCP gain", "rhcp-gain", "%.2f dBi", right ? "lowest" : "highest", !right);
+    line("LHCP gain", "lhcp-gain", "%.2f dBi", right ? "highest" : "lowest", right);
     line("cross-polar", "cross-polar", "%.1f dB", "lowest");
   }
   line("efficiency", "efficiency", "%.1f %%", "lowest");
   return out;
 }
 
-/// The band's match per port (band_report) and the pattern peak's figures at the band
-/// centre and at their worst over the band (computed frequencies inside and the
-/// interpolated edges).
+/// The band's match per port (band_report) and the beam's figures at the band centre and
+/// at their worst over the band (beam_band_text).
 std::string band_text(const RunRecord& run, const Band& band) {
   const Model& model = run.problem.model;
   std::string out = "\nband " + band.name + " (" + frequency_text(band.low_hz) + " to " + frequency_text(band.high_hz) + "): ";

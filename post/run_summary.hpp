@@ -36,9 +36,10 @@ std::string share_within_text(const PortBandReport& report);
 /// "1 port", "3 ports"; `plural` when adding "s" is wrong.
 std::string count_text(std::size_t count, const std::string& noun, const std::string& plural = "");
 
-/// Per port and frequency: impedance, VSWR and return loss; per frequency: peak gain,
-/// its direction, the axial ratio and hand there, and the efficiency; per band: the
-/// lowest, mean and highest VSWR at the computed frequencies inside it; then cautions.
+/// Per port and frequency: impedance, VSWR and return loss; per frequency: the beam's
+/// figures (gain, realized gain, direction, F/B, F/S, beamwidths, efficiency) and the
+/// polarisation at the beam or --toward; per band: the match (band_report) and every beam
+/// figure at the centre and at its worst; then cautions.
 std::string run_summary(const RunRecord& run);
 
 }  // namespace lobe

@@ -12,17 +12,7 @@ namespace {
 
 constexpr Real width = 720, height = 440, left = 78, right = 24, top = 44, bottom = 56;
 
-std::string escaped(const std::string& s) {
-  std::string out;
-  for (char c : s) {
-    if (c == '<') out += "&lt;";
-    else if (c == '>') out += "&gt;";
-    else if (c == '&') out += "&amp;";
-    else if (c == '"') out += "&quot;";
-    else out += c;
-  }
-  return out;
-}
+std::string escaped(const std::string& s) { return xml_escaped(s); }
 
 /// Round-number ticks covering [low, high], about `count` of them: steps of 1, 2 or 5 times
 /// a power of ten.
@@ -116,6 +106,19 @@ CurveStyle series_style(std::size_t index) {
   static const std::vector<std::string> dashes{"", "8 4", "2 3", "12 4 2 4"};
   static const std::vector<std::string> markers{"circle", "square", "triangle", "diamond"};
   return {series_colour(index), dashes[index % dashes.size()], markers[index % markers.size()]};
+}
+
+std::string xml_escaped(const std::string& text) {
+  std::string out;
+  for (char c : text) {
+    if (c == '<') out += "&lt;";
+    else if (c == '>') out += "&gt;";
+    else if (c == '&') out += "&amp;";
+    else if (c == '"') out += "&quot;";
+    else if (c == '\'') out += "&apos;";
+    else out += c;
+  }
+  return out;
 }
 
 const std::string& series_colour(std::size_t index) {

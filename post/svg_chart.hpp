@@ -95,6 +95,9 @@ struct HeatMap {
 /// fit, the best cell outlined, a colour bar with its scale.
 std::string heat_map_svg(const HeatMap& map);
 
+/// `text` with XML's five special characters written as entities, for SVG and HTML alike.
+std::string xml_escaped(const std::string& text);
+
 /// Colours for successive series, distinguishable in print and for common colour blindness.
 const std::string& series_colour(std::size_t index);
 

@@ -311,6 +311,17 @@ TEST(DemoModels, CircularlyPolarisedPatchIsRightHandedAtBroadside) {
   EXPECT_LT(number(zenith, "axial_ratio_db"), 3.0);
   EXPECT_EQ(zenith.at("hand"), "right");
   EXPECT_GT(number(zenith, "rhcp_dbi") - number(zenith, "lhcp_dbi"), 15.0);
+  // The band report judges the hand it radiates by its lowest gain and the other (the
+  // cross-polar hand) by its highest: the largest LHCP gain over the band, from the file.
+  const BeamCurves beam = read_result_beam(run.result);
+  double highest_lhcp = -1e9;
+  for (std::size_t k = 0; k < beam.frequency_hz.size(); ++k)
+    if (beam.frequency_hz[k] >= 5.65e9 && beam.frequency_hz[k] <= 5.95e9)
+      highest_lhcp = std::max(highest_lhcp, *beam.values.at("lhcp-gain")[k]);
+  EXPECT_NE(run.summary.find(formatted("highest %.2f dBi", highest_lhcp)), std::string::npos) << run.summary;
+  const auto centre = std::find(beam.frequency_hz.begin(), beam.frequency_hz.end(), 5.8e9) - beam.frequency_hz.begin();
+  EXPECT_NE(run.summary.find(formatted("  RHCP gain       %.2f dBi at the centre, lowest", *beam.values.at("rhcp-gain")[centre])),
+            std::string::npos) << run.summary;
 }
 
 TEST(DemoModels, AirPatchBeamsUpward) {

@@ -144,6 +144,9 @@ TEST(BeamBandReport, CentreIsInterpolatedAndWorstIncludesTheEdges) {
   EXPECT_NEAR(r.at("gain").worst, 6.0, 1e-12);  // the low edge, 105 MHz
   EXPECT_NEAR(r.at("gain").worst_hz, 105e6, 1e-3);
   EXPECT_NEAR(r.at("axial-ratio").worst, 3.0, 1e-12);  // the high edge, 115 MHz
+  EXPECT_NEAR(r.at("axial-ratio").best, 1.5, 1e-12);   // the low edge, 105 MHz
+  EXPECT_NEAR(r.at("gain").best, 7.0, 1e-12);
+  EXPECT_NEAR(r.at("gain").best_hz, 110e6, 1e-3);
   // No half-power point beside the centre: no width is interpolated toward it.
   EXPECT_EQ(r.at("beamwidth-phi").centre, no_half_power_deg);
   EXPECT_EQ(beam_band_report(crafted_curves(), 101e6, 102e6).at("beamwidth-phi").centre, no_half_power_deg);
