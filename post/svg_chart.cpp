@@ -115,7 +115,6 @@ std::string xml_escaped(const std::string& text) {
     else if (c == '>') out += "&gt;";
     else if (c == '&') out += "&amp;";
     else if (c == '"') out += "&quot;";
-    else if (c == '\'') out += "&apos;";
     else out += c;
   }
   return out;

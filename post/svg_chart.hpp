@@ -95,7 +95,8 @@ struct HeatMap {
 /// fit, the best cell outlined, a colour bar with its scale.
 std::string heat_map_svg(const HeatMap& map);
 
-/// `text` with XML's five special characters written as entities, for SVG and HTML alike.
+/// `text` with <, >, & and " written as entities, for SVG and HTML alike (attributes are
+/// always double-quoted, so an apostrophe stays as it is).
 std::string xml_escaped(const std::string& text);
 
 /// Colours for successive series, distinguishable in print and for common colour blindness.
