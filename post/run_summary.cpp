@@ -66,7 +66,10 @@ std::string beam_band_text(const RunRecord& run, const Band& band) {
       return;
     }
     const BandFigure& f = found->second;
-    auto text = [&](Real v) { return name.rfind("beamwidth", 0) == 0 ? beamwidth_text(v) + " deg" : unsigned_zero_text(format, v); };
+    auto text = [&](Real v) {
+      if (name.rfind("beamwidth", 0) != 0) return unsigned_zero_text(format, v);
+      return v >= no_half_power_deg ? std::string("omni (no half-power point)") : formatted(format, v);
+    };
     const std::string centre = text(f.centre), extreme = text(best ? f.best : f.worst);
     out += formatted("  %-15s %s at the centre, %s %s at %s\n", label, centre.c_str(), extreme_word, extreme.c_str(),
                      frequency_text(best ? f.best_hz : f.worst_hz).c_str());
