@@ -57,6 +57,9 @@ int main(int argc, char** argv) {
   run_app->add_option("--toward", run.study.toward,
                       "Judge polarisation (axial ratio, RHCP/LHCP, cross-polar) toward THETA,PHI in degrees "
                       "(default: the main beam)");
+  run_app->add_flag("--views", run.study.views,
+                    "Also write 3-D views for ParaView: the gain over the whole sphere as a surface and the currents as "
+                    "vectors, each a series over frequency (STEM_pattern_3d.pvd, STEM_currents.pvd)");
   run_app->add_option("--band", run.study.band_options, "Also report a band: LOW:HIGH, e.g. 5.65GHz:5.95GHz (repeatable)")
       ->allow_extra_args(false);
   run_app->add_option("--tx-power", run.tx_power_w, "Transmitter forward power in W: print the reflected power")

@@ -41,7 +41,7 @@ using IntensityAt = std::function<Real(const Vec3&)>;
 /// Half-power beamwidth, degrees, in the plane spanned by the beam direction `beam` and the
 /// unit vector `along` (orthogonal to it). From `beam`, climbs to the lobe's maximum in that
 /// plane, then finds the first angle on each side where the intensity falls to half of it:
-/// sampled every 0.5° and refined by bisection. no_half_power_deg when a side never falls
+/// sampled every 2° and refined by bisection. no_half_power_deg when a side never falls
 /// that far.
 Real half_power_beamwidth_deg(const IntensityAt& intensity, const Vec3& beam, const Vec3& along);
 

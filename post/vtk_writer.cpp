@@ -96,6 +96,16 @@ void write_model_vtu(const std::filesystem::path& path, const WireMesh& wires, c
   write_grid(path, points, cells, data);
 }
 
+CellValues current_cells(Real frequency_hz, const std::vector<std::array<Complex, 2>>& segment_currents,
+                         const std::vector<Eigen::Vector3cd>& surface_currents) {
+  char name[64];
+  std::snprintf(name, sizeof name, "current_%.6g_MHz", frequency_hz / 1e6);
+  CellValues cells{name, {}};
+  for (const auto& c : segment_currents) cells.values.push_back(0.5 * (std::abs(c[0]) + std::abs(c[1])));
+  for (const auto& j : surface_currents) cells.values.push_back(j.norm());
+  return cells;
+}
+
 std::vector<CellValues> current_vector_cells(const WireMesh& wires, const std::vector<std::array<Complex, 2>>& segment_currents,
                                              const std::vector<Eigen::Vector3cd>& surface_currents) {
   CellValues line{"line_current_a", {}}, surface{"surface_current_a_per_m", {}};

@@ -22,6 +22,12 @@ struct CellValues {
 CellValues current_cells(Real frequency_hz, const std::vector<std::array<Complex, 2>>& segment_currents,
                          const std::vector<Eigen::Vector3cd>& surface_currents);
 
+/// The current magnitude on every cell at one frequency, named "current_<frequency>":
+/// |I| in A on segments (mean of its two ends), |J| in A/m on triangles (at the centroid);
+/// peak values.
+CellValues current_cells(Real frequency_hz, const std::vector<std::array<Complex, 2>>& segment_currents,
+                         const std::vector<Eigen::Vector3cd>& surface_currents);
+
 /// The currents at one frequency, per cell: "line_current_a" (|I| on segments, the mean of
 /// its ends; 0 on triangles), "surface_current_a_per_m" (|J| at each triangle's centroid; 0
 /// on segments), and the current as vectors, "current_re" and "current_im" (I t̂ in A on

@@ -36,16 +36,22 @@ RunOutcome solve_and_publish(const PreparedRun& prepared, Run& run, const StudyC
   if (!outcome.finished) return outcome;
   OutputFiles files(prepared.directory);
   write(files, prepared.stem, run);
-  // The currents as a series over frequency for ParaView: one grid per frequency and a .pvd.
-  std::vector<std::pair<Real, std::string>> series;
-  for (std::size_t k = 0; k < run.results.size(); ++k) {
-    const auto& r = run.results[k];
-    const std::string name = prepared.stem + "_currents_" + step_text(k) + ".vtu";
-    write_model_vtu(files.staging_path(name), problem.mesh, problem.surfaces,
-                    current_vector_cells(problem.mesh, r.segment_currents, r.surface_currents));
-    series.emplace_back(r.frequency_hz, name);
+  // The currents' magnitudes at every frequency on one grid; with 3-D views, also as vectors
+  // in a series over frequency, one grid per frequency and a .pvd.
+  std::vector<CellValues> magnitudes;
+  for (const auto& r : run.results) magnitudes.push_back(current_cells(r.frequency_hz, r.segment_currents, r.surface_currents));
+  write_model_vtu(files.staging_path(prepared.stem + "_currents.vtu"), problem.mesh, problem.surfaces, magnitudes);
+  if (prepared.views) {
+    std::vector<std::pair<Real, std::string>> series;
+    for (std::size_t k = 0; k < run.results.size(); ++k) {
+      const auto& r = run.results[k];
+      const std::string name = prepared.stem + "_currents_" + step_text(k) + ".vtu";
+      write_model_vtu(files.staging_path(name), problem.mesh, problem.surfaces,
+                      current_vector_cells(problem.mesh, r.segment_currents, r.surface_currents));
+      series.emplace_back(r.frequency_hz, name);
+    }
+    write_pvd(files.staging_path(prepared.stem + "_currents.pvd"), series);
   }
-  write_pvd(files.staging_path(prepared.stem + "_currents.pvd"), series);
   outcome.written = files.commit();
   outcome.summary = summary(run);
   return outcome;
@@ -75,7 +81,7 @@ void write_antenna_files(OutputFiles& files, const std::string& stem, const RunR
     write_antenna_ends_csv(files.staging_path(stem + "_antenna_ends.csv"), run);
   write_pattern_csv(files.staging_path(stem + "_pattern.csv"), run);
   write_currents_csv(files.staging_path(stem + "_currents.csv"), run);
-  write_pattern_series(files, stem, run);
+  if (!run.results.empty() && !run.results.front().sphere.thetas.empty()) write_pattern_series(files, stem, run);
 }
 
 void write_scattering_files(OutputFiles& files, const std::string& stem, const ScatteringRun& run) {
@@ -95,7 +101,8 @@ PreparedRun prepare_run(const RunRequest& request) {
                                                    : std::filesystem::path(request.output_directory);
   run.sampling = request.sampling;
   run.figures = figure_options(request.toward);
-  run.figures.sphere_step_deg = sphere_step_deg;
+  run.views = request.views;
+  if (request.views) run.figures.sphere_step_deg = sphere_step_deg;
   run.problem = std::make_unique<AntennaProblem>(*run.model);
   require_solvable(*run.problem);
   check_output_directory(run.directory);

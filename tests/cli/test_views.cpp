@@ -36,10 +36,11 @@ int attribute(const std::string& text, const std::string& name) {
   return std::stoi(m[1]);
 }
 
-// Crossed dipoles over a reflector plate: segments and triangles in one grid per frequency.
+// Crossed dipoles over a reflector plate: segments and triangles in one grid per frequency;
+// only with --views (without, the one-file currents grid alone: the views cost time).
 TEST(Views, CurrentsAndPatternAreSeriesOverFrequency) {
   const auto dir = fresh_directory("views");
-  ASSERT_EQ(run_lobe("run '" + models + "crossed_dipole_reflector_137.lobe' -o '" + (dir / "out").string() + "'", dir).exit_code, 0);
+  ASSERT_EQ(run_lobe("run '" + models + "crossed_dipole_reflector_137.lobe' --views -o '" + (dir / "out").string() + "'", dir).exit_code, 0);
   const auto out = dir / "out";
   const BeamCurves beam = read_result_beam(out / "crossed_dipole_reflector_137.h5");
   for (const std::string series : {"currents", "pattern_3d"}) {
@@ -91,6 +92,11 @@ TEST(Views, CurrentsAndPatternAreSeriesOverFrequency) {
   const Eigen::Vector3d farthest(points[3 * top], points[3 * top + 1], points[3 * top + 2]);
   const Eigen::Vector3d towards = (farthest - centre).normalized();
   const double theta = beam.peak_theta_deg[0] * M_PI / 180, phi = beam.peak_phi_deg[0] * M_PI / 180;
+  const ProcessResult plain = run_lobe("run '" + models + "crossed_dipole_reflector_137.lobe' -o '" + (dir / "plain").string() + "'", dir);
+  ASSERT_EQ(plain.exit_code, 0);
+  EXPECT_TRUE(std::filesystem::exists(dir / "plain" / "crossed_dipole_reflector_137_currents.vtu"));
+  EXPECT_FALSE(std::filesystem::exists(dir / "plain" / "crossed_dipole_reflector_137_currents.pvd"));
+  EXPECT_FALSE(std::filesystem::exists(dir / "plain" / "crossed_dipole_reflector_137_pattern_3d.pvd"));
   EXPECT_GT(towards.dot(Eigen::Vector3d(std::sin(theta) * std::cos(phi), std::sin(theta) * std::sin(phi), std::cos(theta))),
             std::cos(5.0 * M_PI / 180));
 }
