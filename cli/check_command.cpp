@@ -14,11 +14,11 @@ void print_warnings(const std::vector<MeshWarning>& warnings) {
   for (const auto& w : warnings) std::fprintf(stderr, "%s\n", w.formatted().c_str());
 }
 
-void print_long_run_estimate(double unknowns, double frequencies, double cases) {
+void print_long_run_estimate(double unknowns, double frequencies, double cases, std::FILE* out) {
   constexpr double long_run_seconds = 600.0;
   const double seconds = estimated_solve_seconds(unknowns, frequencies * cases, long_run_seconds);
   if (seconds <= long_run_seconds) return;
-  std::printf("estimated time: about %s in all, %s per frequency (from this machine's measured matrix-multiply rate)\n",
+  std::fprintf(out, "estimated time: about %s in all, %s per frequency (from this machine's measured matrix-multiply rate)\n",
               duration_text(seconds).c_str(), duration_text(seconds / (frequencies * cases)).c_str());
 }
 

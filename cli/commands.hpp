@@ -1,5 +1,6 @@
 #pragma once
 /// The subcommands of the lobe program; each returns the process exit code.
+#include <cstdio>
 #include <filesystem>
 #include <optional>
 #include <string>
@@ -17,6 +18,7 @@ namespace lobe::cli {
 
 struct RunOptions {
   RunRequest study;                       ///< the model, overrides, extra bands, output directory
+  bool json = false;                      ///< the summary as JSON on stdout, everything else on stderr
   std::optional<double> tx_power_w;       ///< forward power for reflected-power figures
   int threads = 0;                        ///< 0: all available
   std::string command_line;
@@ -33,7 +35,7 @@ int mesh_command(const std::string& model_path, const std::string& output, const
 void print_warnings(const std::vector<MeshWarning>& warnings);
 /// Prints a time estimate when `frequencies` solves of `unknowns` (times `cases`) will take
 /// longer than about ten minutes here.
-void print_long_run_estimate(double unknowns, double frequencies, double cases = 1.0);
+void print_long_run_estimate(double unknowns, double frequencies, double cases = 1.0, std::FILE* out = stdout);
 
 struct ExportOptions {
   std::string result_path;

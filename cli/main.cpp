@@ -57,6 +57,9 @@ int main(int argc, char** argv) {
   run_app->add_option("--toward", run.study.toward,
                       "Judge polarisation (axial ratio, RHCP/LHCP, cross-polar) toward THETA,PHI in degrees "
                       "(default: the main beam)");
+  run_app->add_flag("--json", run.json,
+                    "Print the summary as JSON on standard output (schema lobe-run-summary, version 1); everything else "
+                    "goes to standard error");
   run_app->add_flag("--views", run.study.views,
                     "Also write 3-D views for ParaView: the gain over the whole sphere as a surface and the currents as "
                     "vectors, each a series over frequency (STEM_pattern_3d.pvd, STEM_currents.pvd)");

@@ -4,6 +4,7 @@
 
 #include "post/csv_writer.hpp"
 #include "post/hdf5_writer.hpp"
+#include "post/json_summary.hpp"
 #include "post/output_files.hpp"
 #include "post/run_summary.hpp"
 #include "post/scattering_result.hpp"
@@ -119,7 +120,9 @@ RunOutcome execute_run(const PreparedRun& run, const RunInfo& info, const StudyC
   const auto evaluate = [&](const AntennaProblem& problem, const FrequencySolution& solution) {
     return evaluate_frequency(problem, solution, run.figures);
   };
-  return solve_and_publish(run, antenna, control, run.sampling, evaluate, write_antenna_files, run_summary);
+  RunOutcome outcome = solve_and_publish(run, antenna, control, run.sampling, evaluate, write_antenna_files, run_summary);
+  if (outcome.finished) outcome.json = run_summary_json(antenna);
+  return outcome;
 }
 
 }  // namespace lobe

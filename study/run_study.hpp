@@ -49,6 +49,7 @@ struct RunOutcome {
   bool finished = false;                         ///< false: cancelled, nothing written
   std::vector<std::filesystem::path> written;    ///< the result files, published together
   std::string summary;                           ///< the run's summary for people
+  std::string json;                              ///< the same as JSON (post/json_summary), for antennas
 };
 
 /// Solves every frequency and writes the result files: for an antenna the HDF5 file, the
