@@ -2,6 +2,7 @@
 #include <filesystem>
 
 #include "cli/commands.hpp"
+#include "cli/standard_output.hpp"
 #include "study/output_checks.hpp"
 #include "post/output_files.hpp"
 #include "post/result_reader.hpp"
@@ -33,6 +34,17 @@ int export_command(const ExportOptions& options) {
   std::filesystem::path stem = std::filesystem::path(options.result_path).stem();
   if (!group.empty()) stem += "_" + options.case_name;
   std::filesystem::path target = std::filesystem::path(options.result_path).parent_path() / (stem.string() + extension);
+  TouchstoneStyle style;
+  style.version = options.version;
+  style.format = options.format == "ma"   ? TouchstoneFormat::magnitude_angle
+                 : options.format == "db" ? TouchstoneFormat::decibel_angle
+                                          : TouchstoneFormat::real_imaginary;
+  style.unit_hz = options.unit == "Hz" ? 1.0 : options.unit == "kHz" ? 1e3 : options.unit == "MHz" ? 1e6 : 1e9;
+  const std::string comment = "S-parameters computed by lobe " LOBE_VERSION " from " + options.result_path + "\n(simulated, not measured)";
+  if (is_standard_output(options.output)) {
+    write_through_standard_output(extension, [&](const std::filesystem::path& path) { write_touchstone(path, network, style, comment); });
+    return 0;
+  }
   // -o names the file, or a directory to write the default name into.
   if (!options.output.empty())
     target = std::filesystem::is_directory(options.output) ? std::filesystem::path(options.output) / target.filename()
@@ -42,16 +54,8 @@ int export_command(const ExportOptions& options) {
                                              " ports must end in " + extension);
   const std::filesystem::path directory = target.has_parent_path() ? target.parent_path() : std::filesystem::path(".");
   check_output_directory(directory);
-  TouchstoneStyle style;
-  style.version = options.version;
-  style.format = options.format == "ma"   ? TouchstoneFormat::magnitude_angle
-                 : options.format == "db" ? TouchstoneFormat::decibel_angle
-                                          : TouchstoneFormat::real_imaginary;
-  style.unit_hz = options.unit == "Hz" ? 1.0 : options.unit == "kHz" ? 1e3 : options.unit == "MHz" ? 1e6 : 1e9;
   OutputFiles files(directory);
-  write_touchstone(files.staging_path(target.filename().string()), network, style,
-                   "S-parameters computed by lobe " LOBE_VERSION " from " + options.result_path +
-                       "\n(simulated, not measured)");
+  write_touchstone(files.staging_path(target.filename().string()), network, style, comment);
   for (const auto& path : files.commit()) std::printf("%s\n", path.string().c_str());
   return 0;
 }

@@ -1,7 +1,12 @@
-/// The lobe command: `lobe run MODEL`, `lobe check MODEL` and `lobe mesh MODEL -o FILE.vtu`.
+/// The lobe command: parses the subcommands and their options (CLI11), runs one, and turns
+/// its errors into the documented exit codes.
 #include <CLI/CLI.hpp>
 
+#include <algorithm>
 #include <cmath>
+#include <optional>
+#include <string>
+#include <vector>
 #include <cstdio>
 #include <cstdlib>
 #include <thread>
@@ -16,8 +21,44 @@
 
 namespace {
 
+// The exit codes, documented in the README and in every --help: stable for scripts.
 constexpr int exit_bad_input = 2;
 constexpr int exit_internal_failure = 1;
+constexpr const char* exit_codes_text =
+    "Exit codes: 0 done; 1 a numerical, output or internal failure (nothing half-written); 2 bad input (a model,\n"
+    "an option or a file, reported as FILE:LINE:COL: message); 130 interrupted (Ctrl-C; finished work is kept).\n";
+
+/// Levenshtein distance: how far a mistyped command is from a real one.
+std::size_t edit_distance(const std::string& a, const std::string& b) {
+  std::vector<std::size_t> row(b.size() + 1);
+  for (std::size_t j = 0; j <= b.size(); ++j) row[j] = j;
+  for (std::size_t i = 1; i <= a.size(); ++i) {
+    std::size_t diagonal = row[0];
+    row[0] = i;
+    for (std::size_t j = 1; j <= b.size(); ++j) {
+      const std::size_t above = row[j];
+      row[j] = std::min({row[j] + 1, row[j - 1] + 1, diagonal + (a[i - 1] == b[j - 1] ? 0 : 1)});
+      diagonal = above;
+    }
+  }
+  return row[b.size()];
+}
+
+/// When the first argument names no subcommand: says so, with the nearest one if it is close.
+std::optional<std::string> unknown_command_text(const CLI::App& app, int argc, char** argv) {
+  if (argc < 2 || argv[1][0] == '-') return std::nullopt;
+  const std::string given = argv[1];
+  std::string nearest;
+  std::size_t best = std::string::npos;
+  for (const CLI::App* sub : app.get_subcommands([](const CLI::App*) { return true; })) {
+    if (sub->get_name() == given) return std::nullopt;
+    const std::size_t d = edit_distance(given, sub->get_name());
+    if (d < best) best = d, nearest = sub->get_name();
+  }
+  std::string text = "lobe: '" + given + "' is not a lobe command";
+  if (best <= std::max<std::size_t>(2, given.size() / 3)) text += "; did you mean '" + nearest + "'?";
+  return text + " (`lobe help` lists the commands)";
+}
 /// Far beyond any transmitter this tool's users drive; above it distances lose meaning.
 constexpr double largest_transmit_power_w = 1e6;
 
@@ -44,9 +85,14 @@ CLI::Range thread_range() {
 
 int main(int argc, char** argv) {
   const lobe::ProcessRanks ranks(&argc, &argv);
-  CLI::App app{"lobe: method-of-moments antenna simulator for wire antennas"};
+  CLI::App app{"lobe: a method-of-moments antenna simulator for the CPU. Wires, plates and bodies, in free space, over\n"
+                "ground or printed on a board; antennas driven at their ports and scatterers lit by a plane wave; match,\n"
+                "gain, pattern and polarisation over whole bands; sweeps, tuning, matching networks, comparisons with\n"
+                "measurements, plots and reports.",
+                "lobe"};
   app.set_version_flag("--version", LOBE_VERSION);
   app.require_subcommand(1);
+  app.footer(exit_codes_text);
 
   lobe::cli::RunOptions run;
   for (int i = 0; i < argc; ++i) run.command_line += (i ? " " : "") + std::string(argv[i]);
@@ -204,6 +250,14 @@ int main(int argc, char** argv) {
   bench_app->add_flag("--quick", bench.quick, "Small models only: a check in seconds, not a measurement");
   bench_app->add_option("--threads", bench.threads, "Threads (default: all cores)")->check(thread_range());
 
+  std::string help_topic;
+  auto* help_app = app.add_subcommand("help", "Show the commands, or one command's options: lobe help COMMAND");
+  help_app->add_option("COMMAND", help_topic, "The command to explain");
+
+  if (const auto unknown = unknown_command_text(app, argc, argv)) {
+    std::fprintf(stderr, "%s\n", unknown->c_str());
+    return exit_bad_input;
+  }
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -217,6 +271,23 @@ int main(int argc, char** argv) {
     if (lobe::process_count() > 1 && !*sweep_app)
       throw lobe::InputError({"mpirun", 1, 1}, "only 'lobe sweep' runs under mpirun; start '" +
                                                  app.get_subcommands().front()->get_name() + "' as one process");
+    if (*help_app) {
+      if (help_topic.empty()) {
+        std::printf("%s", app.help().c_str());
+        return 0;
+      }
+      const auto subs = app.get_subcommands([&](const CLI::App* sub) { return sub->get_name() == help_topic; });
+      if (subs.empty() || help_topic == "help")
+        throw lobe::InputError({"help", 1, 1}, "'" + help_topic + "' is not a lobe command; `lobe help` lists them");
+      // As `lobe COMMAND --help` would: CLI11 then names the program in the usage line.
+      app.clear();
+      try {
+        app.parse(std::vector<std::string>{"--help", help_topic});  // CLI11 takes the arguments reversed
+      } catch (const CLI::ParseError& e) {
+        return app.exit(e);
+      }
+      return 0;
+    }
     if (run_every_frequency) run.study.sampling = lobe::FrequencySampling::every;
     if (sweep_every_frequency) sweep.study.sampling = lobe::FrequencySampling::every;
     if (*run_app) return lobe::cli::run_command(run);

@@ -3,6 +3,7 @@
 #include <filesystem>
 
 #include "cli/commands.hpp"
+#include "cli/standard_output.hpp"
 #include "core/formatted_text.hpp"
 #include "geometry/model_parser.hpp"
 #include "post/output_files.hpp"
@@ -68,8 +69,11 @@ int match_command(const MatchOptions& options) {
   std::filesystem::path output = options.output.empty()
                                      ? std::filesystem::path(std::filesystem::path(options.result_path).stem().string() + "-matched.lobe")
                                      : std::filesystem::path(options.output);
+  // With -o -, the matched model goes to standard output and every message to standard error.
+  const bool to_stdout = is_standard_output(options.output);
   const std::filesystem::path directory = output.has_parent_path() ? output.parent_path() : std::filesystem::path(".");
-  check_output_directory(directory);
+  if (!to_stdout) check_output_directory(directory);
+  std::FILE* const text = to_stdout ? stderr : stdout;
 
   const std::vector<MatchDesign> designs = design_matches(request, {"--band", 1, 1});
   const auto chosen = options.topology.empty()
@@ -80,24 +84,30 @@ int match_command(const MatchOptions& options) {
                                         frequency_text(request.band.high_hz).c_str(), report_line(chosen->built_report).c_str());
   // Made before anything is printed: a port the network cannot join is refused first.
   const std::string matched = matched_model_text(model, port, chosen->built, heading);
-  std::printf("lobe match: %s, port '%s' against %.6g ohm over %s to %s; goal: %s\n", options.result_path.c_str(),
+  std::fprintf(text, "lobe match: %s, port '%s' against %.6g ohm over %s to %s; goal: %s\n", options.result_path.c_str(),
               names[port].c_str(), request.reference_ohm, frequency_text(request.band.low_hz).c_str(),
               frequency_text(request.band.high_hz).c_str(), band_figure_title(request.goal).c_str());
-  std::printf("antenna alone: %s\n\n", report_line(unmatched_report(request)).c_str());
-  std::printf("%-13s %12s %12s %11s  %s\n", "network", "worst VSWR", "as built", "mean VSWR", "parts as built, from the antenna");
+  std::fprintf(text, "antenna alone: %s\n\n", report_line(unmatched_report(request)).c_str());
+  std::fprintf(text, "%-13s %12s %12s %11s  %s\n", "network", "worst VSWR", "as built", "mean VSWR", "parts as built, from the antenna");
   for (const MatchDesign& d : designs)
-    std::printf("%-13s %12.3g %12.3g %11.3g  %s\n", d.topology.c_str(), d.designed_report.highest_vswr.value,
+    std::fprintf(text, "%-13s %12.3g %12.3g %11.3g  %s\n", d.topology.c_str(), d.designed_report.highest_vswr.value,
                 d.built_report.highest_vswr.value, d.built_report.mean_vswr, parts_text(d.built).c_str());
-  std::printf("\n(inductors and capacitors: %s values; lines and stubs: %.6g ohm, velocity factor %.3g, to 0.1 mm)\n",
+  std::fprintf(text, "\n(inductors and capacitors: %s values; lines and stubs: %.6g ohm, velocity factor %.3g, to 0.1 mm)\n",
               options.series.c_str(), request.reference_ohm, request.velocity_factor);
 
-  OutputFiles files(directory);
-  files.stage_text(output.filename().string(), matched);
-  files.commit();
-  std::printf("\nwritten: %s with the '%s' network as built; its band report:\n  %s\n", output.string().c_str(),
-              chosen->topology.c_str(), report_line(chosen->built_report).c_str());
-  std::printf("`lobe run %s` confirms it.\n", output.string().c_str());
-  std::printf("\nCautions:\n"
+  if (to_stdout) {
+    std::fputs(matched.c_str(), stdout);
+    std::fprintf(text, "\nthe model with the '%s' network as built is on standard output; its band report:\n  %s\n",
+                 chosen->topology.c_str(), report_line(chosen->built_report).c_str());
+  } else {
+    OutputFiles files(directory);
+    files.stage_text(output.filename().string(), matched);
+    files.commit();
+    std::fprintf(text, "\nwritten: %s with the '%s' network as built; its band report:\n  %s\n", output.string().c_str(),
+                 chosen->topology.c_str(), report_line(chosen->built_report).c_str());
+    std::fprintf(text, "`lobe run %s` confirms it.\n", output.string().c_str());
+  }
+  std::fprintf(text, "\nCautions:\n"
               "  - Parasitics of real components are not modelled: a capacitor's lead inductance and self-resonance, an\n"
               "    inductor's self-capacitance and loss. Choose parts that self-resonate well above the band (common practice).\n"
               "  - Lines and stubs are lossless here; the written model takes any loss you add to them.\n"

@@ -2,6 +2,7 @@
 #include <filesystem>
 
 #include "cli/commands.hpp"
+#include "cli/standard_output.hpp"
 #include "study/output_checks.hpp"
 #include "core/input_error.hpp"
 #include "geometry/model_parser.hpp"
@@ -27,6 +28,7 @@ ResultFigures figures_of_result(const std::filesystem::path& path, const std::ve
 }
 
 int plot_command(const PlotOptions& options) {
+  refuse_standard_output(options.output_directory, "--output", "plot");
   if (is_sweep_file(options.result_path)) return plot_sweep(options);
   if (!options.figure.empty() || !options.axes.empty())
     throw InputError({options.figure.empty() ? "--axes" : "--figure", 1, 1},

@@ -33,8 +33,13 @@ std::string duration_text(double seconds) {
 ProgressLine::ProgressLine(std::string unit, std::size_t total)
     : m_unit(std::move(unit)), m_total(total), m_terminal(isatty(fileno(stderr))), m_start(clock::now()), m_last(m_start) {}
 
+// On a terminal the line is redrawn in place ("\r", then ESC [ K to erase what a longer line
+// left) and erased when done, so nothing of it stays among the command's own output.
 ProgressLine::~ProgressLine() {
-  if (m_terminal && m_shown) std::fprintf(stderr, "\n");
+  if (m_terminal && m_shown) {
+    std::fprintf(stderr, "\r\033[K");
+    std::fflush(stderr);
+  }
 }
 
 void ProgressLine::update(std::size_t done, std::size_t timed, const std::string& detail) {
@@ -52,7 +57,8 @@ void ProgressLine::update(std::size_t done, std::size_t timed, const std::string
     if (!last) line += ", about " + duration_text(elapsed / timed * static_cast<double>(m_total - done)) + " left";
   }
   if (done > timed) line += formatted(", %zu found done", done - timed);
-  std::fprintf(stderr, m_terminal ? "\r%s   " : "%s\n", line.c_str());
+  std::fflush(stdout);  // what the command printed comes before the progress, not after it
+  std::fprintf(stderr, m_terminal ? "\r\033[K%s" : "%s\n", line.c_str());
   std::fflush(stderr);
 }
 

@@ -2,6 +2,7 @@
 #include <cstdio>
 
 #include "cli/commands.hpp"
+#include "cli/standard_output.hpp"
 #include "core/formatted_text.hpp"
 #include "post/band_report.hpp"
 #include "post/output_files.hpp"
@@ -77,6 +78,10 @@ int report_command(const ReportOptions& options) {
     page = {"lobe report: " + path.stem().string(), "from " + path.string(), {summary_section(path)}};
     const ResultFigures figures = figures_of_result(path, {}, options.measured_path, options.measured_format);
     page.sections.push_back({"Figures", "", {}, figures.figures, figures.notes});
+  }
+  if (is_standard_output(options.output_directory)) {
+    std::fputs(report_html(page).c_str(), stdout);
+    return 0;
   }
   std::filesystem::path directory =
       options.output_directory.empty() ? path.parent_path() : std::filesystem::path(options.output_directory);

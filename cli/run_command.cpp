@@ -4,6 +4,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/progress_line.hpp"
+#include "cli/standard_output.hpp"
 #include "core/formatted_text.hpp"
 #include "core/input_error.hpp"
 #include "post/run_summary.hpp"
@@ -42,6 +43,7 @@ void print_configuration(const RunOptions& options, const PreparedRun& run, std:
 
 int run_command(const RunOptions& options) {
   if (options.threads > 0) set_thread_count(options.threads);
+  refuse_standard_output(options.study.output_directory, "--output", "run");
   const PreparedRun run = prepare_run(options.study);
   if (options.json && run.model->wave)
     throw InputError({"--json", 1, 1}, "the JSON summary covers antennas; a scatterer's cross-sections are in its HDF5 file");

@@ -6,6 +6,7 @@
 #include "cli/commands.hpp"
 #include "cli/interrupt.hpp"
 #include "cli/progress_line.hpp"
+#include "cli/standard_output.hpp"
 #include "core/formatted_text.hpp"
 #include "post/run_summary.hpp"
 #include "post/sweep_file.hpp"
@@ -59,6 +60,7 @@ int sweep_command(const SweepOptions& options) {
     set_thread_count(options.threads);
   else if (processes_on_this_machine() > 1)
     set_thread_count(std::max(1, cores / processes_on_this_machine()));
+  refuse_standard_output(options.study.output, "--output", "sweep (a file and its case folder)");
   const PreparedSweep sweep = prepare_sweep(options.study);
   // Under mpirun the first process reports for the job; the others work quietly.
   const bool reporting = process_rank() == 0;

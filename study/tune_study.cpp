@@ -160,7 +160,7 @@ PreparedTuning prepare_tuning(const TuneRequest& request) {
     tuning.tuned.push_back(parse_tune_option(request.vary_options[i], static_cast<int>(i) + 1));
   const std::string stem = std::filesystem::path(request.model_path).stem().string();
   tuning.output = request.output.empty() ? std::filesystem::path(stem + "-tuned.lobe") : std::filesystem::path(request.output);
-  check_output_file(tuning.output);
+  if (request.output != "-") check_output_file(tuning.output);
   // Both ends must load, and the band must lie within their frequencies, before the search
   // starts: a bad range fails now, not mid-search.
   for (double end : {0.0, 1.0}) {
@@ -194,17 +194,19 @@ TuneOutcome execute_tuning(const PreparedTuning& tuning, const StudyControl& con
   } catch (const nlopt::forced_stop&) {
     if (evaluator.failure) std::rethrow_exception(evaluator.failure);
     // Cancelled: the best point so far is written, if there is one.
-    if (!evaluator.best) return {false, {}, {}, {}, 0, {}};
+    if (!evaluator.best) return {false, {}, {}, {}, 0, {}, {}};
   }
   const TuneRequest& r = tuning.request;
-  const std::filesystem::path directory =
-      tuning.output.has_parent_path() ? tuning.output.parent_path() : std::filesystem::path(".");
-  OutputFiles files(directory);
   const Model tuned_model = load_model(r.model_path, overrides_with(r.set_options, names_of(tuned), evaluator.best_values));
-  files.stage_text(tuning.output.filename().string(), tuned_text(tuned_model, tuned));
-  files.commit();
   TuneOutcome outcome{!control.cancelled(), *evaluator.best, evaluator.si_of(evaluator.best_x), {}, evaluator.evaluations,
-                      tuning.output};
+                      tuning.output, tuned_text(tuned_model, tuned)};
+  if (r.output != "-") {
+    const std::filesystem::path directory =
+        tuning.output.has_parent_path() ? tuning.output.parent_path() : std::filesystem::path(".");
+    OutputFiles files(directory);
+    files.stage_text(tuning.output.filename().string(), outcome.text);
+    files.commit();
+  }
   // The search box's edge: the best may lie beyond it (1e-3 of the range, ten times xtol).
   for (std::size_t i = 0; i < tuned.size(); ++i)
     if (evaluator.best_x[i] < 1e-3 || evaluator.best_x[i] > 1 - 1e-3)

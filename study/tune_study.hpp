@@ -21,7 +21,7 @@ struct TuneRequest {
   std::vector<std::string> limits;        ///< FIGURE<=BOUND or FIGURE>=BOUND the result must meet
   std::string toward;                     ///< THETA,PHI for the polarisation figures; empty: the main beam
   std::string band;                       ///< LOW:HIGH; default the model's first band
-  std::string output;                     ///< the tuned model; empty: MODEL-STEM-tuned.lobe
+  std::string output;                     ///< the tuned model; empty: MODEL-STEM-tuned.lobe; "-": written nowhere
   int evaluations = 60;
 };
 
@@ -46,7 +46,8 @@ struct TuneOutcome {
   std::vector<Real> best_si;             ///< the tuned values there, SI
   std::vector<std::string> at_bounds;    ///< tuned names that ended on a bound of their range
   int evaluations = 0;
-  std::filesystem::path written;         ///< the tuned model
+  std::filesystem::path written;         ///< the tuned model ("-": only in `text`)
+  std::string text;                      ///< the tuned model's text
 };
 
 /// Searches on the unit box of the ranges with NLopt: BOBYQA (Powell 2009: bounded,
