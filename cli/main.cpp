@@ -13,6 +13,7 @@
 #include <exception>
 
 #include "cli/commands.hpp"
+#include "source_commit.hpp"
 #include "core/input_error.hpp"
 #include "core/output_error.hpp"
 #include "post/band_report.hpp"
@@ -90,7 +91,7 @@ int main(int argc, char** argv) {
                 "gain, pattern and polarisation over whole bands; sweeps, tuning, matching networks, comparisons with\n"
                 "measurements, plots and reports.",
                 "lobe"};
-  app.set_version_flag("--version", LOBE_VERSION);
+  app.set_version_flag("--version", "lobe " LOBE_VERSION " (commit " LOBE_COMMIT ")");
   app.require_subcommand(1);
   app.footer(exit_codes_text);
 

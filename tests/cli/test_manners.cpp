@@ -36,6 +36,19 @@ TEST(Manners, HelpNamesTheProgramAndTheExitCodes) {
   EXPECT_EQ(run_lobe("help nosuch", dir).exit_code, 2);
 }
 
+// --version names the commit the binary was built from (the build finds it at every build).
+TEST(Manners, VersionNamesTheCommit) {
+  const auto dir = fresh_directory("manners-version");
+  const ProcessResult r = run_lobe("--version", dir);
+  EXPECT_EQ(r.exit_code, 0);
+  const std::string git = "git -C '" + std::string(LOBE_SOURCE_DIR) + "' rev-parse --short=12 HEAD > '" +
+                          (dir / "commit.txt").string() + "' 2>/dev/null";
+  ASSERT_EQ(std::system(git.c_str()), 0) << "the tests run from a git checkout";
+  std::string commit = read_text(dir / "commit.txt");
+  commit.erase(commit.find_last_not_of("\n") + 1);
+  EXPECT_EQ(r.out.rfind("lobe " LOBE_VERSION " (commit " + commit, 0), 0u) << r.out;
+}
+
 // `-o -` puts the one file on standard output, the same bytes the file would hold, and makes
 // no file named "-" (it once did).
 TEST(Manners, DashSendsASingleFileToStandardOutput) {
