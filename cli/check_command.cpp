@@ -1,5 +1,7 @@
 #include <cstdio>
 
+#include <nlohmann/json.hpp>
+
 #include "cli/commands.hpp"
 #include "study/model_loading.hpp"
 #include "post/run_summary.hpp"
@@ -9,24 +11,84 @@
 #include "cli/progress_line.hpp"
 
 namespace lobe::cli {
+namespace {
+
+/// Runs estimated to take longer than this are told so before they start.
+constexpr double long_run_seconds = 600.0;
+
+}  // namespace
 
 void print_warnings(const std::vector<MeshWarning>& warnings) {
   for (const auto& w : warnings) std::fprintf(stderr, "%s\n", w.formatted().c_str());
 }
 
 void print_long_run_estimate(double unknowns, double frequencies, double cases, std::FILE* out) {
-  constexpr double long_run_seconds = 600.0;
   const double seconds = estimated_solve_seconds(unknowns, frequencies * cases, long_run_seconds);
   if (seconds <= long_run_seconds) return;
   std::fprintf(out, "estimated time: about %s in all, %s per frequency (from this machine's measured matrix-multiply rate)\n",
               duration_text(seconds).c_str(), duration_text(seconds / (frequencies * cases)).c_str());
 }
 
-int check_command(const std::string& model_path, const std::vector<std::string>& set_options) {
+namespace {
+
+/// What check prints, as one JSON document (schema lobe-check-summary, version 1, in
+/// post/check_summary.schema.json).
+std::string check_json(const Model& model, const AntennaProblem& problem) {
+  using Json = nlohmann::ordered_json;
+  Json warnings = Json::array();
+  for (const auto* list : {&problem.mesh.warnings, &problem.surfaces.warnings})
+    for (const auto& w : *list)
+      warnings.push_back({{"file", w.where.file}, {"line", w.where.line}, {"column", w.where.column}, {"message", w.message}});
+  Json substrate = nullptr;
+  if (const auto& board = model.substrate)
+    substrate = {{"name", board->name}, {"thickness_m", board->thickness}, {"permittivity", board->permittivity},
+                 {"loss_tangent", board->loss_tangent}};
+  // As in the printed form: estimated (by measuring this machine) only for runs that could
+  // take longer than ten minutes; null otherwise.
+  const double seconds =
+      estimated_solve_seconds(problem.unknowns(), static_cast<double>(model.frequencies_hz.size()), long_run_seconds);
+  Json doc{{"schema", "lobe-check-summary"},
+           {"schema_version", 1},
+           {"lobe_version", LOBE_VERSION},
+           {"model", model.file},
+           {"lit_by_a_plane_wave", model.wave.has_value()},
+           {"wires", model.wires.size()},
+           {"segments", problem.mesh.segments.size()},
+           {"nodes", problem.mesh.nodes.size()},
+           {"junctions", problem.mesh.junction_count},
+           {"plates_and_bodies", model.surfaces.size()},
+           {"triangles", problem.surfaces.mesh.triangles.size()},
+           {"rwg_edges", problem.rwg.size()},
+           {"wire_surface_junctions", problem.stars.size()},
+           {"smallest_triangle_angle_deg",
+            model.surfaces.empty() ? Json(nullptr) : Json(problem.surfaces.smallest_angle * 180 / pi)},
+           {"unknowns", problem.unknowns()},
+           {"ports", model.ports.size()},
+           {"loads", model.loads.size()},
+           {"feed_network_parts", model.network.size()},
+           {"ground", problem.medium.name()},
+           {"substrate", substrate},
+           {"frequencies", {{"count", model.frequencies_hz.size()},
+                            {"lowest_hz", model.frequencies_hz.front()},
+                            {"highest_hz", model.highest_frequency()}}},
+           {"matrix_bytes_per_frequency", system_matrix_bytes(static_cast<std::uint64_t>(problem.unknowns()))},
+           {"long_run_estimate_seconds", seconds > long_run_seconds ? Json(seconds) : Json(nullptr)},
+           {"warnings", warnings}};
+  return doc.dump(2) + "\n";
+}
+
+}  // namespace
+
+int check_command(const std::string& model_path, const std::vector<std::string>& set_options, bool json) {
   const Model model = load_model(model_path, set_options);
   const AntennaProblem problem(model);
   print_warnings(problem.mesh.warnings);
   print_warnings(problem.surfaces.warnings);
+  if (json) {
+    require_solvable(problem);
+    std::fputs(check_json(model, problem).c_str(), stdout);
+    return 0;
+  }
   std::printf("%s: %s, %s, %s, %s, %s, %s, %s\n", model_path.c_str(), count_text(model.wires.size(), "wire").c_str(),
               count_text(problem.mesh.segments.size(), "segment").c_str(),
               count_text(problem.mesh.nodes.size(), "node").c_str(),

@@ -154,6 +154,6 @@ struct MatchOptions {
 int match_command(const MatchOptions& options);
 
 /// Parses and meshes; prints counts and warnings; solves nothing.
-int check_command(const std::string& model_path, const std::vector<std::string>& set_options);
+int check_command(const std::string& model_path, const std::vector<std::string>& set_options, bool json = false);
 
 }  // namespace lobe::cli

@@ -125,6 +125,10 @@ int main(int argc, char** argv) {
   auto* check_app = app.add_subcommand("check", "Parse and mesh a model; print counts and warnings without solving");
   check_app->add_option("MODEL", check_path, "Model file (.lobe)")->required();
   check_app->add_option("--set", check_sets, "Override a let value: NAME=VALUE (repeatable)")->allow_extra_args(false);
+  bool check_json = false;
+  check_app->add_flag("--json", check_json,
+                      "Print the counts as JSON on standard output (schema lobe-check-summary, version 1); warnings go "
+                      "to standard error");
 
   std::string mesh_path, mesh_output;
   std::vector<std::string> mesh_sets;
@@ -301,7 +305,7 @@ int main(int argc, char** argv) {
     if (*tune_app) return lobe::cli::tune_command(tune);
     if (*bench_app) return lobe::cli::bench_command(bench);
     if (*match_app) return lobe::cli::match_command(match);
-    return lobe::cli::check_command(check_path, check_sets);
+    return lobe::cli::check_command(check_path, check_sets, check_json);
   } catch (const lobe::InputError& e) {
     std::fprintf(stderr, "%s\n", e.formatted().c_str());
     return lobe::end_all_processes(exit_bad_input);

@@ -15,10 +15,11 @@ namespace lobe::testing {
 namespace {
 
 const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
-const std::string schema = std::string(LOBE_SOURCE_DIR) + "/post/run_summary.schema.json";
+const std::string run_schema = std::string(LOBE_SOURCE_DIR) + "/post/run_summary.schema.json";
+const std::string check_schema = std::string(LOBE_SOURCE_DIR) + "/post/check_summary.schema.json";
 
 /// The exit status of validating the JSON file `document` against the schema.
-int validate(const std::filesystem::path& document) {
+int validate(const std::filesystem::path& document, const std::string& schema = run_schema) {
   const std::string command = "python3 -c 'import json, sys, jsonschema; "
                               "jsonschema.validate(json.load(open(sys.argv[1])), json.load(open(sys.argv[2])))' '" +
                               document.string() + "' '" + schema + "' 2>/dev/null";
@@ -64,6 +65,29 @@ TEST(JsonSummary, AnUndefinedFigureIsNull) {
   EXPECT_TRUE(doc["bands"][0]["beam"]["gain"].is_object());
   std::ofstream(dir / "summary.json") << r.out;
   EXPECT_EQ(validate(dir / "summary.json"), 0);
+}
+
+// check --json: the counts as JSON on standard output, warnings both in it and on standard
+// error (here a wire whose segments are shorter than 8 radii), valid against its schema.
+TEST(JsonSummary, CheckDocumentValidatesAndCarriesTheWarnings) {
+  const auto dir = fresh_directory("json-check");
+  const auto model = dir / "short_segments.lobe";
+  std::ofstream(model) << "units mm\nwire w from (0,0,-10) to (0,0,10) radius 1 segments 10\nport p on w at middle\n"
+                          "frequency 1 GHz\n";
+  const ProcessResult r = run_lobe("check '" + model.string() + "' --json", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const auto doc = nlohmann::json::parse(r.out);
+  EXPECT_EQ(doc["segments"].get<int>(), 10);
+  EXPECT_EQ(doc["unknowns"].get<int>(), 9);
+  ASSERT_FALSE(doc["warnings"].empty());
+  EXPECT_EQ(doc["warnings"][0]["line"].get<int>(), 2);
+  EXPECT_NE(r.err.find(":2:"), std::string::npos) << r.err;
+  std::ofstream(dir / "check.json") << r.out;
+  EXPECT_EQ(validate(dir / "check.json", check_schema), 0);
+  auto newer = doc;
+  newer["schema_version"] = 2;
+  std::ofstream(dir / "newer.json") << newer.dump();
+  EXPECT_NE(validate(dir / "newer.json", check_schema), 0);
 }
 
 }  // namespace
