@@ -4,21 +4,21 @@
 
 #include <algorithm>
 #include <cmath>
-#include <optional>
-#include <string>
-#include <vector>
 #include <cstdio>
 #include <cstdlib>
-#include <thread>
 #include <exception>
+#include <optional>
+#include <string>
+#include <thread>
+#include <vector>
 
 #include "cli/commands.hpp"
-#include "source_commit.hpp"
 #include "core/input_error.hpp"
 #include "core/output_error.hpp"
 #include "post/band_report.hpp"
 #include "solver/system_matrix.hpp"
 #include "study/process_ranks.hpp"
+#include "source_commit.hpp"  // generated at build time (cli/source_commit.cmake)
 
 namespace {
 
@@ -60,6 +60,7 @@ std::optional<std::string> unknown_command_text(const CLI::App& app, int argc, c
   if (best <= std::max<std::size_t>(2, given.size() / 3)) text += "; did you mean '" + nearest + "'?";
   return text + " (`lobe help` lists the commands)";
 }
+
 /// Far beyond any transmitter this tool's users drive; above it distances lose meaning.
 constexpr double largest_transmit_power_w = 1e6;
 
