@@ -42,10 +42,7 @@ ReportPage sweep_page(const std::filesystem::path& path) {
     ranking.front().push_back(heading);
   for (std::size_t k = 0; k < std::min<std::size_t>(10, order.size()); ++k) {
     const std::size_t c = order[k];
-    const NetworkData network = read_result_network(path, case_group(c));
-    ReflectionCurve curve{network.frequency_hz, {}};
-    for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
-    const BandFigures f = band_figures(curve, read_result_beam(path, case_group(c)), map.band.low_hz, map.band.high_hz);
+    const BandFigures f = read_result_band_figures(path, case_group(c), map.band, true);
     std::vector<std::string> row{std::to_string(k + 1), case_name(c)};
     row.insert(row.end(), table.labels[c].begin(), table.labels[c].end());
     for (const char* figure : {"worst-vswr", "mean-vswr", "worst-axial-ratio", "worst-gain", "worst-front-to-back"})

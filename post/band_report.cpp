@@ -4,6 +4,7 @@
 #include <cmath>
 #include <stdexcept>
 
+#include "post/frequency_result.hpp"
 #include "post/port_quantities.hpp"
 #include "solver/gauss_legendre.hpp"
 
@@ -144,6 +145,23 @@ Real band_figure(const PortBandReport& report, const std::string& name) {
 
 BandFigures band_figures(const ReflectionCurve& port, const BeamCurves& beam, Real low_hz, Real high_hz) {
   return {band_report(port, low_hz, high_hz), beam_band_report(beam, low_hz, high_hz)};
+}
+
+ReflectionCurve port_reflection_curve(const std::vector<FrequencyResult>& results, std::size_t port) {
+  ReflectionCurve curve;
+  for (const auto& r : results) curve.frequency_hz.push_back(r.frequency_hz), curve.reflection.push_back(r.ports[port].reflection);
+  return curve;
+}
+
+std::optional<std::vector<BandFigures>> run_band_figures(const std::vector<FrequencyResult>& results, std::size_t ports,
+                                                         const Band& band) {
+  if (results.empty() || results.front().frequency_hz > band.high_hz || results.back().frequency_hz < band.low_hz)
+    return std::nullopt;
+  const BeamCurves beam = beam_curves(results);
+  std::vector<BandFigures> figures;
+  for (std::size_t p = 0; p < ports; ++p)
+    figures.push_back(band_figures(port_reflection_curve(results, p), beam, band.low_hz, band.high_hz));
+  return figures;
 }
 
 namespace {

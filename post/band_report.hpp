@@ -68,6 +68,13 @@ struct BandFigures {
 };
 BandFigures band_figures(const ReflectionCurve& port, const BeamCurves& beam, Real low_hz, Real high_hz);
 
+/// Port `port`'s reflection at each of a run's frequencies.
+ReflectionCurve port_reflection_curve(const std::vector<FrequencyResult>& results, std::size_t port);
+/// Every port's band figures over `band` from a run's results (the beam's shared by all);
+/// none when no computed frequency reaches the band.
+std::optional<std::vector<BandFigures>> run_band_figures(const std::vector<FrequencyResult>& results, std::size_t ports,
+                                                         const Band& band);
+
 /// The figures a sweep ranks by, a tuner minimises, a limit bounds and a map shows: the
 /// port's, and for every beam figure X (beam_figure_kinds) centre-X at the band centre and
 /// worst-X at its worst over the band.

@@ -252,19 +252,8 @@ void write_band_figures(hid_t file, const RunRecord& run) {
   for (const auto& b : bands) names.push_back(b.name);
   write_strings(g, "band_names", names);
   const std::size_t np = run.problem.model.ports.size();
-  const BeamCurves beam = beam_curves(run.results);
-  // figures[band][port]: all of them, the beam's the same for every port.
-  std::vector<std::vector<std::optional<BandFigures>>> figures(bands.size(), std::vector<std::optional<BandFigures>>(np));
-  for (std::size_t b = 0; b < bands.size(); ++b)
-    for (std::size_t p = 0; p < np; ++p) {
-      ReflectionCurve curve;
-      for (const auto& r : run.results) curve.frequency_hz.push_back(r.frequency_hz), curve.reflection.push_back(r.ports[p].reflection);
-      try {
-        figures[b][p] = band_figures(curve, beam, bands[b].low_hz, bands[b].high_hz);
-      } catch (const std::invalid_argument&) {
-        // No computed frequency reaches the band: every figure stays undefined.
-      }
-    }
+  std::vector<std::optional<std::vector<BandFigures>>> figures;  // per band, per port
+  for (const auto& band : bands) figures.push_back(run_band_figures(run.results, np, band));
   for (const auto& name : band_figure_names()) {
     const bool per_port = !is_beam_figure(name);
     const std::size_t columns = per_port ? np : 1;
@@ -272,7 +261,7 @@ void write_band_figures(hid_t file, const RunRecord& run) {
     std::vector<int> defined;
     for (std::size_t b = 0; b < bands.size(); ++b)
       for (std::size_t p = 0; p < columns; ++p) {
-        const auto value = figures[b][p] ? band_figure(*figures[b][p], name) : std::nullopt;
+        const auto value = figures[b] ? band_figure((*figures[b])[p], name) : std::nullopt;
         values.push_back(value.value_or(0.0));
         defined.push_back(value.has_value());
       }

@@ -39,25 +39,18 @@ Json beam_json(const RunRecord& run) {
 /// One band: per port the match figures, and the beam's figures at the centre and worst.
 Json band_json(const RunRecord& run, const Band& band) {
   Json out{{"name", band.name}, {"low_hz", band.low_hz}, {"high_hz", band.high_hz}};
-  const BeamCurves beam = beam_curves(run.results);
+  const auto per_port = run_band_figures(run.results, run.problem.model.ports.size(), band);
+  out["covered"] = per_port.has_value();
+  if (!per_port) return out;  // no computed frequency reaches the band
   Json ports = Json::array();
-  std::map<std::string, BandFigure> beam_figures;
-  for (std::size_t p = 0; p < run.problem.model.ports.size(); ++p) {
-    ReflectionCurve curve;
-    for (const auto& r : run.results) curve.frequency_hz.push_back(r.frequency_hz), curve.reflection.push_back(r.ports[p].reflection);
-    try {
-      const BandFigures f = band_figures(curve, beam, band.low_hz, band.high_hz);
-      beam_figures = f.beam;
-      Json port{{"name", run.problem.model.ports[p].name}};
-      for (const auto& name : port_figure_names()) port[name] = band_figure(f.port, name);
-      port["covered_share"] = f.port.covered_share;
-      ports.push_back(port);
-    } catch (const std::invalid_argument&) {
-      out["covered"] = false;  // no computed frequency reaches the band
-      return out;
-    }
+  for (std::size_t p = 0; p < per_port->size(); ++p) {
+    Json port{{"name", run.problem.model.ports[p].name}};
+    for (const auto& name : port_figure_names()) port[name] = band_figure((*per_port)[p].port, name);
+    port["covered_share"] = (*per_port)[p].port.covered_share;
+    ports.push_back(port);
   }
-  out["covered"] = true;
+  // The beam's figures are the same for every port (an antenna has at least one).
+  const std::map<std::string, BandFigure>& beam_figures = per_port->front().beam;
   out["ports"] = ports;
   Json figures = Json::object();
   for (const auto& kind : beam_figure_kinds()) {

@@ -172,6 +172,15 @@ BeamCurves read_result_beam(const std::filesystem::path& path, const std::string
   return curves;
 }
 
+BandFigures read_result_band_figures(const std::filesystem::path& path, const std::string& group, const Band& band,
+                                     bool with_beam) {
+  const NetworkData network = read_result_network(path, group);
+  ReflectionCurve curve{network.frequency_hz, {}};
+  for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
+  const BeamCurves beam = with_beam ? read_result_beam(path, group) : BeamCurves{network.frequency_hz, {}};
+  return band_figures(curve, beam, band.low_hz, band.high_hz);
+}
+
 std::vector<Band> read_result_bands(const std::filesystem::path& path, const std::string& group) {
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
   if (!hdf5_exists(file, group + "/model/band_names")) return {};

@@ -5,6 +5,7 @@
 #include <vector>
 
 #include "geometry/model.hpp"
+#include "post/band_report.hpp"
 #include "post/beam_band_report.hpp"
 #include "post/touchstone.hpp"
 
@@ -66,6 +67,12 @@ RcsData read_result_rcs(const std::filesystem::path& path);
 /// The summary the run printed, as it stored it; empty for a file written before summaries
 /// were stored. `group` as for read_result_network.
 std::string read_result_summary(const std::filesystem::path& path, const std::string& group = "");
+
+/// The first port's band figures of a result over `band`, and the beam's when `with_beam`
+/// (without, they are absent); `group` as for read_result_network. Throws
+/// std::invalid_argument when the band lies outside the result's frequencies.
+BandFigures read_result_band_figures(const std::filesystem::path& path, const std::string& group, const Band& band,
+                                     bool with_beam);
 
 /// The bands of the model behind a result (the model's `band` statements and any --band);
 /// `group` as for read_result_network.

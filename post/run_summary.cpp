@@ -113,12 +113,7 @@ std::string band_text(const RunRecord& run, const Band& band) {
     out += "; only part of it is covered";
   out += "; between them the match is interpolated\n";
   for (std::size_t p = 0; p < model.ports.size(); ++p) {
-    ReflectionCurve curve;
-    for (const auto& r : run.results) {
-      curve.frequency_hz.push_back(r.frequency_hz);
-      curve.reflection.push_back(r.ports[p].reflection);
-    }
-    const PortBandReport b = band_report(curve, band.low_hz, band.high_hz, vswr_caution_threshold);
+    const PortBandReport b = band_report(port_reflection_curve(run.results, p), band.low_hz, band.high_hz, vswr_caution_threshold);
     out += formatted("  port %-10s VSWR best %.3g at %s, mean %.3g, worst %.3g at %s; mean mismatch loss %.2f dB\n",
                          model.ports[p].name.c_str(), b.lowest_vswr.value, frequency_text(b.lowest_vswr.frequency_hz).c_str(),
                          b.mean_vswr, b.highest_vswr.value, frequency_text(b.highest_vswr.frequency_hz).c_str(),

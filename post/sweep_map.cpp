@@ -18,13 +18,9 @@ std::vector<Real> case_figures(const std::filesystem::path& path, std::size_t ca
                                const std::string& figure) {
   std::vector<Real> figures;
   for (std::size_t c = 0; c < cases; ++c) {
-    const NetworkData network = read_result_network(path, case_group(c));
-    ReflectionCurve curve{network.frequency_hz, {}};
-    for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
-    const BeamCurves beam = is_beam_figure(figure) ? read_result_beam(path, case_group(c)) : BeamCurves{network.frequency_hz, {}};
     std::optional<Real> value;
     try {
-      value = band_figure(band_figures(curve, beam, band.low_hz, band.high_hz), figure);
+      value = band_figure(read_result_band_figures(path, case_group(c), band, is_beam_figure(figure)), figure);
     } catch (const std::invalid_argument&) {
       throw InputError({"--band", 1, 1}, "the band " + frequency_text(band.low_hz) + " to " + frequency_text(band.high_hz) +
                                              " lies outside the sweep's frequencies");

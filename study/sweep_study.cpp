@@ -279,12 +279,7 @@ std::vector<RankedCase> rank_sweep(const PreparedSweep& sweep, const std::vector
                                                      [](const DesignLimit& l) { return l.needs_beam(); });
   std::vector<RankedCase> ranked;
   for (std::size_t c = 0; c < case_files.size(); ++c) {
-    const NetworkData network = read_result_network(case_files[c]);
-    ReflectionCurve curve{network.frequency_hz, {}};
-    for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
-    const BeamCurves beam_curves = beam ? read_result_beam(case_files[c]) : BeamCurves{network.frequency_hz, {}};
-    const BandFigures figures = band_figures(curve, beam_curves, sweep.band->low_hz, sweep.band->high_hz);
-    ranked.push_back({c, judge(goal, sweep.limits, figures)});
+    ranked.push_back({c, judge(goal, sweep.limits, read_result_band_figures(case_files[c], "", *sweep.band, beam))});
   }
   std::stable_sort(ranked.begin(), ranked.end(), [&](const RankedCase& a, const RankedCase& b) {
     return judged_better(a.judgement, b.judgement, sweep.limits);
