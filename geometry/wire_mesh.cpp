@@ -569,4 +569,17 @@ void require_current_at_gaps(const WireMesh& mesh, const std::vector<bool>& atta
     }
 }
 
+std::vector<Real> distances_along_wires(const WireMesh& mesh) {
+  // A wire's segments are consecutive and run from its start (mesh_wires lays them so).
+  std::vector<Real> distances;
+  Real along = 0.0;
+  for (std::size_t k = 0; k < mesh.segments.size(); ++k) {
+    const Segment& s = mesh.segments[k];
+    if (k == 0 || s.wire != mesh.segments[k - 1].wire) along = 0.0;
+    distances.push_back(along + 0.5 * s.length());
+    along += s.length();
+  }
+  return distances;
+}
+
 }  // namespace lobe

@@ -72,4 +72,8 @@ WireMesh mesh_wires(const Model& model);
 /// `attached[node]` marks nodes joined to a surface (empty: none are).
 void require_current_at_gaps(const WireMesh& mesh, const std::vector<bool>& attached);
 
+/// Per segment: how far its midpoint lies along its wire from the wire's start (m), the
+/// position a builder measures with a rule.
+std::vector<Real> distances_along_wires(const WireMesh& mesh);
+
 }  // namespace lobe

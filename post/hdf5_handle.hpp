@@ -12,7 +12,10 @@ class Hdf5Handle {
   Hdf5Handle(hid_t id, herr_t (*close)(hid_t)) : m_id(id), m_close(close) {
     if (id < 0) throw std::runtime_error("HDF5 call failed");
   }
-  ~Hdf5Handle() { m_close(m_id); }
+  ~Hdf5Handle() {
+    if (m_id >= 0) m_close(m_id);
+  }
+  Hdf5Handle(Hdf5Handle&& other) noexcept : m_id(other.m_id), m_close(other.m_close) { other.m_id = -1; }
   Hdf5Handle(const Hdf5Handle&) = delete;
   Hdf5Handle& operator=(const Hdf5Handle&) = delete;
   operator hid_t() const { return m_id; }

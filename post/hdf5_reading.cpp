@@ -1,9 +1,11 @@
 #include "post/hdf5_reading.hpp"
 
+#include <cstdio>
 #include <cstring>
 #include <limits>
 
 #include "core/input_error.hpp"
+#include "post/hdf5_layout.hpp"
 #include "post/output_files.hpp"
 
 namespace lobe {
@@ -27,6 +29,18 @@ std::string file_name(hid_t file) {
 
 [[noreturn]] void refuse(hid_t file, const std::string& message) { throw InputError({file_name(file), 1, 1}, message); }
 
+/// The compound {r, i} of two floating-point numbers that lobe writes for complex values.
+bool is_complex_type(hid_t type) {
+  if (H5Tget_class(type) != H5T_COMPOUND || H5Tget_nmembers(type) != 2) return false;
+  for (unsigned m = 0; m < 2; ++m) {
+    char* name = H5Tget_member_name(type, m);
+    const bool named = name && std::strcmp(name, m == 0 ? "r" : "i") == 0;
+    H5free_memory(name);
+    if (!named || H5Tget_member_class(type, m) != H5T_FLOAT) return false;
+  }
+  return true;
+}
+
 /// Opens dataset `name` after checking that it is one, of the expected type class, with a
 /// rank and size the file can really hold; returns its element count and dimensions.
 hid_t open_checked(hid_t file, const std::string& name, H5T_class_t expected, std::vector<hsize_t>& dims, hsize_t& count) {
@@ -38,10 +52,13 @@ hid_t open_checked(hid_t file, const std::string& name, H5T_class_t expected, st
   Hdf5Handle type(H5Dget_type(set), H5Tclose);
   const H5T_class_t found = H5Tget_class(type);
   const bool numeric = found == H5T_FLOAT || found == H5T_INTEGER;
-  if (expected == H5T_FLOAT ? !numeric : found != expected) {
+  if (expected == H5T_FLOAT ? !numeric : found != expected || (expected == H5T_COMPOUND && !is_complex_type(type))) {
     H5Dclose(set);
-    refuse(file, "'" + name + "' holds " + (found == H5T_STRING ? "text" : "data of another kind") + " where " +
-                     (expected == H5T_STRING ? "text" : "numbers") + " belong");
+    const auto kind = [](H5T_class_t c) {
+      return c == H5T_STRING ? "text" : c == H5T_COMPOUND ? "complex numbers" : c == H5T_FLOAT || c == H5T_INTEGER ? "numbers" : "data of another kind";
+    };
+    refuse(file, "'" + name + "' holds " + (found == H5T_COMPOUND && !is_complex_type(type) ? "data of another kind" : kind(found)) +
+                     " where " + kind(expected) + " belong");
   }
   Hdf5Handle space(H5Dget_space(set), H5Sclose);
   const int rank = H5Sget_simple_extent_ndims(space);
@@ -76,7 +93,36 @@ hid_t open_hdf5_for_reading(const std::filesystem::path& path) {
                                 " names it): its files may be part new, part old; run it again");
   const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
   if (file < 0) throw InputError(where, "cannot open this HDF5 file: it is truncated or damaged");
+  try {
+    require_readable_format(file, where);
+  } catch (...) {
+    H5Fclose(file);
+    throw;
+  }
   return file;
+}
+
+void require_readable_format(hid_t file, const SourceLocation& where) {
+  const std::string readable = std::to_string(hdf5::format_major) + ".x";
+  if (H5Aexists(file, "format_version") <= 0)
+    throw InputError(where, "this file has no format_version: it is not a lobe result, or one written before lobe's "
+                            "versioned layout (" + readable + "); run the model again with this lobe");
+  Hdf5Handle attribute(H5Aopen(file, "format_version", H5P_DEFAULT), H5Aclose);
+  Hdf5Handle type(H5Aget_type(attribute), H5Tclose);
+  Hdf5Handle space(H5Aget_space(attribute), H5Sclose);
+  std::string version;
+  if (H5Tget_class(type) == H5T_STRING && H5Tis_variable_str(type) > 0 && H5Sget_simple_extent_npoints(space) == 1) {
+    char* text = nullptr;
+    if (H5Aread(attribute, type, &text) >= 0 && text) version = text;
+    if (text) H5free_memory(text);
+  }
+  int major = 0, minor = 0;
+  char rest = 0;
+  if (std::sscanf(version.c_str(), "%d.%d%c", &major, &minor, &rest) != 2 || major < 1 || minor < 0)
+    throw InputError(where, "this file's format_version is not of the form MAJOR.MINOR ('" + version.substr(0, 40) + "')");
+  if (major > hdf5::format_major)
+    throw InputError(where, "this file is in lobe's result format " + version + ", newer than this lobe reads (" + readable +
+                                "); read it with a newer lobe");
 }
 
 bool hdf5_exists(hid_t file, const std::string& name) {
@@ -98,6 +144,20 @@ std::vector<Real> read_reals(hid_t file, const std::string& name, std::vector<hs
   return values;
 }
 
+std::vector<Complex> read_complex(hid_t file, const std::string& name, std::vector<hsize_t>& dims) {
+  dims.clear();
+  if (!hdf5_exists(file, name)) return {};
+  hsize_t count = 0;
+  Hdf5Handle set(open_checked(file, name, H5T_COMPOUND, dims, count), H5Dclose);
+  Hdf5Handle type(H5Tcreate(H5T_COMPOUND, sizeof(Complex)), H5Tclose);
+  H5Tinsert(type, "r", 0, H5T_NATIVE_DOUBLE);
+  H5Tinsert(type, "i", sizeof(double), H5T_NATIVE_DOUBLE);
+  std::vector<Complex> values(count);
+  if (!values.empty() && H5Dread(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()) < 0)
+    refuse(file, "cannot read '" + name + "' (the file may be truncated or damaged)");
+  return values;
+}
+
 std::vector<std::string> read_strings(hid_t file, const std::string& name, std::vector<hsize_t>& dims) {
   dims.clear();
   if (!hdf5_exists(file, name)) refuse(file, "this file has no '" + name + "'");
@@ -108,6 +168,7 @@ std::vector<std::string> read_strings(hid_t file, const std::string& name, std::
   Hdf5Handle space(H5Dget_space(set), H5Sclose);
   Hdf5Handle type(H5Tcopy(H5T_C_S1), H5Tclose);
   H5Tset_size(type, H5T_VARIABLE);
+  H5Tset_cset(type, H5Tget_cset(file_type));
   std::vector<char*> pointers(count, nullptr);
   if (count > 0 && H5Dread(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, pointers.data()) < 0)
     refuse(file, "cannot read '" + name + "' (the file may be truncated or damaged)");
@@ -120,20 +181,9 @@ std::vector<std::string> read_strings(hid_t file, const std::string& name, std::
 std::string read_text(hid_t file, const std::string& name) {
   if (!hdf5_exists(file, name)) refuse(file, "this file has no '" + name + "'");
   std::vector<hsize_t> dims;
-  hsize_t count = 0;
-  Hdf5Handle set(open_checked(file, name, H5T_STRING, dims, count), H5Dclose);
-  Hdf5Handle file_type(H5Dget_type(set), H5Tclose);
-  if (!dims.empty() || H5Tis_variable_str(file_type) != 0) refuse(file, "'" + name + "' is not one fixed-length text");
-  const std::size_t size = H5Tget_size(file_type);
-  if (size == 0 || static_cast<double>(size) > max_values_per_stored_byte * static_cast<double>(H5Dget_storage_size(set)))
-    refuse(file, "'" + name + "' claims more text than the file holds");
-  Hdf5Handle type(H5Tcopy(H5T_C_S1), H5Tclose);
-  H5Tset_size(type, size);
-  std::string text(size, '\0');
-  if (H5Dread(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, text.data()) < 0)
-    refuse(file, "cannot read '" + name + "' (the file may be truncated or damaged)");
-  text.resize(std::strlen(text.c_str()));
-  return text;
+  const std::vector<std::string> text = read_strings(file, name, dims);
+  if (!dims.empty() || text.size() != 1) refuse(file, "'" + name + "' is not one text");
+  return text.front();
 }
 
 }  // namespace lobe

@@ -13,9 +13,10 @@ namespace {
 
 /// Refuses NaN and infinite values: copied on into a Touchstone file or a chart they would
 /// pass for results.
-void require_finite(const std::vector<Real>& values, const std::string& name, const SourceLocation& where) {
-  for (Real v : values)
-    if (!std::isfinite(v)) throw InputError(where, "'" + name + "' holds a value that is not a finite number");
+template <typename Value>
+void require_finite(const std::vector<Value>& values, const std::string& name, const SourceLocation& where) {
+  for (const Value& v : values)
+    if (!std::isfinite(std::abs(v))) throw InputError(where, "'" + name + "' holds a value that is not a finite number");
 }
 
 }  // namespace
@@ -23,11 +24,11 @@ void require_finite(const std::vector<Real>& values, const std::string& name, co
 std::vector<std::string> read_result_port_names(const std::filesystem::path& path, const std::string& group) {
   const SourceLocation where{path.string(), 1, 1};
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
-  if (!hdf5_exists(file, group + "/ports/names"))
-    throw InputError(where, "this is not a lobe antenna result (it has no /ports/names)");
+  if (!hdf5_exists(file, group + "/ports/port"))
+    throw InputError(where, "this is not a lobe antenna result (it has no /ports/port)");
   std::vector<hsize_t> dims, s_dims;
-  std::vector<std::string> names = read_strings(file, group + "/ports/names", dims);
-  read_reals(file, group + "/ports/s_matrix_re", s_dims);
+  std::vector<std::string> names = read_strings(file, group + "/ports/port", dims);
+  read_complex(file, group + "/ports/s_matrix", s_dims);
   if (names.empty() || dims.size() != 1 || (s_dims.size() == 3 && s_dims[1] != names.size()))
     throw InputError(where, "the port names of this result do not match its ports");
   for (const std::string& name : names)
@@ -40,20 +41,18 @@ PortImpedanceCurve read_result_port_impedance(const std::filesystem::path& path,
   const SourceLocation where{path.string(), 1, 1};
   const std::size_t ports = read_result_port_names(path, group).size();
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
-  std::vector<hsize_t> f_dims, r_dims, x_dims, z_dims;
+  std::vector<hsize_t> f_dims, z_dims, z0_dims;
   PortImpedanceCurve curve;
-  curve.frequency_hz = read_reals(file, group + "/frequency_hz", f_dims);
-  const std::vector<Real> r = read_reals(file, group + "/ports/resistance_ohm", r_dims);
-  const std::vector<Real> x = read_reals(file, group + "/ports/reactance_ohm", x_dims);
-  const std::vector<Real> z0 = read_reals(file, group + "/model/reference_ohm", z_dims);
+  curve.frequency_hz = read_reals(file, group + "/frequency", f_dims);
+  const std::vector<Complex> z = read_complex(file, group + "/ports/impedance_ohm", z_dims);
+  const std::vector<Real> z0 = read_reals(file, group + "/model/reference_ohm", z0_dims);
   const std::size_t nf = curve.frequency_hz.size();
-  if (nf == 0 || r.size() != nf * ports || x.size() != nf * ports || z0.size() != 1 || !(z0[0] > 0.0))
+  if (nf == 0 || z.size() != nf * ports || z0.size() != 1 || !(z0[0] > 0.0))
     throw InputError(where, "the port impedances of this result are missing or do not fit its frequencies");
-  require_finite(curve.frequency_hz, "/frequency_hz", where);
-  require_finite(r, "/ports/resistance_ohm", where);
-  require_finite(x, "/ports/reactance_ohm", where);
+  require_finite(curve.frequency_hz, "/frequency", where);
+  require_finite(z, "/ports/impedance_ohm", where);
   for (std::size_t f = 0; f < nf; ++f) {
-    curve.impedance.emplace_back(r[f * ports + port], x[f * ports + port]);
+    curve.impedance.push_back(z[f * ports + port]);
     if (f > 0 && !(curve.frequency_hz[f] > curve.frequency_hz[f - 1]))
       throw InputError(where, "the frequencies of this result do not ascend");
   }
@@ -67,9 +66,9 @@ ResultModel read_result_model(const std::filesystem::path& path, const std::stri
   if (!hdf5_exists(file, group + "/model/source")) throw InputError(where, "this result holds no model source");
   ResultModel model;
   model.source = read_text(file, group + "/model/source");
-  if (!hdf5_exists(file, group + "/model/value_names")) return model;
+  if (!hdf5_exists(file, group + "/model/value")) return model;
   std::vector<hsize_t> dims;
-  const std::vector<std::string> names = read_strings(file, group + "/model/value_names", dims);
+  const std::vector<std::string> names = read_strings(file, group + "/model/value", dims);
   const std::vector<std::string> units = read_strings(file, group + "/model/value_units", dims);
   const std::vector<Real> values = read_reals(file, group + "/model/values", dims);
   const std::vector<Real> overridden = read_reals(file, group + "/model/value_overridden", dims);
@@ -91,9 +90,9 @@ PatternData read_result_pattern(const std::filesystem::path& path) {
     throw InputError({path.string(), 1, 1}, "this is not a lobe antenna result (it has no /pattern)");
   PatternData d;
   std::vector<hsize_t> dims;
-  d.frequency_hz = read_reals(file, "/frequency_hz", dims);
-  d.theta_deg = read_reals(file, "/pattern/theta_deg", dims);
-  d.phi_deg = read_reals(file, "/pattern/phi_deg", dims);
+  d.frequency_hz = read_reals(file, "/frequency", dims);
+  d.theta_deg = read_reals(file, "/pattern/theta", dims);
+  d.phi_deg = read_reals(file, "/pattern/phi", dims);
   d.gain_dbi = read_reals(file, "/pattern/gain_dbi", dims);
   d.rhcp_dbi = read_reals(file, "/pattern/rhcp_dbi", dims);
   d.lhcp_dbi = read_reals(file, "/pattern/lhcp_dbi", dims);
@@ -124,9 +123,9 @@ RcsData read_result_rcs(const std::filesystem::path& path) {
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
   std::vector<hsize_t> dims;
   RcsData d;
-  d.frequency_hz = read_reals(file, "/frequency_hz", dims);
-  d.theta_deg = read_reals(file, "/scattering/theta_deg", dims);
-  d.phi_deg = read_reals(file, "/scattering/phi_deg", dims);
+  d.frequency_hz = read_reals(file, "/frequency", dims);
+  d.theta_deg = read_reals(file, "/scattering/theta", dims);
+  d.phi_deg = read_reals(file, "/scattering/phi", dims);
   d.rcs_m2 = read_reals(file, "/scattering/rcs_m2", dims);
   d.monostatic_m2 = read_reals(file, "/scattering/monostatic_m2", dims);
   auto wave_theta = read_reals(file, "/scattering/wave_theta_deg", dims);
@@ -147,8 +146,8 @@ BeamCurves read_result_beam(const std::filesystem::path& path, const std::string
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
   std::vector<hsize_t> dims;
   BeamCurves curves;
-  curves.frequency_hz = read_reals(file, group + "/frequency_hz", dims);
-  require_finite(curves.frequency_hz, "/frequency_hz", where);
+  curves.frequency_hz = read_reals(file, group + "/frequency", dims);
+  require_finite(curves.frequency_hz, "/frequency", where);
   for (const auto& kind : beam_figure_kinds()) {
     const std::string name = group + "/beam/" + kind.dataset;
     if (!hdf5_exists(file, name))
@@ -183,9 +182,9 @@ BandFigures read_result_band_figures(const std::filesystem::path& path, const st
 
 std::vector<Band> read_result_bands(const std::filesystem::path& path, const std::string& group) {
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
-  if (!hdf5_exists(file, group + "/model/band_names")) return {};
+  if (!hdf5_exists(file, group + "/model/band")) return {};
   std::vector<hsize_t> dims;
-  const std::vector<std::string> names = read_strings(file, group + "/model/band_names", dims);
+  const std::vector<std::string> names = read_strings(file, group + "/model/band", dims);
   const std::vector<Real> edges = read_reals(file, group + "/model/band_edges_hz", dims);
   std::vector<Band> bands;
   for (std::size_t b = 0; b < names.size() && 2 * b + 1 < edges.size(); ++b)
@@ -197,18 +196,16 @@ std::vector<Band> read_result_bands(const std::filesystem::path& path, const std
 NetworkData read_result_network(const std::filesystem::path& path, const std::string& group) {
   const SourceLocation where{path.string(), 1, 1};
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
-  std::vector<hsize_t> f_dims, re_dims, im_dims, r_dims;
+  std::vector<hsize_t> f_dims, s_dims, r_dims;
   if (!group.empty() && !hdf5_exists(file, group)) throw InputError(where, "the file has no group '" + group + "'");
-  const std::vector<Real> frequencies = read_reals(file, group + "/frequency_hz", f_dims);
-  const std::vector<Real> re = read_reals(file, group + "/ports/s_matrix_re", re_dims);
-  const std::vector<Real> im = read_reals(file, group + "/ports/s_matrix_im", im_dims);
+  const std::vector<Real> frequencies = read_reals(file, group + "/frequency", f_dims);
+  const std::vector<Complex> s_matrix = read_complex(file, group + "/ports/s_matrix", s_dims);
   const std::vector<Real> reference = read_reals(file, group + "/model/reference_ohm", r_dims);
-  if (frequencies.empty() || re.empty() || re_dims.size() != 3 || re_dims != im_dims || re_dims[0] != frequencies.size() ||
-      re_dims[1] == 0 || re_dims[1] != re_dims[2] || reference.size() != 1)
-    throw InputError(where, "this is not a lobe antenna result (it lacks /ports/s_matrix_re and its companions)");
-  require_finite(frequencies, "/frequency_hz", where);
-  require_finite(re, "/ports/s_matrix_re", where);
-  require_finite(im, "/ports/s_matrix_im", where);
+  if (frequencies.empty() || s_matrix.empty() || s_dims.size() != 3 || s_dims[0] != frequencies.size() || s_dims[1] == 0 ||
+      s_dims[1] != s_dims[2] || reference.size() != 1)
+    throw InputError(where, "this is not a lobe antenna result (it lacks /ports/s_matrix and its companions)");
+  require_finite(frequencies, "/frequency", where);
+  require_finite(s_matrix, "/ports/s_matrix", where);
   for (std::size_t k = 0; k < frequencies.size(); ++k)
     if (!(frequencies[k] > 0.0) || (k > 0 && !(frequencies[k] > frequencies[k - 1])))
       throw InputError(where, "the frequencies of this result are not positive and ascending");
@@ -217,13 +214,13 @@ NetworkData read_result_network(const std::filesystem::path& path, const std::st
   NetworkData data;
   data.reference_ohm = reference.front();
   data.frequency_hz = frequencies;
-  const auto n = static_cast<Eigen::Index>(re_dims[1]);
+  const auto n = static_cast<Eigen::Index>(s_dims[1]);
   for (std::size_t k = 0; k < frequencies.size(); ++k) {
     ComplexMatrix s(n, n);
     for (Eigen::Index i = 0; i < n; ++i)
       for (Eigen::Index j = 0; j < n; ++j) {
         const std::size_t at = (k * n + i) * n + j;
-        s(i, j) = {re[at], im[at]};
+        s(i, j) = s_matrix[at];
       }
     data.s.push_back(s);
   }

@@ -5,28 +5,12 @@
 #include <stdexcept>
 
 #include "core/input_error.hpp"
+#include "post/hdf5_layout.hpp"
 #include "post/hdf5_memory_file.hpp"
 #include "post/hdf5_reading.hpp"
+#include "post/sweep_stacking.hpp"
 
 namespace lobe {
-namespace {
-
-void check(herr_t status, const char* what) {
-  if (status < 0) throw std::runtime_error(std::string("HDF5: ") + what + " failed");
-}
-
-void write_text_table(hid_t group, const char* name, const std::vector<std::string>& flat, hsize_t rows, hsize_t columns) {
-  Hdf5Handle type(H5Tcopy(H5T_C_S1), H5Tclose);
-  check(H5Tset_size(type, H5T_VARIABLE), "string type");
-  const hsize_t dims[2] = {rows, columns};
-  Hdf5Handle space(H5Screate_simple(columns ? 2 : 1, dims, nullptr), H5Sclose);
-  Hdf5Handle set(H5Dcreate2(group, name, type, space, H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT), H5Dclose);
-  std::vector<const char*> pointers;
-  for (const auto& s : flat) pointers.push_back(s.c_str());
-  if (!pointers.empty()) check(H5Dwrite(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, pointers.data()), "write strings");
-}
-
-}  // namespace
 
 std::string case_name(std::size_t index) {
   char name[32];
@@ -39,53 +23,55 @@ std::string case_group(std::size_t index) { return std::string("/").append(case_
 void write_sweep_hdf5(const std::filesystem::path& path, const SweepTable& table,
                       const std::vector<std::filesystem::path>& case_files) {
   Hdf5MemoryFile file;
-  {
-    Hdf5Handle cases(H5Gcreate2(file, "cases", H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT), H5Gclose);
-    const hsize_t rows = table.values.size(), columns = table.names.size();
-    write_text_table(cases, "names", table.names, columns, 0);
-    std::vector<std::string> values, labels;
-    std::vector<Real> si;
-    for (std::size_t c = 0; c < rows; ++c) {
-      values.insert(values.end(), table.values[c].begin(), table.values[c].end());
-      labels.insert(labels.end(), table.labels[c].begin(), table.labels[c].end());
-      si.insert(si.end(), table.values_si[c].begin(), table.values_si[c].end());
-    }
-    write_text_table(cases, "values", values, rows, columns);
-    write_text_table(cases, "labels", labels, rows, columns);
-    const hsize_t dims[2] = {rows, columns};
-    Hdf5Handle space(H5Screate_simple(2, dims, nullptr), H5Sclose);
-    Hdf5Handle set(H5Dcreate2(cases, "values_si", H5T_IEEE_F64LE, space, H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT), H5Dclose);
-    if (!si.empty()) check(H5Dwrite(set, H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, si.data()), "write values");
+  hdf5::mark_format(file, "lobe-sweep");
+  hdf5::text_attribute(file, "program", "lobe");
+  const std::size_t rows = table.values.size();
+  hdf5::Handle cases = hdf5::create_group(file, "/cases");
+  std::vector<std::string> names;
+  for (std::size_t c = 0; c < rows; ++c) names.push_back(case_name(c));
+  const hdf5::Axis case_axis = hdf5::text_axis(file, "/cases", "case", names);
+  const hdf5::Axis variable = hdf5::text_axis(file, "/cases", "variable", table.names);
+  std::vector<std::string> values, labels;
+  std::vector<Real> si;
+  for (std::size_t c = 0; c < rows; ++c) {
+    values.insert(values.end(), table.values[c].begin(), table.values[c].end());
+    labels.insert(labels.end(), table.labels[c].begin(), table.labels[c].end());
+    si.insert(si.end(), table.values_si[c].begin(), table.values_si[c].end());
   }
+  hdf5::write_texts(file, "/cases/values", {case_axis, variable}, values);
+  hdf5::write_texts(file, "/cases/labels", {case_axis, variable}, labels);
+  hdf5::write_reals(file, "/cases/values_si", {case_axis, variable}, si, "SI (metres, hertz, radians …)");
+  std::vector<Hdf5Handle> sources;
+  std::vector<hid_t> opened;
   for (std::size_t c = 0; c < case_files.size(); ++c) {
-    Hdf5Handle source(H5Fopen(case_files[c].c_str(), H5F_ACC_RDONLY, H5P_DEFAULT), H5Fclose);
-    check(H5Ocopy(source, "/", file, case_name(c).c_str(), H5P_DEFAULT, H5P_DEFAULT), "copy a case");
+    sources.emplace_back(H5Fopen(case_files[c].c_str(), H5F_ACC_RDONLY, H5P_DEFAULT), H5Fclose);
+    opened.push_back(sources.back());
+    copy_case_group(file, case_group(c), sources.back());
   }
+  write_stacked_arrays(file, names, opened);
   file.save(path);
 }
 
 bool is_sweep_file(const std::filesystem::path& path) {
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
-  return hdf5_exists(file, "/cases/names");
+  return hdf5_exists(file, "/cases/variable");
 }
 
 SweepTable read_sweep_table(const std::filesystem::path& path) {
   const SourceLocation where{path.string(), 1, 1};
   Hdf5Handle file(open_hdf5_for_reading(path), H5Fclose);
-  if (!hdf5_exists(file, "/cases/names") || !hdf5_exists(file, "/cases/values") || !hdf5_exists(file, "/cases/values_si"))
+  if (!hdf5_exists(file, "/cases/variable") || !hdf5_exists(file, "/cases/values") || !hdf5_exists(file, "/cases/values_si") ||
+      !hdf5_exists(file, "/cases/labels"))
     throw InputError(where, "this is not a lobe sweep file (it has no /cases table)");
   SweepTable table;
-  std::vector<hsize_t> dims, si_dims;
-  table.names = read_strings(file, "/cases/names", dims);
+  std::vector<hsize_t> dims, si_dims, label_dims;
+  table.names = read_strings(file, "/cases/variable", dims);
   const std::vector<std::string> values = read_strings(file, "/cases/values", dims);
   const std::vector<Real> si = read_reals(file, "/cases/values_si", si_dims);
   const std::size_t columns = table.names.size();
   if (columns == 0 || dims.size() != 2 || dims[1] != columns || si_dims != dims)
     throw InputError(where, "the case table of this sweep file is malformed");
-  // Files from before labels were kept show the override texts instead.
-  std::vector<hsize_t> label_dims;
-  const std::vector<std::string> labels =
-      hdf5_exists(file, "/cases/labels") ? read_strings(file, "/cases/labels", label_dims) : values;
+  const std::vector<std::string> labels = read_strings(file, "/cases/labels", label_dims);
   if (labels.size() != values.size()) throw InputError(where, "the case table of this sweep file is malformed");
   for (std::size_t c = 0; c < dims[0]; ++c) {
     table.values.emplace_back(values.begin() + c * columns, values.begin() + (c + 1) * columns);

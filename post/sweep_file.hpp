@@ -16,8 +16,9 @@ struct SweepTable {
   std::vector<std::vector<Real>> values_si;      ///< as the model resolved them (SI)
 };
 
-/// Writes `path` with /cases/names, /cases/values, /cases/labels and /cases/values_si, and a
-/// group /case-000001 … per case holding a copy of that case's whole result file.
+/// Writes `path` with the case table (/cases/case, /cases/variable, /cases/values,
+/// /cases/labels, /cases/values_si), a group /case-000001 … per case holding a copy of that
+/// case's whole result file, and the cases' results stacked in /stacked (sweep_stacking.hpp).
 void write_sweep_hdf5(const std::filesystem::path& path, const SweepTable& table,
                       const std::vector<std::filesystem::path>& case_files);
 

@@ -1,5 +1,7 @@
 #pragma once
 /// One dataset or root attribute of an HDF5 result file, for the command-line tests.
+#include <gtest/gtest.h>
+
 #include <filesystem>
 #include <string>
 #include <vector>
@@ -8,10 +10,23 @@
 
 namespace lobe::testing {
 
+/// A numeric dataset, flattened; a missing one fails the test (an empty list would let
+/// comparisons pass on nothing).
 inline std::vector<Real> dataset(const std::filesystem::path& file, const std::string& name) {
   const hid_t h = open_hdf5_for_reading(file);
+  EXPECT_TRUE(hdf5_exists(h, name)) << file << " has no " << name;
   std::vector<hsize_t> dims;
   std::vector<Real> values = read_reals(h, name, dims);
+  H5Fclose(h);
+  return values;
+}
+
+/// A complex dataset ({r, i}), flattened; a missing one fails the test.
+inline std::vector<Complex> complex_dataset(const std::filesystem::path& file, const std::string& name) {
+  const hid_t h = open_hdf5_for_reading(file);
+  EXPECT_TRUE(hdf5_exists(h, name)) << file << " has no " << name;
+  std::vector<hsize_t> dims;
+  std::vector<Complex> values = read_complex(h, name, dims);
   H5Fclose(h);
   return values;
 }

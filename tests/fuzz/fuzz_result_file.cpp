@@ -1,6 +1,6 @@
 // libFuzzer target, structure-aware: a genuine result file is changed through the HDF5 API
 // as the input bytes direct (datasets deleted, turned into groups, replaced by numbers of any
-// shape and value, NaN among them, by text, by integers, or by sizes far beyond the bytes
+// shape and value, NaN among them, by text, by integers, by complex numbers, or by sizes far beyond the bytes
 // stored), then every result and sweep reader is run on it (lobe match's among them), and
 // the figures that plot and report draw from them. Each must return checked data
 // or throw an InputError. (libhdf5's own parsing of raw bytes is outside this project; the
@@ -27,15 +27,15 @@
 
 namespace {
 
-const char* const datasets[] = {"/frequency_hz",       "/ports/s_matrix_re", "/ports/s_matrix_im",  "/ports/names",
-                                "/model/reference_ohm", "/model/band_names", "/model/band_edges_hz", "/pattern/theta_deg",
-                                "/pattern/phi_deg",    "/pattern/gain_dbi",  "/pattern/rhcp_dbi",   "/pattern/lhcp_dbi",
-                                "/pattern/axial_ratio_db", "/cases/names",   "/cases/values",       "/cases/values_si",
-                                "/cases/labels",       "/ports/resistance_ohm", "/ports/reactance_ohm", "/model/source",
-                                "/model/value_names",  "/model/values",     "/model/value_units",  "/model/value_overridden",
+const char* const datasets[] = {"/frequency",       "/ports/s_matrix",  "/ports/port",
+                                "/model/reference_ohm", "/model/band", "/model/band_edges_hz", "/pattern/theta",
+                                "/pattern/phi",    "/pattern/gain_dbi",  "/pattern/rhcp_dbi",   "/pattern/lhcp_dbi",
+                                "/pattern/axial_ratio_db", "/cases/variable",   "/cases/values",       "/cases/values_si",
+                                "/cases/labels",       "/ports/impedance_ohm", "/model/source",
+                                "/model/value",  "/model/values",     "/model/value_units",  "/model/value_overridden",
                                 "/beam/gain_dbi",      "/beam/axial_ratio_db", "/beam/front_to_back_db",
                                 "/beam/front_to_back_db_defined", "/beam/peak_theta_deg", "/beam/peak_phi_deg", "/summary",
-                                "/scattering/rcs_m2",  "/scattering/theta_deg", "/scattering/monostatic_m2"};
+                                "/scattering/rcs_m2",  "/scattering/theta", "/scattering/monostatic_m2"};
 
 std::string base_file;
 
@@ -54,7 +54,7 @@ void change(hid_t file, FuzzedDataProvider& in) {
   const char* name = datasets[in.ConsumeIntegralInRange<std::size_t>(0, std::size(datasets) - 1)];
   remove_object(file, name);
   ensure_group(file, name);
-  const int op = in.ConsumeIntegralInRange(0, 5);
+  const int op = in.ConsumeIntegralInRange(0, 6);
   if (op == 0) return;  // deleted
   if (op == 1) {
     H5Gclose(H5Gcreate2(file, name, H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT));
@@ -80,6 +80,16 @@ void change(hid_t file, FuzzedDataProvider& in) {
     H5Tset_size(type, H5T_VARIABLE);
     const hid_t set = H5Dcreate2(file, name, type, space, H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT);
     if (count > 0) H5Dwrite(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, pointers.data());
+    H5Dclose(set);
+    H5Tclose(type);
+  } else if (op == 6) {  // complex {r, i} with parts from the input (NaN and infinities included)
+    std::vector<double> parts(2 * count);
+    for (auto& v : parts) v = in.ConsumeFloatingPoint<double>();
+    const hid_t type = H5Tcreate(H5T_COMPOUND, 2 * sizeof(double));
+    H5Tinsert(type, "r", 0, H5T_NATIVE_DOUBLE);
+    H5Tinsert(type, "i", sizeof(double), H5T_NATIVE_DOUBLE);
+    const hid_t set = H5Dcreate2(file, name, type, space, H5P_DEFAULT, H5P_DEFAULT, H5P_DEFAULT);
+    if (count > 0) H5Dwrite(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, parts.data());
     H5Dclose(set);
     H5Tclose(type);
   } else {  // sizes claimed far beyond what is stored (never written: late allocation)

@@ -17,23 +17,35 @@
 namespace lobe::testing {
 namespace {
 
-std::vector<double> read_doubles(hid_t file, const char* name) {
+/// A dataset's values as doubles; `parts` 2 reads a complex {r, i} dataset as pairs.
+std::vector<double> read_doubles(hid_t file, const char* name, std::size_t parts = 1) {
   const hid_t set = H5Dopen2(file, name, H5P_DEFAULT);
   EXPECT_GE(set, 0) << name;
   const hid_t space = H5Dget_space(set);
-  std::vector<double> data(static_cast<std::size_t>(H5Sget_simple_extent_npoints(space)));
-  H5Dread(set, H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, data.data());
+  std::vector<double> data(parts * static_cast<std::size_t>(H5Sget_simple_extent_npoints(space)));
+  hid_t type = H5T_NATIVE_DOUBLE;
+  if (parts == 2) {
+    type = H5Tcreate(H5T_COMPOUND, 2 * sizeof(double));
+    H5Tinsert(type, "r", 0, H5T_NATIVE_DOUBLE);
+    H5Tinsert(type, "i", sizeof(double), H5T_NATIVE_DOUBLE);
+  }
+  EXPECT_GE(H5Dread(set, type, H5S_ALL, H5S_ALL, H5P_DEFAULT, data.data()), 0) << name;
+  if (parts == 2) H5Tclose(type);
   H5Sclose(space);
   H5Dclose(set);
   return data;
 }
 
+/// A dataset's "units" attribute: UTF-8 text of variable length.
 std::string unit_of(hid_t file, const char* name) {
   const hid_t set = H5Dopen2(file, name, H5P_DEFAULT);
-  const hid_t attribute = H5Aopen(set, "unit", H5P_DEFAULT);
+  const hid_t attribute = H5Aopen(set, "units", H5P_DEFAULT);
   const hid_t type = H5Aget_type(attribute);
-  std::string value(H5Tget_size(type), '\0');
-  H5Aread(attribute, type, value.data());
+  EXPECT_EQ(H5Tget_cset(type), H5T_CSET_UTF8) << name;
+  char* text = nullptr;
+  H5Aread(attribute, type, &text);
+  std::string value = text ? text : "";
+  H5free_memory(text);
   H5Tclose(type);
   H5Aclose(attribute);
   H5Dclose(set);
@@ -47,10 +59,12 @@ TEST(ResultFiles, Hdf5HoldsTheComputedNumbersWithUnits) {
   write_hdf5(path, run);
   const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
   ASSERT_GE(file, 0);
-  EXPECT_DOUBLE_EQ(read_doubles(file, "/frequency_hz").at(0), one_metre_wavelength_hz);
-  EXPECT_DOUBLE_EQ(read_doubles(file, "/ports/resistance_ohm").at(0), s.port_impedance().real());
-  EXPECT_DOUBLE_EQ(read_doubles(file, "/ports/reactance_ohm").at(0), s.port_impedance().imag());
-  EXPECT_EQ(unit_of(file, "/ports/resistance_ohm"), "ohm");
+  EXPECT_DOUBLE_EQ(read_doubles(file, "/frequency").at(0), one_metre_wavelength_hz);
+  // Complex values are the compound {r, i}, read as a pair of doubles.
+  const std::vector<double> impedance = read_doubles(file, "/ports/impedance_ohm", 2);
+  EXPECT_DOUBLE_EQ(impedance.at(0), s.port_impedance().real());
+  EXPECT_DOUBLE_EQ(impedance.at(1), s.port_impedance().imag());
+  EXPECT_EQ(unit_of(file, "/ports/impedance_ohm"), "ohm");
   EXPECT_EQ(unit_of(file, "/pattern/gain_dbi"), "dBi");
   const auto gains = read_doubles(file, "/pattern/gain_dbi");
   EXPECT_EQ(gains.size(), s.result.pattern.thetas.size() * s.result.pattern.phis.size());

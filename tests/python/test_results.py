@@ -1,0 +1,193 @@
+"""lobe's HDF5 layout as the tools of notebook users see it (h5py, xarray, pandas, all from
+Debian) and the Python reader package in python/lobe.
+
+Environment: LOBE (the executable), LOBE_SOURCE_DIR (the repository); python/ on PYTHONPATH.
+"""
+
+import os
+import pathlib
+import shutil
+import subprocess
+import tempfile
+import unittest
+
+import h5py
+import numpy as np
+import xarray
+
+import lobe
+
+LOBE = os.environ["LOBE"]
+SOURCE = pathlib.Path(os.environ["LOBE_SOURCE_DIR"])
+MODELS = sorted((SOURCE / "models").glob("*.lobe"))
+SCRATCH = pathlib.Path(tempfile.mkdtemp(prefix="lobe-python-"))
+
+# Arrays lobe writes as complex numbers: the compound {r, i} that h5py reads as complex.
+COMPLEX = {"ports/impedance_ohm", "ports/reflection", "ports/voltage_v", "ports/current_a", "ports/z_matrix_ohm",
+           "ports/s_matrix", "pattern/e_theta_v", "pattern/e_phi_v", "currents/start_current_a",
+           "currents/end_current_a"}
+
+
+def run_model(model, *options):
+    out = SCRATCH / model.stem
+    subprocess.run([LOBE, "run", str(model), "-o", str(out), *options], check=True, capture_output=True)
+    return out / f"{model.stem}.h5"
+
+
+def datasets(file):
+    found = {}
+    file.visititems(lambda name, item: found.__setitem__(name, item) if isinstance(item, h5py.Dataset) else None)
+    return found
+
+
+def groups(file):
+    found = ["/"]
+    file.visititems(lambda name, item: found.append(name) if isinstance(item, h5py.Group) else None)
+    return found
+
+
+class DemoFiles(unittest.TestCase):
+    """Every demo model's result file: versioned, every array on named axes, complex values
+    complex, text UTF-8, and each group opened by xarray with those axes."""
+
+    @classmethod
+    def setUpClass(cls):
+        cls.files = {model.stem: run_model(model) for model in MODELS}
+
+    def test_every_demo_was_run(self):
+        self.assertGreaterEqual(len(self.files), 16)
+
+    def test_files_carry_their_format_and_version(self):
+        for stem, path in self.files.items():
+            with h5py.File(path) as f:
+                self.assertEqual(f.attrs["format_version"], "1.0", stem)
+                self.assertIn(f.attrs["format"], ("lobe-antenna-result", "lobe-scattering-result"), stem)
+
+    def test_every_array_has_named_axes_of_its_length(self):
+        for stem, path in self.files.items():
+            with h5py.File(path) as f:
+                for name, d in datasets(f).items():
+                    for k, dim in enumerate(d.dims):
+                        where = f"{stem}: {name} axis {k}"
+                        self.assertTrue(dim.label, where)
+                        if h5py.h5ds.is_scale(d.id):  # an axis is its own positions, named as itself
+                            self.assertEqual(name.rsplit("/", 1)[-1], dim.label, where)
+                            continue
+                        self.assertEqual(len(dim), 1, where)  # one scale per axis
+                        scale = dim[0]
+                        self.assertEqual(scale.shape, (d.shape[k],), where)
+                        self.assertEqual(scale.name.rsplit("/", 1)[1], dim.label, where)
+
+    def test_axes_are_the_expected_ones(self):
+        with h5py.File(self.files["crossed_dipole_gnss"]) as f:
+            self.assertEqual([d.label for d in f["pattern/gain_dbi"].dims], ["frequency", "theta", "phi"])
+            self.assertEqual([d.label for d in f["ports/s_matrix"].dims], ["frequency", "port", "driven_port"])
+            self.assertEqual([d.label for d in f["currents/start_current_a"].dims], ["frequency", "segment"])
+            self.assertEqual([d.label for d in f["band_figures/worst_vswr"].dims], ["band", "port"])
+            self.assertEqual(list(f["ports/port"].asstr()[()]), ["a", "b"])
+
+    def test_complex_values_are_complex_and_text_is_utf8(self):
+        for stem, path in self.files.items():
+            with h5py.File(path) as f:
+                for name, d in datasets(f).items():
+                    if name in COMPLEX:
+                        self.assertEqual(d.dtype, np.complex128, f"{stem}: {name}")
+                    self.assertFalse(name.endswith(("_re", "_im")), f"{stem}: {name} split into parts")
+                    info = h5py.check_string_dtype(d.dtype)
+                    if info is not None:
+                        self.assertEqual(info.encoding, "utf-8", f"{stem}: {name}")
+                        self.assertIsNone(info.length, f"{stem}: {name} is fixed-length")
+
+    def test_xarray_opens_every_group_on_named_axes(self):
+        for stem, path in self.files.items():
+            with h5py.File(path) as f:
+                names = groups(f)
+            for group in names:
+                with xarray.open_dataset(path, engine="h5netcdf", group=group) as ds:
+                    for dim in ds.dims:
+                        self.assertFalse(str(dim).startswith("phony"), f"{stem}: {group} {dim}")
+        with xarray.open_dataset(self.files["half_wave_dipole_ism"], engine="h5netcdf", group="pattern") as ds:
+            self.assertEqual(set(ds["gain_dbi"].dims), {"frequency", "theta", "phi"})
+            self.assertEqual(float(ds["theta"][0]), 0.0)
+
+    def test_reader_package_labels_a_run(self):
+        run = lobe.load(self.files["crossed_dipole_gnss"])
+        vswr = run["ports/vswr"].sel(port="a")
+        self.assertEqual(vswr.dims, ("frequency",))
+        self.assertEqual(vswr.shape, run.frequency_hz.shape)
+        gain = run["pattern/gain_dbi"]
+        cut = gain.sel(frequency=gain.coords["frequency"][0], phi=0.0)
+        self.assertEqual(cut.dims, ("theta",))
+        # |S11| in dB from the stored complex S11 agrees with the stored return loss.
+        np.testing.assert_allclose(-run.s11_db("a").values, run["ports/return_loss_db"].sel(port="a").values, rtol=1e-9)
+        frame = run["ports/impedance_ohm"].to_pandas()
+        self.assertEqual(list(frame.columns), ["a", "b"])
+        self.assertEqual(frame.index.name, "frequency")
+
+    def test_three_lines_in_a_notebook(self):
+        run = lobe.load(self.files["ground_plane_433"])
+        series = run["ports/vswr"].sel(port="feed").to_pandas()
+        self.assertEqual(series.index.name, "frequency")
+        self.assertEqual(len(series), 31)
+
+    def test_the_example_plots(self):
+        picture = SCRATCH / "example.png"
+        subprocess.run(["/usr/bin/python3", str(SOURCE / "python/examples/plot_s11_and_pattern.py"),
+                        str(self.files["ground_plane_433"]), str(picture)], check=True, env=os.environ)
+        self.assertEqual(picture.read_bytes()[:8], b"\x89PNG\r\n\x1a\n")
+
+
+class SweepFile(unittest.TestCase):
+    """A sweep's file: the case table and stacked arrays [case, frequency, port] beside the
+    cases' groups, equal to them."""
+
+    @classmethod
+    def setUpClass(cls):
+        cls.path = SCRATCH / "sweep.h5"
+        subprocess.run([LOBE, "sweep", str(SOURCE / "models/ground_plane_433.lobe"), "--vary", "droop=30:50:10",
+                        "-o", str(cls.path)], check=True, capture_output=True)
+
+    def test_stacked_arrays_equal_the_cases(self):
+        with h5py.File(self.path) as f:
+            self.assertEqual(f.attrs["format"], "lobe-sweep")
+            stacked = f["stacked/ports/vswr"]
+            self.assertEqual([d.label for d in stacked.dims], ["case", "frequency", "port"])
+            self.assertEqual(stacked.shape, (3, 31, 1))
+            for c in range(3):
+                np.testing.assert_array_equal(stacked[c], f[f"case-{c + 1:06d}/ports/vswr"][()])
+            np.testing.assert_array_equal(f["stacked/ports/s_matrix"][1], f["case-000002/ports/s_matrix"][()])
+            self.assertEqual(f["stacked/pattern/gain_dbi"].shape[0], 3)
+            self.assertEqual(f["stacked"].attrs["left_out"], "nothing")
+
+    def test_reader_package_labels_a_sweep(self):
+        sweep = lobe.load(self.path)
+        vswr = sweep["ports/vswr"]
+        self.assertEqual(vswr.dims, ("case", "frequency", "port"))
+        self.assertEqual(sweep.variables, ["droop"])
+        np.testing.assert_allclose(np.degrees(sweep.values().sel(variable="droop").values), [30, 40, 50])
+        np.testing.assert_array_equal(sweep.case(2)["ports/vswr"].values, vswr.isel(case=2).values)
+        self.assertEqual(sweep.case_table().shape, (3, 1))
+        self.assertEqual(vswr.to_xarray().sel(case="case-000001").shape, (31, 1))
+
+
+class Refusals(unittest.TestCase):
+    def test_newer_major_and_missing_version_are_refused(self):
+        source = run_model(SOURCE / "models/half_wave_dipole_ism.lobe")
+        for version, message in (("2.0", "newer than this reader"), (None, "no format_version")):
+            copy = SCRATCH / f"version-{version}.h5"
+            shutil.copy(source, copy)
+            with h5py.File(copy, "a") as f:
+                if version is None:
+                    del f.attrs["format_version"]
+                else:
+                    f.attrs["format_version"] = version
+            with self.assertRaisesRegex(lobe.FormatError, message):
+                lobe.load(copy)
+            # lobe itself refuses it too, as bad input (exit code 2).
+            done = subprocess.run([LOBE, "export", "--touchstone", str(copy), "-o", str(SCRATCH / "x.s1p")], capture_output=True, text=True)
+            self.assertEqual(done.returncode, 2, done.stderr)
+            self.assertIn(message.replace("this reader", "this lobe"), done.stderr)
+
+
+if __name__ == "__main__":
+    unittest.main()
