@@ -57,6 +57,7 @@ struct CompareOptions {
   std::vector<std::string> band_options;  ///< LOW:HIGH; none: the overlap of the two curves
   std::optional<double> tx_power_w;       ///< forward power for reflected-power figures
   std::string case_name;                  ///< for a sweep file: the case to compare
+  bool json = false;                      ///< the comparison as JSON on standard output, the text on standard error
 };
 
 /// The group of `path` to read results from: "" for a run's file, "/case-NNNNNN" for the
@@ -111,6 +112,7 @@ MeasuredCurve read_measured(const std::string& path, Real reference_ohm, const s
 struct SweepOptions {
   SweepRequest study;  ///< the model, the varied and fixed values, the output, the ranking
   int threads = 0;
+  bool json = false;   ///< the summary as JSON on standard output (cli/sweep_json.hpp), the rest on standard error
 };
 
 struct BenchOptions {

@@ -163,6 +163,9 @@ int main(int argc, char** argv) {
   compare_app->add_option("--band", compare.band_options, "A band to report: LOW:HIGH (repeatable; default: the overlap)")
       ->allow_extra_args(false);
   compare_app->add_option("--case", compare.case_name, "For a sweep file: the case to compare, e.g. case-000003");
+  compare_app->add_flag("--json", compare.json,
+                        "Print the comparison as JSON on standard output (schema lobe-compare-summary, version 1); the "
+                        "text goes to standard error");
   compare_app->add_option("--tx-power", compare.tx_power_w, "Transmitter forward power in W: the worst reflected power")
       ->check(transmit_power);
 
@@ -216,6 +219,9 @@ int main(int argc, char** argv) {
   bool sweep_every_frequency = false;
   sweep_app->add_flag("--every-frequency", sweep_every_frequency,
                       "Solve every frequency of every case in full (default: long ranges adaptively)");
+  sweep_app->add_flag("--json", sweep.json,
+                      "Print the case table, each case's band figures and the ranking as JSON on standard output "
+                      "(schema lobe-sweep-summary, version 1); everything else goes to standard error");
 
   lobe::cli::TuneOptions tune;
   auto* tune_app = app.add_subcommand("tune", "Search let values for the best band figures, within limits; write the tuned model");

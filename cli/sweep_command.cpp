@@ -7,6 +7,7 @@
 #include "cli/interrupt.hpp"
 #include "cli/progress_line.hpp"
 #include "cli/standard_output.hpp"
+#include "cli/sweep_json.hpp"
 #include "core/formatted_text.hpp"
 #include "post/run_summary.hpp"
 #include "post/sweep_file.hpp"
@@ -19,26 +20,26 @@ namespace {
 
 /// The best cases, best first: the goal's value, whether each meets the limits and by how
 /// much the others miss, and a warning when the best lies on the edge of the grid.
-void print_ranking(const PreparedSweep& sweep, const std::vector<RankedCase>& ranked) {
+void print_ranking(std::FILE* out, const PreparedSweep& sweep, const std::vector<RankedCase>& ranked) {
   const DesignGoal& goal = *sweep.goal;
   const std::string goal_text = goal.single() ? band_figure_title(goal.terms.front().figure) : goal.text + " (minimised)";
-  std::printf("\nbest cases by %s over %s (%s to %s), first port", goal_text.c_str(), sweep.band->name.c_str(),
+  std::fprintf(out, "\nbest cases by %s over %s (%s to %s), first port", goal_text.c_str(), sweep.band->name.c_str(),
               frequency_text(sweep.band->low_hz).c_str(), frequency_text(sweep.band->high_hz).c_str());
   if (!sweep.limits.empty()) {
     std::string limits;
     for (const auto& l : sweep.limits) limits += (limits.empty() ? "" : ", ") + l.text;
     const auto meeting = std::count_if(ranked.begin(), ranked.end(), [](const RankedCase& r) { return r.judgement.meets(); });
-    std::printf(", subject to %s: %zu of %zu cases meet them", limits.c_str(), static_cast<std::size_t>(meeting), ranked.size());
+    std::fprintf(out, ", subject to %s: %zu of %zu cases meet them", limits.c_str(), static_cast<std::size_t>(meeting), ranked.size());
   }
-  std::printf(":\n");
+  std::fprintf(out, ":\n");
   for (std::size_t k = 0; k < std::min<std::size_t>(10, ranked.size()); ++k) {
     const Judgement& j = ranked[k].judgement;
     const std::string value = j.value ? formatted("%-10.4g", *j.value) : std::string("n/a       ");
-    std::printf("  %2zu. %s  %s", k + 1, case_name(ranked[k].index).c_str(), value.c_str());
+    std::fprintf(out, "  %2zu. %s  %s", k + 1, case_name(ranked[k].index).c_str(), value.c_str());
     for (std::size_t v = 0; v < sweep.grid.varied.size(); ++v)
-      std::printf("  %s = %s", sweep.grid.varied[v].name.c_str(), sweep.grid.labels[ranked[k].index][v].c_str());
-    if (!sweep.limits.empty()) std::printf("  %s", j.meets() ? "meets the limits" : misses_text(j, sweep.limits).c_str());
-    std::printf("\n");
+      std::fprintf(out, "  %s = %s", sweep.grid.varied[v].name.c_str(), sweep.grid.labels[ranked[k].index][v].c_str());
+    if (!sweep.limits.empty()) std::fprintf(out, "  %s", j.meets() ? "meets the limits" : misses_text(j, sweep.limits).c_str());
+    std::fprintf(out, "\n");
   }
   if (ranked.empty()) return;
   const SweepTable table{sweep.grid.names(), sweep.grid.values, sweep.grid.labels, sweep.values_si};
@@ -46,7 +47,7 @@ void print_ranking(const PreparedSweep& sweep, const std::vector<RankedCase>& ra
   if (!edge.empty()) {
     std::string names;
     for (const auto& n : edge) names += (names.empty() ? "" : ", ") + n;
-    std::printf("! the best case lies on the edge of the grid (%s): a better one may lie beyond; widen the range there\n",
+    std::fprintf(out, "! the best case lies on the edge of the grid (%s): a better one may lie beyond; widen the range there\n",
                 names.c_str());
   }
 }
@@ -90,10 +91,12 @@ int sweep_command(const SweepOptions& options) {
                  outcome.solved + outcome.skipped, sweep.grid.size(), sweep.case_directory.string().c_str());
     return 130;
   }
-  std::printf("%zu cases (%zu solved now, %zu from before) in %s\n", sweep.grid.size(), outcome.solved, outcome.skipped,
-              sweep.output.string().c_str());
-  if (!sweep.goal) return 0;
-  print_ranking(sweep, rank_sweep(sweep, outcome.case_files));
+  std::FILE* const text = options.json ? stderr : stdout;
+  std::fprintf(text, "%zu cases (%zu solved now, %zu from before) in %s\n", sweep.grid.size(), outcome.solved, outcome.skipped,
+               sweep.output.string().c_str());
+  const std::vector<RankedCase> ranked = sweep.goal ? rank_sweep(sweep, outcome.case_files) : std::vector<RankedCase>{};
+  if (sweep.goal) print_ranking(text, sweep, ranked);
+  if (options.json) std::fputs(sweep_summary_json(sweep, outcome, ranked).c_str(), stdout);
   return 0;
 }
 

@@ -1,6 +1,7 @@
-// lobe run --json: standard output is one JSON document and nothing else, it validates
-// against the schema in the repository (checked by python3-jsonschema, a general-purpose
-// validator from Debian), and its figures are the result file's.
+// --json on run, check, sweep and compare: standard output is one JSON document and nothing
+// else, it validates against its schema in the repository (checked by python3-jsonschema, a
+// general-purpose validator from Debian, with a newer schema version as the control), and
+// its figures are the result file's.
 #include <gtest/gtest.h>
 
 #include <nlohmann/json.hpp>
@@ -17,10 +18,12 @@ namespace {
 const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
 const std::string run_schema = std::string(LOBE_SOURCE_DIR) + "/post/run_summary.schema.json";
 const std::string check_schema = std::string(LOBE_SOURCE_DIR) + "/post/check_summary.schema.json";
+const std::string sweep_schema = std::string(LOBE_SOURCE_DIR) + "/post/sweep_summary.schema.json";
+const std::string compare_schema = std::string(LOBE_SOURCE_DIR) + "/post/compare_summary.schema.json";
 
 /// The exit status of validating the JSON file `document` against the schema.
 int validate(const std::filesystem::path& document, const std::string& schema = run_schema) {
-  const std::string command = "python3 -c 'import json, sys, jsonschema; "
+  const std::string command = "/usr/bin/python3 -c 'import json, sys, jsonschema; "
                               "jsonschema.validate(json.load(open(sys.argv[1])), json.load(open(sys.argv[2])))' '" +
                               document.string() + "' '" + schema + "' 2>/dev/null";
   return std::system(command.c_str());
@@ -88,6 +91,65 @@ TEST(JsonSummary, CheckDocumentValidatesAndCarriesTheWarnings) {
   newer["schema_version"] = 2;
   std::ofstream(dir / "newer.json") << newer.dump();
   EXPECT_NE(validate(dir / "newer.json", check_schema), 0);
+}
+
+/// `document` validates against `schema`, and the same with a newer schema_version does not.
+void expect_valid_with_control(const std::filesystem::path& dir, const nlohmann::json& document, const std::string& schema) {
+  std::ofstream(dir / "document.json") << document.dump();
+  EXPECT_EQ(validate(dir / "document.json", schema), 0);
+  auto newer = document;
+  newer["schema_version"] = 2;
+  std::ofstream(dir / "newer.json") << newer.dump();
+  EXPECT_NE(validate(dir / "newer.json", schema), 0);
+}
+
+// sweep --json: the case table, each case's band figures (those of the file's stacked band
+// figures) and the ranking with the limits met or missed.
+TEST(JsonSummary, SweepDocumentValidatesAndHoldsTheFileFigures) {
+  const auto dir = fresh_directory("json-sweep");
+  const auto output = dir / "gp.h5";
+  const ProcessResult r = run_lobe("sweep '" + models + "ground_plane_433.lobe' --vary droop=30:50:10 --rank worst-vswr "
+                                   "--limit 'worst-vswr<=1.1' --json -o '" + output.string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_NE(r.err.find("3 cases (3 solved now, 0 from before)"), std::string::npos) << r.err;
+  const auto doc = nlohmann::json::parse(r.out);
+  expect_valid_with_control(dir, doc, sweep_schema);
+  ASSERT_EQ(doc["cases"].size(), 3u);
+  EXPECT_EQ(doc["band"]["name"], "ism433");
+  const std::vector<Real> worst = dataset(output, "/stacked/band_figures/worst_vswr");  // [case, band, port]
+  ASSERT_EQ(worst.size(), 3u);
+  for (std::size_t c = 0; c < 3; ++c) EXPECT_DOUBLE_EQ(doc["cases"][c]["figures"]["worst-vswr"].get<double>(), worst[c]);
+  EXPECT_EQ(doc["cases"][1]["values"]["droop"]["label"], "40");
+  const auto& order = doc["ranking"]["order"];
+  ASSERT_EQ(order.size(), 3u);
+  EXPECT_EQ(order[0]["case"], "case-000002");  // 40 degrees of droop matches best
+  EXPECT_TRUE(order[0]["meets_limits"].get<bool>());
+  EXPECT_FALSE(order[2]["meets_limits"].get<bool>());
+}
+
+// compare --json: the dips, the frequency-scale estimate and the band's figures as the text
+// prints them.
+TEST(JsonSummary, CompareDocumentValidatesAndAgreesWithTheText) {
+  const auto dir = fresh_directory("json-compare");
+  const ProcessResult run = run_lobe("run '" + models + "ground_plane_433.lobe' -o '" + (dir / "out").string() + "'", dir);
+  ASSERT_EQ(run.exit_code, 0) << run.err;
+  const std::string command = "compare '" + (dir / "out" / "ground_plane_433.h5").string() + "' '" + models +
+                              "ground_plane_433_measured.csv' --band 433.05MHz:434.79MHz --tx-power 5";
+  const ProcessResult json = run_lobe(command + " --json", dir);
+  const ProcessResult text = run_lobe(command, dir);
+  ASSERT_EQ(json.exit_code, 0) << json.err;
+  const auto doc = nlohmann::json::parse(json.out);
+  expect_valid_with_control(dir, doc, compare_schema);
+  EXPECT_EQ(json.err, text.out);  // the text, unchanged, on standard error
+  const double scale = doc["frequency_scale"]["factor"].get<double>();
+  char printed[64];
+  std::snprintf(printed, sizeof printed, "best frequency-scale factor: %.4f", scale);
+  EXPECT_NE(text.out.find(printed), std::string::npos) << text.out;
+  std::snprintf(printed, sizeof printed, "RMS return-loss difference %.2f dB",
+                doc["bands"][0]["rms_return_loss_difference_db"].get<double>());
+  EXPECT_NE(text.out.find(printed), std::string::npos) << text.out;
+  EXPECT_EQ(doc["dips"]["pairs"].size(), 1u);
+  EXPECT_GT(doc["bands"][0]["reflected_power_w"]["measured"].get<double>(), 0.0);
 }
 
 }  // namespace
