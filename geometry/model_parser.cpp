@@ -3,6 +3,7 @@
 #include "core/number_text.hpp"
 
 #include <algorithm>
+#include <cctype>
 #include <cmath>
 #include <map>
 #include <set>
@@ -1224,7 +1225,10 @@ Band parse_band_option(const std::string& option, int index) {
       throw InputError(at, "a band edge is a frequency above zero with its unit, such as 2.4GHz");
     return q.value;
   };
-  Band band{"option-" + std::to_string(index), edge(option.substr(0, colon), 0), edge(option.substr(colon + 1), colon + 1)};
+  std::string name;
+  for (char ch : option)
+    if (!std::isspace(static_cast<unsigned char>(ch))) name += ch;
+  Band band{name, edge(option.substr(0, colon), 0), edge(option.substr(colon + 1), colon + 1)};
   if (band.high_hz <= band.low_hz)
     throw InputError({"--band", index, static_cast<int>(colon) + 2}, "the band's high edge must be above its low edge");
   return band;

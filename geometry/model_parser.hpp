@@ -65,7 +65,8 @@ struct TunedName {
 TunedName parse_tune_option(const std::string& option, int index);
 
 /// A band given on the command line as LOW:HIGH with frequency units ("2.4GHz:2.4835GHz"),
-/// named "option-INDEX". Errors are located at --band:INDEX:COLUMN.
+/// named by its limits as written, spaces left out ("2.4GHz:2.4835GHz"), so that a report
+/// says which band it means. Errors are located at --band:INDEX:COLUMN.
 Band parse_band_option(const std::string& option, int index);
 
 }  // namespace lobe

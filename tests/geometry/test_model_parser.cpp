@@ -137,6 +137,15 @@ TEST(ModelParser, ErrorsPointAtTheCause) {
 
 // Ranges override with exact SI texts but show their values in the unit START was written in.
 // The substrate statement as the issue writes it; the board lies on the ground plane.
+// A band from --band is named by its limits as the user wrote them (it was "option-1",
+// which a report reader could not place).
+TEST(ModelParser, BandOptionIsNamedByItsLimits) {
+  const Band band = parse_band_option("433.05MHz : 434.79 MHz", 1);
+  EXPECT_EQ(band.name, "433.05MHz:434.79MHz");
+  EXPECT_DOUBLE_EQ(band.low_hz, 433.05e6);
+  EXPECT_DOUBLE_EQ(band.high_hz, 434.79e6);
+}
+
 TEST(ModelParser, SubstrateStatement) {
   const std::string printed = "plate a rectangle corner (-10, -1, 1.6) size (20, 2)\n"
                               "port p on a along (0, -1, 1.6) to (0, 1, 1.6)\nfrequency 2.4 GHz\n";
