@@ -1,5 +1,6 @@
 #pragma once
-/// Meshes (and currents on them) as VTK XML unstructured grids (.vtu), readable by ParaView.
+/// Meshes (and currents on them) as VTK XML unstructured grids (.vtu), readable by ParaView:
+/// the structure as XML, the arrays appended after it as raw binary (full precision).
 #include <array>
 #include <filesystem>
 #include <string>
@@ -17,10 +18,6 @@ struct CellValues {
   std::vector<Real> values;
   int components = 1;
 };
-
-/// peak values.
-CellValues current_cells(Real frequency_hz, const std::vector<std::array<Complex, 2>>& segment_currents,
-                         const std::vector<Eigen::Vector3cd>& surface_currents);
 
 /// The current magnitude on every cell at one frequency, named "current_<frequency>":
 /// |I| in A on segments (mean of its two ends), |J| in A/m on triangles (at the centroid);

@@ -1,7 +1,7 @@
 // The 3-D views a run writes for ParaView: the currents and the whole-sphere pattern as one
 // file series over frequency (.pvd), each file well-formed VTK XML with the arrays the
-// README names, and the pattern surface drawn to its stated scale with its peak where the
-// beam is.
+// README names appended in binary, and the pattern surface drawn to its stated scale with
+// its peak where the beam is.
 #include <gtest/gtest.h>
 
 #include <cmath>
@@ -10,25 +10,13 @@
 
 #include "cli/run_process.hpp"
 #include "post/result_reader.hpp"
+#include "support/vtu_arrays.hpp"
 #include "support/xml_check.hpp"
 
 namespace lobe::testing {
 namespace {
 
 const std::string models = std::string(LOBE_SOURCE_DIR) + "/models/";
-
-/// The numbers of the DataArray named `name` (or of the <Points> array when `name` is empty).
-/// Found by plain search: std::regex recurses per character and overflows on long arrays.
-std::vector<double> data_array(const std::string& vtu, const std::string& name) {
-  const std::size_t tag = name.empty() ? vtu.find("<Points>") : vtu.find(" Name=\"" + name + "\"");
-  if (tag == std::string::npos) return {};
-  const std::size_t open = vtu.find('>', vtu.find("<DataArray", name.empty() ? tag : vtu.rfind("<DataArray", tag)));
-  const std::size_t close = vtu.find("</DataArray>", open);
-  std::istringstream in(vtu.substr(open + 1, close - open - 1));
-  std::vector<double> values;
-  for (double v; in >> v;) values.push_back(v);
-  return values;
-}
 
 int attribute(const std::string& text, const std::string& name) {
   std::smatch m;
@@ -52,14 +40,14 @@ TEST(Views, CurrentsAndPatternAreSeriesOverFrequency) {
       ASSERT_LT(k, beam.frequency_hz.size());
       EXPECT_NEAR(std::stod((*m)[1]), beam.frequency_hz[k] / 1e6, 1e-6) << series;
       const std::string vtu = read_text(out / (*m)[2].str());
-      ASSERT_EQ(xml_error(vtu), "") << (*m)[2];
+      ASSERT_EQ(xml_error(vtu_structure(vtu)), "") << (*m)[2];
       if (series == "currents") {
         const int cells = attribute(vtu, "NumberOfCells");
         ASSERT_GT(cells, 0);
-        EXPECT_EQ(data_array(vtu, "line_current_a").size(), static_cast<std::size_t>(cells));
-        EXPECT_EQ(data_array(vtu, "surface_current_a_per_m").size(), static_cast<std::size_t>(cells));
-        EXPECT_EQ(data_array(vtu, "current_re").size(), 3u * cells);
-        EXPECT_EQ(data_array(vtu, "current_im").size(), 3u * cells);
+        EXPECT_EQ(vtu_array(vtu, "line_current_a").size(), static_cast<std::size_t>(cells));
+        EXPECT_EQ(vtu_array(vtu, "surface_current_a_per_m").size(), static_cast<std::size_t>(cells));
+        EXPECT_EQ(vtu_array(vtu, "current_re").size(), 3u * cells);
+        EXPECT_EQ(vtu_array(vtu, "current_im").size(), 3u * cells);
       }
     }
     EXPECT_EQ(k, beam.frequency_hz.size()) << series;
@@ -68,11 +56,11 @@ TEST(Views, CurrentsAndPatternAreSeriesOverFrequency) {
   // distance from the centre that grows with the gain as stated (2 % of the full radius at
   // 40 dB below the peak, all of it at the peak), the farthest point where the beam is.
   const std::string vtu = read_text(out / "crossed_dipole_reflector_137_pattern_3d_000.vtu");
-  const auto points = data_array(vtu, ""), gain = data_array(vtu, "gain_dbi");
+  const auto points = vtu_array(vtu, ""), gain = vtu_array(vtu, "gain_dbi");
   ASSERT_EQ(gain.size(), 37u * 72u);
   ASSERT_EQ(points.size(), 3 * gain.size());
   for (const char* name : {"rhcp_dbi", "lhcp_dbi", "axial_ratio_db", "realized_gain_dbi"})
-    EXPECT_EQ(data_array(vtu, name).size(), gain.size()) << name;
+    EXPECT_EQ(vtu_array(vtu, name).size(), gain.size()) << name;
   std::size_t top = 0;
   for (std::size_t i = 1; i < gain.size(); ++i)
     if (gain[i] > gain[top]) top = i;

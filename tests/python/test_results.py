@@ -1,5 +1,5 @@
 """lobe's HDF5 layout as the tools of notebook users see it (h5py, xarray, pandas, all from
-Debian) and the Python reader package in python/lobe.
+Debian), the Python reader package in python/lobe, and the 3-D views as VTK reads them.
 
 Environment: LOBE (the executable), LOBE_SOURCE_DIR (the repository); python/ on PYTHONPATH.
 """
@@ -168,6 +168,48 @@ class SweepFile(unittest.TestCase):
         np.testing.assert_array_equal(sweep.case(2)["ports/vswr"].values, vswr.isel(case=2).values)
         self.assertEqual(sweep.case_table().shape, (3, 1))
         self.assertEqual(vswr.to_xarray().sel(case="case-000001").shape, (31, 1))
+
+
+class ViewFiles(unittest.TestCase):
+    """The 3-D views (run --views) read by VTK itself (Debian's python3-vtk9): the .pvd
+    series names one grid per frequency, and each grid's binary arrays hold the currents of
+    the HDF5 file."""
+
+    def test_vtk_reads_the_series_and_its_currents_match_the_result(self):
+        import xml.etree.ElementTree as ET
+
+        import vtk
+        from vtk.util.numpy_support import vtk_to_numpy
+
+        model = SOURCE / "models/crossed_dipole_reflector_137.lobe"
+        result = run_model(model, "--views")
+        folder = result.parent
+        steps = ET.parse(folder / f"{model.stem}_currents.pvd").getroot().findall("./Collection/DataSet")
+        with h5py.File(result) as f:
+            frequency = f["frequency"][()]
+            start, end = f["currents/start_current_a"][()], f["currents/end_current_a"][()]
+            density = f["currents/surface_density_a_per_m"][()]
+        self.assertEqual(len(steps), len(frequency))
+        for k, step in enumerate(steps):
+            self.assertAlmostEqual(float(step.get("timestep")), frequency[k] / 1e6, places=6)
+            reader = vtk.vtkXMLUnstructuredGridReader()
+            reader.SetFileName(str(folder / step.get("file")))
+            reader.Update()
+            grid = reader.GetOutput()
+            segments, triangles = start.shape[1], density.shape[1]
+            self.assertEqual(grid.GetNumberOfCells(), segments + triangles)
+            cells = grid.GetCellData()
+            line = vtk_to_numpy(cells.GetArray("line_current_a"))
+            surface = vtk_to_numpy(cells.GetArray("surface_current_a_per_m"))
+            np.testing.assert_allclose(line[:segments], 0.5 * (abs(start[k]) + abs(end[k])), rtol=1e-12)
+            np.testing.assert_allclose(surface[segments:], np.linalg.norm(density[k], axis=1), rtol=1e-12)
+            self.assertEqual(vtk_to_numpy(cells.GetArray("current_re")).shape, (segments + triangles, 3))
+        reader = vtk.vtkXMLUnstructuredGridReader()
+        reader.SetFileName(str(folder / f"{model.stem}_pattern_3d_000.vtu"))
+        reader.Update()
+        gain = vtk_to_numpy(reader.GetOutput().GetPointData().GetArray("gain_dbi"))
+        with h5py.File(result) as f:
+            self.assertAlmostEqual(gain.max(), f["beam/gain_dbi"][0], delta=0.01)
 
 
 class Refusals(unittest.TestCase):
