@@ -110,9 +110,14 @@ int check_command(const std::string& model_path, const std::vector<std::string>&
   require_solvable(problem);
   std::printf("dense matrices: %.3g MiB per frequency\n",
               static_cast<double>(system_matrix_bytes(static_cast<std::uint64_t>(problem.unknowns()))) / (1 << 20));
-  std::printf("%s from %s to %s; ground %s; %s\n", count_text(model.frequencies_hz.size(), "frequency", "frequencies").c_str(),
-              frequency_text(model.frequencies_hz.front()).c_str(), frequency_text(model.highest_frequency()).c_str(),
-              problem.medium.name().c_str(), count_text(problem.mesh.warnings.size() + problem.surfaces.warnings.size(), "warning").c_str());
+  // One frequency is named, not given as a range from itself to itself.
+  const std::string frequencies =
+      model.frequencies_hz.size() == 1
+          ? "1 frequency, " + frequency_text(model.frequencies_hz.front())
+          : count_text(model.frequencies_hz.size(), "frequency", "frequencies") + " from " +
+                frequency_text(model.frequencies_hz.front()) + " to " + frequency_text(model.highest_frequency());
+  std::printf("%s; ground %s; %s\n", frequencies.c_str(), problem.medium.name().c_str(),
+              count_text(problem.mesh.warnings.size() + problem.surfaces.warnings.size(), "warning").c_str());
   if (const auto& board = model.substrate)
     std::printf("substrate %s: %.4g mm thick, relative permittivity %.4g, loss tangent %.4g, modelled as an infinite "
                 "board on an infinite ground\n",

@@ -56,7 +56,7 @@ Json dips_json(const std::vector<Resonance>& simulated, const std::vector<Resona
 }
 
 std::string band_line(const char* label, const PortBandReport& r) {
-  return formatted("  %-10s VSWR best %.3g at %s, mean %.3g, worst %.3g at %s; %s\n", label, r.lowest_vswr.value,
+  return formatted("  %-10s VSWR best %.2f at %s, mean %.2f, worst %.2f at %s; %s\n", label, r.lowest_vswr.value,
                    frequency_text(r.lowest_vswr.frequency_hz).c_str(), r.mean_vswr, r.highest_vswr.value,
                    frequency_text(r.highest_vswr.frequency_hz).c_str(), share_within_text(r).c_str());
 }

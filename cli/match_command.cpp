@@ -23,7 +23,7 @@ std::string parts_text(const std::vector<MatchPart>& parts) {
 }
 
 std::string report_line(const PortBandReport& r) {
-  return formatted("worst VSWR %.3g at %s, mean %.3g, mean mismatch loss %.2f dB; %s",
+  return formatted("worst VSWR %.2f at %s, mean %.2f, mean mismatch loss %.2f dB; %s",
                    r.highest_vswr.value, frequency_text(r.highest_vswr.frequency_hz).c_str(), r.mean_vswr,
                    r.mean_mismatch_loss_db, share_within_text(r).c_str());
 }
@@ -90,7 +90,7 @@ int match_command(const MatchOptions& options) {
   std::fprintf(text, "antenna alone: %s\n\n", report_line(unmatched_report(request)).c_str());
   std::fprintf(text, "%-13s %12s %12s %11s  %s\n", "network", "worst VSWR", "as built", "mean VSWR", "parts as built, from the antenna");
   for (const MatchDesign& d : designs)
-    std::fprintf(text, "%-13s %12.3g %12.3g %11.3g  %s\n", d.topology.c_str(), d.designed_report.highest_vswr.value,
+    std::fprintf(text, "%-13s %12.2f %12.2f %11.2f  %s\n", d.topology.c_str(), d.designed_report.highest_vswr.value,
                 d.built_report.highest_vswr.value, d.built_report.mean_vswr, parts_text(d.built).c_str());
   std::fprintf(text, "\n(inductors and capacitors: %s values; lines and stubs: %.6g ohm, velocity factor %.3g, to 0.1 mm)\n",
               options.series.c_str(), request.reference_ohm, request.velocity_factor);

@@ -15,8 +15,9 @@
 namespace lobe::cli {
 namespace {
 
-/// A figure's value for a table cell: three significant digits, or "n/a".
-std::string cell(const std::optional<Real>& value) { return value ? formatted("%.3g", *value) : std::string("n/a"); }
+/// A figure's value for a table cell: two decimals in every row, so a column lines up and
+/// 1.50 is not shown as 1.5 beside 1.53; or "n/a".
+std::string cell(const std::optional<Real>& value) { return value ? formatted("%.2f", *value) : std::string("n/a"); }
 
 /// The summary section of a single result, as the run printed it.
 ReportSection summary_section(const std::filesystem::path& path) {

@@ -7,6 +7,7 @@
 #include <sstream>
 
 #include "core/constants.hpp"
+#include "core/number_text.hpp"
 #include "geometry/spatial_grid.hpp"
 #include "geometry/surface_contact.hpp"
 #include "geometry/wire_path.hpp"
@@ -453,13 +454,13 @@ class Mesher {
       // misplace: its radius is held to under half the board's thickness instead.
       if (ratio < thin_wire_ratio && !warned_short[s.wire] && !m_model.substrate) {
         warned_short[s.wire] = true;
-        warn(wire.where, "wire '" + wire.name + "': a segment is only " + format(ratio) +
+        warn(wire.where, "wire '" + wire.name + "': a segment is only " + beside_limit(ratio, thin_wire_ratio) +
                              " radii long; below " + format(thin_wire_ratio) +
                              " the thin-wire approximation degrades (use fewer segments or a thinner wire)");
       }
       if (s.length() > longest_segment_wavelengths * wavelength && !warned_long[s.wire]) {
         warned_long[s.wire] = true;
-        warn(wire.where, "wire '" + wire.name + "': a segment is " + format(s.length() / wavelength) +
+        warn(wire.where, "wire '" + wire.name + "': a segment is " + beside_limit(s.length() / wavelength, longest_segment_wavelengths) +
                              " wavelengths long at the highest frequency; keep segments under " +
                              format(longest_segment_wavelengths));
       }

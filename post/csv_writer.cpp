@@ -83,17 +83,23 @@ void write_pattern_csv(const std::filesystem::path& path, const RunRecord& run) 
 
 void write_currents_csv(const std::filesystem::path& path, const RunRecord& run) {
   File file = open_for_writing(path);
-  std::fprintf(file.get(), "frequency_hz,segment,wire,x_m,y_m,z_m,current_re_a,current_im_a,current_magnitude_a\n");
+  // What a builder looks for first: which wire, how far along it, how much current and its
+  // phase; then the complex parts and where the segment is.
+  std::fprintf(file.get(), "frequency_hz,wire,segment,distance_m,magnitude_a,phase_deg,real_a,imaginary_a,x_m,y_m,z_m\n");
   const auto& mesh = run.problem.mesh;
-  for (const auto& r : run.results)
+  const std::vector<Real> distances = distances_along_wires(mesh);
+  for (const auto& r : run.results) {
+    int on_wire = 0;
     for (std::size_t s = 0; s < mesh.segments.size(); ++s) {
       const Segment& seg = mesh.segments[s];
+      on_wire = s > 0 && mesh.segments[s - 1].wire == seg.wire ? on_wire + 1 : 1;
       const Vec3 m = seg.midpoint();
       const Complex c = 0.5 * (r.segment_currents[s][0] + r.segment_currents[s][1]);
-      std::fprintf(file.get(), "%.10g,%zu,%s,%.9g,%.9g,%.9g,%.9g,%.9g,%.9g\n", r.frequency_hz, s,
-                   run.problem.model.wires[seg.wire].name.c_str(), m.x(), m.y(), m.z(), c.real(), c.imag(),
-                   std::abs(c));
+      std::fprintf(file.get(), "%.10g,%s,%d,%.9g,%.9g,%.4f,%.9g,%.9g,%.9g,%.9g,%.9g\n", r.frequency_hz,
+                   run.problem.model.wires[seg.wire].name.c_str(), on_wire, distances[s], std::abs(c),
+                   std::arg(c) * degrees, c.real(), c.imag(), m.x(), m.y(), m.z());
     }
+  }
   finish(file, path);
 }
 

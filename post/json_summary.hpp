@@ -10,7 +10,7 @@ namespace lobe {
 /// The schema's name and version, written into every document; a reader refuses a newer
 /// major version.
 constexpr const char* run_summary_schema = "lobe-run-summary";
-constexpr int run_summary_schema_version = 1;
+constexpr int run_summary_schema_version = 2;
 
 /// Per frequency: each port's impedance, VSWR and return loss, and the beam's figures; per
 /// band (the model's and --band's): each port's match figures and each beam figure at the

@@ -26,11 +26,11 @@ Hand polarization_hand(const CircularComponents& c) {
 
 const char* hand_name(Hand hand) {
   switch (hand) {
-    case Hand::right: return "right";
-    case Hand::left: return "left";
-    case Hand::linear: return "linear";
+    case Hand::right: return "right-hand";
+    case Hand::left: return "left-hand";
+    case Hand::linear: return "not circular";
   }
-  return "linear";
+  return "not circular";
 }
 
 }  // namespace lobe

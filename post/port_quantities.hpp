@@ -12,6 +12,11 @@ constexpr Real vswr_ceiling = 1e9;
 constexpr Real return_loss_ceiling_db = 300.0;
 
 /// Γ = (Z − Z0)/(Z + Z0) for a real reference Z0.
+/// A coupling |S_ij| below this (1e-10) is the solve's rounding, not a coupling: a dense
+/// factorisation leaves relative residuals of 1e-15 to 1e-13, and two orthogonal dipoles
+/// printed |S21| of −315 dB. Couplings below it are written as "below −200 dB".
+constexpr Real coupling_floor_db = -200.0;
+
 Complex reflection_coefficient(Complex impedance, Real reference_ohm);
 /// (1 + |Γ|)/(1 − |Γ|), at most vswr_ceiling.
 Real vswr_from_reflection(Real magnitude);

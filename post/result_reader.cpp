@@ -176,7 +176,7 @@ BandFigures read_result_band_figures(const std::filesystem::path& path, const st
   const NetworkData network = read_result_network(path, group);
   ReflectionCurve curve{network.frequency_hz, {}};
   for (const auto& s : network.s) curve.reflection.push_back(s(0, 0));
-  const BeamCurves beam = with_beam ? read_result_beam(path, group) : BeamCurves{network.frequency_hz, {}};
+  const BeamCurves beam = with_beam ? read_result_beam(path, group) : BeamCurves{network.frequency_hz, {}, {}, {}};
   return band_figures(curve, beam, band.low_hz, band.high_hz);
 }
 

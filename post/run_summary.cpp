@@ -71,7 +71,7 @@ std::string beam_band_text(const RunRecord& run, const Band& band) {
       return v >= no_half_power_deg ? std::string("omni (no half-power point)") : formatted(format, v);
     };
     const std::string centre = text(f.centre), extreme = text(best ? f.best : f.worst);
-    out += formatted("  %-15s %s at the centre, %s %s at %s\n", label, centre.c_str(), extreme_word, extreme.c_str(),
+    out += formatted("  %-15s %s at the centre, %s in the band %s at %s\n", label, centre.c_str(), extreme_word, extreme.c_str(),
                      frequency_text(best ? f.best_hz : f.worst_hz).c_str());
   };
   line("gain", "gain", "%.2f dBi", "lowest");
@@ -98,6 +98,31 @@ std::string beam_band_text(const RunRecord& run, const Band& band) {
   return out;
 }
 
+/// Between every two ports, the highest coupling |S_ij| at the computed frequencies in the
+/// band (each port driven alone), floored at coupling_floor_db where it is rounding.
+std::string coupling_text(const Model& model, const std::vector<const FrequencyResult*>& inside) {
+  std::string out;
+  if (inside.empty()) return out;
+  const std::size_t np = model.ports.size();
+  for (std::size_t i = 0; i < np; ++i)
+    for (std::size_t j = i + 1; j < np; ++j) {
+      Real highest = 0.0, at = inside.front()->frequency_hz;
+      for (const FrequencyResult* r : inside) {
+        const Real s = std::max(std::abs(r->s_matrix(i, j)), std::abs(r->s_matrix(j, i)));
+        if (s > highest) highest = s, at = r->frequency_hz;
+      }
+      const std::string label = model.ports[i].name + "-" + model.ports[j].name;
+      const Real db = highest > 0.0 ? 20 * std::log10(highest) : -1e300;
+      if (db < coupling_floor_db)
+        out += formatted("  coupling %-6s below %.0f dB at every computed frequency: none beyond the solve's rounding\n",
+                         label.c_str(), coupling_floor_db);
+      else
+        out += formatted("  coupling %-6s highest in the band %.1f dB (|S| between them, each driven alone) at %s\n",
+                         label.c_str(), db, frequency_text(at).c_str());
+    }
+  return out;
+}
+
 /// The band's match per port (band_report) and the beam's figures at the band centre and
 /// at their worst over the band (beam_band_text).
 std::string band_text(const RunRecord& run, const Band& band) {
@@ -114,7 +139,7 @@ std::string band_text(const RunRecord& run, const Band& band) {
   out += "; between them the match is interpolated\n";
   for (std::size_t p = 0; p < model.ports.size(); ++p) {
     const PortBandReport b = band_report(port_reflection_curve(run.results, p), band.low_hz, band.high_hz, vswr_caution_threshold);
-    out += formatted("  port %-10s VSWR best %.3g at %s, mean %.3g, worst %.3g at %s; mean mismatch loss %.2f dB\n",
+    out += formatted("  port %-10s VSWR best %.2f at %s, mean %.2f, worst %.2f at %s; mean mismatch loss %.2f dB\n",
                          model.ports[p].name.c_str(), b.lowest_vswr.value, frequency_text(b.lowest_vswr.frequency_hz).c_str(),
                          b.mean_vswr, b.highest_vswr.value, frequency_text(b.highest_vswr.frequency_hz).c_str(),
                          b.mean_mismatch_loss_db);
@@ -126,6 +151,7 @@ std::string band_text(const RunRecord& run, const Band& band) {
     else
       out += "return loss stays under 10 dB\n";
   }
+  out += coupling_text(model, inside);
   out += beam_band_text(run, band);
   return out;
 }
@@ -171,7 +197,7 @@ std::string antenna_ends_text(const RunRecord& run) {
   for (const auto& r : run.results)
     for (std::size_t k = 0; k < r.antenna_ends.size(); ++k) {
       const PortResult& end = r.antenna_ends[k];
-      out += formatted("%-14s %-16s %10.2f %+10.2f %9.3g %8.2f\n", frequency_text(r.frequency_hz).c_str(),
+      out += formatted("%-14s %-16s %10.2f %+10.2f %9.2f %8.2f\n", frequency_text(r.frequency_hz).c_str(),
                        network.terminals()[ends[k]].label.c_str(), end.impedance.real(), end.impedance.imag(), end.vswr,
                        end.return_loss_db);
     }
@@ -193,11 +219,15 @@ std::string count_text(std::size_t count, const std::string& noun, const std::st
 std::string run_summary(const RunRecord& run) {
   const Model& model = run.problem.model;
   std::string out;
+  const auto driven = std::count_if(model.ports.begin(), model.ports.end(), [](const Port& p) { return p.voltage != 0.0; });
+  if (driven > 1)
+    out += "active impedances: every driven port driven at once, as the model drives them (each port alone: the Z and S "
+           "matrices in the HDF5 file)\n";
   out += formatted("%-14s %-10s %10s %10s %9s %8s\n", "frequency", "port", "R (ohm)", "X (ohm)", "VSWR", "RL (dB)");
   for (const auto& r : run.results)
     for (std::size_t p = 0; p < r.ports.size(); ++p) {
       const PortResult& port = r.ports[p];
-      out += formatted("%-14s %-10s %10.2f %+10.2f %9.3g %8.2f%s\n", frequency_text(r.frequency_hz).c_str(),
+      out += formatted("%-14s %-10s %10.2f %+10.2f %9.2f %8.2f%s\n", frequency_text(r.frequency_hz).c_str(),
                            model.ports[p].name.c_str(), port.impedance.real(), port.impedance.imag(), port.vswr,
                            port.return_loss_db, port.driven ? "" : "  (0 V: self impedance)");
     }
@@ -209,7 +239,7 @@ std::string run_summary(const RunRecord& run) {
   const bool lines = std::any_of(run.results.begin(), run.results.end(),
                                  [](const FrequencyResult& r) { return r.power.line_loss > 0.0; });
   const bool soil = run.problem.medium.has_real_ground();
-  out += formatted("%-14s %10s %10s %15s %8s %8s %14s %10s%s%s%s\n", "frequency", "gain (dBi)", "realized", "at theta/phi",
+  out += formatted("%-14s %15s %15s %15s %8s %8s %14s %10s%s%s%s\n", "frequency", "peak gain (dBi)", "realized (dBi)", "peak at th/ph",
                    "F/B (dB)", "F/S (dB)", "HPBW th/ph", "efficiency", board ? "  surface waves  dielectric" : "",
                    soil ? "  into ground" : "", lines ? "  line loss (dB)" : "");
   for (const auto& r : run.results) {
@@ -222,7 +252,7 @@ std::string run_summary(const RunRecord& run) {
               : std::string();
     if (soil) losses += formatted(" %12.1f%%", 100.0 * r.power.ground_loss / accepted);
     if (lines) losses += formatted(" %15.2f", line_loss_db(r.power));
-    out += formatted("%-14s %10.2f %10.2f %15s %8s %8s %14s %9.1f%%%s%s\n", frequency_text(r.frequency_hz).c_str(),
+    out += formatted("%-14s %15.2f %15.2f %15s %8s %8s %14s %9.1f%%%s%s\n", frequency_text(r.frequency_hz).c_str(),
                      b.gain_dbi, b.realized_gain_dbi, direction.c_str(), optional_text(b.front_to_back_db, "%.1f").c_str(),
                      optional_text(b.front_to_side_db, "%.1f").c_str(), widths.c_str(), 100.0 * r.power.efficiency(),
                      losses.c_str(), std::abs(r.power.imbalance()) > power_balance_warning ? " !" : "");
@@ -231,14 +261,14 @@ std::string run_summary(const RunRecord& run) {
     out += "\npolarisation: linear " + polarization_place(run) + " at every frequency (axial ratio above " +
            formatted("%.0f", linear_axial_ratio_db) + " dB)\n";
   else
-    out += formatted("\n%-14s %15s %9s %7s %11s %11s %9s\n", "frequency",
+    out += formatted("\n%-14s %15s %9s %12s %11s %11s %9s\n", "frequency",
                      polarization_at_beam(run) ? "at the beam" : "toward th/ph", "AR (dB)", "hand", "RHCP (dBi)",
                      "LHCP (dBi)", "XPD (dB)");
   for (const auto& r : run.results) {
     if (linear_everywhere(run)) break;
     const PolarizationFigures& p = r.polarization;
     const std::string direction = formatted("%.0f/%.0f deg", p.toward.theta * 180 / pi, p.toward.phi * 180 / pi);
-    out += formatted("%-14s %15s %9.2f %7s %11.2f %11.2f %9.1f\n", frequency_text(r.frequency_hz).c_str(),
+    out += formatted("%-14s %15s %9.2f %12s %11.2f %11.2f %9.1f\n", frequency_text(r.frequency_hz).c_str(),
                      direction.c_str(), p.axial_ratio_db, hand_name(p.hand), p.rhcp_dbi, p.lhcp_dbi,
                      p.cross_polar_discrimination_db);
   }
@@ -282,7 +312,7 @@ std::string run_summary(const RunRecord& run) {
   out += "\nCautions:\n";
   if (worst > vswr_caution_threshold) {
     const Real gamma = (worst - 1.0) / (worst + 1.0);
-    out += formatted("  - VSWR reaches %.3g at %s: %.0f%% of the transmitter's power is reflected back toward it.\n"
+    out += formatted("  - VSWR reaches %.2f at %s: %.0f%% of the transmitter's power is reflected back toward it.\n"
                          "    A high VSWR can damage a transmitter's amplifier; check its rating before transmitting.\n",
                          worst, frequency_text(worst_hz).c_str(), 100.0 * gamma * gamma);
   }

@@ -13,6 +13,7 @@
 #include "core/formatted_text.hpp"
 #include "core/number_text.hpp"
 #include "core/text_file.hpp"
+#include "post/port_quantities.hpp"
 
 namespace lobe {
 namespace {
@@ -297,6 +298,9 @@ void write_touchstone(const std::filesystem::path& path, const NetworkData& data
                        : style.format == TouchstoneFormat::magnitude_angle ? "MA" : "DB";
   std::istringstream lines(comment);
   for (std::string line; std::getline(lines, line);) out << "! " << line << '\n';
+  if (style.format == TouchstoneFormat::decibel_angle)
+    out << "! magnitudes below " << coupling_floor_db << " dB (the solve's rounding, not a coupling) are written as "
+        << coupling_floor_db << " dB\n";
   if (style.version == 2) out << "[Version] 2.0\n";
   out << "# " << unit << " S " << format << " R " << exact_text(data.reference_ohm) << '\n';
   if (style.version == 2) {
@@ -310,7 +314,8 @@ void write_touchstone(const std::filesystem::path& path, const NetworkData& data
       case TouchstoneFormat::magnitude_angle:
         return " " + exact_text(std::abs(v)) + " " + exact_text(std::arg(v) * 180 / pi);
       case TouchstoneFormat::decibel_angle:
-        return " " + exact_text(20 * std::log10(std::abs(v))) + " " + exact_text(std::arg(v) * 180 / pi);
+        return " " + exact_text(std::max(coupling_floor_db, 20 * std::log10(std::abs(v)))) + " " +
+               exact_text(std::arg(v) * 180 / pi);
     }
     return std::string();
   };

@@ -22,9 +22,11 @@ class AppendedData {
   template <class T>
   std::string array(const char* type, const std::string& name, const std::vector<T>& values, int components = 1) {
     static_assert(std::endian::native == std::endian::little, "VTK files are written little-endian");
-    std::string element = "        <DataArray type=\"" + std::string(type) + "\"" + (name.empty() ? "" : " Name=\"" + name + "\"") +
-                          " NumberOfComponents=\"" + std::to_string(components) + "\" format=\"appended\" offset=\"" +
-                          std::to_string(m_bytes.size()) + "\"/>\n";
+    std::string element = "        <DataArray type=\"";
+    element.append(type).append("\"");
+    if (!name.empty()) element.append(" Name=\"").append(name).append("\"");
+    element.append(" NumberOfComponents=\"").append(std::to_string(components)).append("\" format=\"appended\" offset=\"");
+    element.append(std::to_string(m_bytes.size())).append("\"/>\n");
     const std::uint64_t size = values.size() * sizeof(T);
     m_bytes.append(reinterpret_cast<const char*>(&size), sizeof size);
     m_bytes.append(reinterpret_cast<const char*>(values.data()), size);

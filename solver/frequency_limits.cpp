@@ -5,6 +5,7 @@
 
 #include "core/constants.hpp"
 #include "core/formatted_text.hpp"
+#include "core/number_text.hpp"
 #include "solver/gauss_legendre.hpp"
 
 namespace lobe {
@@ -69,10 +70,11 @@ std::vector<MeshWarning> check_frequency_limits(const Model& model, const Medium
                                          hz_text(*lowest).c_str(), extent * *lowest / speed_of_light,
                                          hz_text(small_electrical_size * speed_of_light / (2 * pi * extent)).c_str())});
   if (longest > longest_element_wavelengths * speed_of_light / *highest)
-    throw InputError(where, formatted("at %s an element of the mesh is %.3g wavelengths long; above half a wavelength "
+    throw InputError(where, formatted("at %s an element of the mesh is %s wavelengths long; above half a wavelength "
                                       "its basis cannot follow the current: give more segments or a finer mesh, or "
                                       "lower the highest frequency",
-                                      hz_text(*highest).c_str(), longest * *highest / speed_of_light));
+                                      hz_text(*highest).c_str(),
+                                      beside_limit(longest * *highest / speed_of_light, longest_element_wavelengths).c_str()));
   if (0.5 * k_high * extent > largest_phase_extent)
     throw InputError(where, formatted("at %s the model is %.3g wavelengths across, beyond the %.0f that the far-field "
                                       "integration handles; lower the highest frequency",

@@ -77,7 +77,7 @@ struct Evaluator {
       }
     });
     if (!whole) return std::nullopt;
-    const BeamCurves beam_values = beam ? beam_curves(results) : BeamCurves{model.frequencies_hz, {}};
+    const BeamCurves beam_values = beam ? beam_curves(results) : BeamCurves{model.frequencies_hz, {}, {}, {}};
     return band_figures(curve, beam_values, tuning.band.low_hz, tuning.band.high_hz);
   }
 
@@ -174,7 +174,7 @@ PreparedTuning prepare_tuning(const TuneRequest& request) {
 
 TuneOutcome execute_tuning(const PreparedTuning& tuning, const StudyControl& control) {
   const std::vector<TunedName>& tuned = tuning.tuned;
-  Evaluator evaluator{tuning, control, tuned};
+  Evaluator evaluator{tuning, control, tuned, 0, {}, {}, {}, {}, {}, {}};
   const bool limited = !tuning.limits.empty();
   nlopt::opt optimiser(limited ? nlopt::LN_COBYLA : nlopt::LN_BOBYQA, static_cast<unsigned>(tuned.size()));
   optimiser.set_lower_bounds(std::vector<double>(tuned.size(), 0.0));

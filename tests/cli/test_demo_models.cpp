@@ -187,6 +187,45 @@ TEST(DemoModels, GroundPlaneWithDroopingRadialsIsNearFiftyOhms) {
   for (const auto& r : band) EXPECT_LT(number(r, "vswr"), 1.5);
 }
 
+// The summary's labels say what they are: active impedances where several ports are driven,
+// the sense of rotation as right-hand, the peak column as peak gain, each band extreme as
+// the band's, VSWR with the same two decimals on every row, and the coupling of two
+// orthogonal dipoles (rounding, once printed as -315 dB) floored and named as none.
+TEST(DemoModels, SummaryLabelsSayWhatTheyAre) {
+  const DemoRun run = run_demo("crossed_dipole_gnss");
+  const std::string& text = run.summary;
+  EXPECT_NE(text.find("active impedances: every driven port driven at once"), std::string::npos) << text;
+  EXPECT_NE(text.find("peak gain (dBi)  realized (dBi)   peak at th/ph"), std::string::npos) << text;
+  EXPECT_NE(text.find("  right-hand  "), std::string::npos) << text;
+  EXPECT_NE(text.find("gain            2."), std::string::npos) << text;
+  EXPECT_NE(text.find("at the centre, lowest in the band"), std::string::npos) << text;
+  EXPECT_NE(text.find("coupling a-b    below -200 dB at every computed frequency: none beyond the solve's rounding"),
+            std::string::npos) << text;
+  std::size_t rows = 0;
+  std::istringstream lines(text);
+  for (std::string line; std::getline(lines, line);) {
+    std::istringstream fields(line);
+    std::string frequency, unit, port, r, x, vswr;
+    if (!(fields >> frequency >> unit >> port >> r >> x >> vswr) || unit != "GHz" || (port != "a" && port != "b")) continue;
+    ++rows;
+    const auto dot = vswr.find('.');
+    EXPECT_TRUE(dot != std::string::npos && vswr.size() - dot == 3) << line;
+  }
+  EXPECT_EQ(rows, 62u);  // 31 frequencies, 2 ports
+}
+
+// `check` names a single frequency instead of a range from it to itself.
+TEST(DemoModels, CheckNamesASingleFrequency) {
+  const auto dir = fresh_directory("check-one-frequency");
+  const auto model = dir / "one.lobe";
+  std::ofstream(model) << "wire w from (0,0,-0.25) to (0,0,0.25) radius 1 mm segments 11\nport p on w at middle\n"
+                          "frequency 3 GHz\n";
+  const ProcessResult r = run_lobe("check '" + model.string() + "'", dir);
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_NE(r.out.find("1 frequency, 3.0000 GHz; ground"), std::string::npos) << r.out;
+  EXPECT_EQ(r.out.find("from 3.0000 GHz to 3.0000 GHz"), std::string::npos) << r.out;
+}
+
 TEST(DemoModels, CrossedDipolesAreRightHandCircularUpward) {
   const DemoRun run = run_demo("crossed_dipole_gnss");
   const auto band = in_band(run.ports, 1574.4e6, 1576.4e6);
@@ -194,9 +233,9 @@ TEST(DemoModels, CrossedDipolesAreRightHandCircularUpward) {
   const double f = number(band.front(), "frequency_hz");
   for (const auto& r : band) EXPECT_LT(number(r, "vswr"), 2.0);
   const Row& zenith = direction(run.pattern, f, 0, 0);
-  EXPECT_EQ(zenith.at("hand"), "right");  // IEEE Std 145 hand, y fed 90° behind x
+  EXPECT_EQ(zenith.at("hand"), "right-hand");  // IEEE Std 145 hand, y fed 90° behind x
   EXPECT_LT(number(zenith, "axial_ratio_db"), 1.0);
-  EXPECT_EQ(direction(run.pattern, f, 180, 0).at("hand"), "left");
+  EXPECT_EQ(direction(run.pattern, f, 180, 0).at("hand"), "left-hand");
 }
 
 // Front-to-back ratio: the gain toward the beam over the gain straight behind it (free
@@ -257,7 +296,7 @@ TEST(DemoModels, HelixIsADirectionalRightHandBeam) {
   const DemoRun run = run_demo("helix_axial_2400");
   const double f = 2.425e9;
   const Row& axis = direction(run.pattern, f, 0, 0);
-  EXPECT_EQ(axis.at("hand"), "right");
+  EXPECT_EQ(axis.at("hand"), "right-hand");
   EXPECT_LT(number(axis, "axial_ratio_db"), 2.0);
   // An eight-turn helix 1.1 λ around gives about 11 to 12 dBi (common practice; Kraus's
   // 15 (C/λ)² N S/λ formula is known to promise more).
@@ -310,7 +349,7 @@ TEST(DemoModels, CircularlyPolarisedPatchIsRightHandedAtBroadside) {
   // A truncated-corner patch: under 3 dB axial ratio at its design frequency, the usual
   // limit for "circular" (common practice), with the hand its cut diagonal gives.
   EXPECT_LT(number(zenith, "axial_ratio_db"), 3.0);
-  EXPECT_EQ(zenith.at("hand"), "right");
+  EXPECT_EQ(zenith.at("hand"), "right-hand");
   EXPECT_GT(number(zenith, "rhcp_dbi") - number(zenith, "lhcp_dbi"), 15.0);
   // The band report judges the hand it radiates by its lowest gain and the other (the
   // cross-polar hand) by its highest: the largest LHCP gain over the band, from the file.
@@ -319,7 +358,7 @@ TEST(DemoModels, CircularlyPolarisedPatchIsRightHandedAtBroadside) {
   for (std::size_t k = 0; k < beam.frequency_hz.size(); ++k)
     if (beam.frequency_hz[k] >= 5.65e9 && beam.frequency_hz[k] <= 5.95e9)
       highest_lhcp = std::max(highest_lhcp, *beam.values.at("lhcp-gain")[k]);
-  EXPECT_NE(run.summary.find(formatted("highest %.2f dBi", highest_lhcp)), std::string::npos) << run.summary;
+  EXPECT_NE(run.summary.find(formatted("highest in the band %.2f dBi", highest_lhcp)), std::string::npos) << run.summary;
   const auto centre = std::find(beam.frequency_hz.begin(), beam.frequency_hz.end(), 5.8e9) - beam.frequency_hz.begin();
   EXPECT_NE(run.summary.find(formatted("  RHCP gain       %.2f dBi at the centre, lowest", *beam.values.at("rhcp-gain")[centre])),
             std::string::npos) << run.summary;
@@ -356,7 +395,7 @@ TEST(DemoModels, LaminateCpPatchIsRightHandedAtItsCentre) {
   const Row& zenith = direction(run.pattern, 5.8e9, 0, 0);
   // Under 3 dB axial ratio, the usual limit for "circular" (common practice), right-handed.
   EXPECT_LT(number(zenith, "axial_ratio_db"), 3.0);
-  EXPECT_EQ(zenith.at("hand"), "right");
+  EXPECT_EQ(zenith.at("hand"), "right-hand");
   EXPECT_GT(number(zenith, "rhcp_dbi") - number(zenith, "lhcp_dbi"), 15.0);
 }
 
@@ -397,7 +436,7 @@ TEST(DemoModels, CrossedDipolesOverAReflectorAreRightHandedOverhead) {
   const DemoRun run = run_demo("crossed_dipole_reflector_137");
   const Row& zenith = direction(run.pattern, 137.5e6, 0, 0);
   EXPECT_LT(number(zenith, "axial_ratio_db"), 1.0);
-  EXPECT_EQ(zenith.at("hand"), "right");
+  EXPECT_EQ(zenith.at("hand"), "right-hand");
   EXPECT_GT(number(zenith, "gain_dbi") - number(direction(run.pattern, 137.5e6, 180, 0), "gain_dbi"), 10.0);
   // The feed sees the first dipole in parallel with the second through the quarter-wave
   // line, Z0²/Z (Pozar §2.5), the line's 0.02 dB loss aside: within 1 %.

@@ -38,9 +38,10 @@ TEST(JsonSummary, YagiDocumentValidatesAndHoldsTheFileFigures) {
   const auto doc = nlohmann::json::parse(r.out);         // throws on anything but one document
   std::ofstream(dir / "summary.json") << r.out;
   EXPECT_EQ(validate(dir / "summary.json"), 0);
+  EXPECT_EQ(doc["schema_version"].get<int>(), 2);
   // The control: the validator does reject (a newer schema version here).
   auto newer = doc;
-  newer["schema_version"] = 2;
+  newer["schema_version"] = 3;
   std::ofstream(dir / "newer.json") << newer.dump();
   EXPECT_NE(validate(dir / "newer.json"), 0);
 
@@ -66,6 +67,7 @@ TEST(JsonSummary, AnUndefinedFigureIsNull) {
   EXPECT_TRUE(doc["beam"]["front_to_back_db"][0].is_null());
   EXPECT_TRUE(doc["bands"][0]["beam"]["front-to-back"].is_null());
   EXPECT_TRUE(doc["bands"][0]["beam"]["gain"].is_object());
+  EXPECT_EQ(doc["beam"]["hand"][0], "not circular");  // a linear patch: the sense is named, not "linear"
   std::ofstream(dir / "summary.json") << r.out;
   EXPECT_EQ(validate(dir / "summary.json"), 0);
 }

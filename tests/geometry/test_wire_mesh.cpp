@@ -130,6 +130,17 @@ TEST(WireMesh, StraightWireWithShortSegmentsIsNotRefused) {
   }
 }
 
+// A value just under a limit is printed with the digits that tell it from the limit (it
+// read "a segment is only 8 radii long; below 8").
+TEST(WireMesh, AWarningsValueDiffersFromItsLimitInPrint) {
+  // 8 segments of 7.9996 mm on a wire of 1 mm radius.
+  const WireMesh mesh = mesh_of("units mm\nwire w from (0,0,0) to (63.9968,0,0) radius 1 segments 8\nport p on w at middle\n"
+                                "frequency 300 MHz\n");
+  ASSERT_EQ(mesh.warnings.size(), 1u);
+  EXPECT_NE(mesh.warnings.front().message.find("only 7.9996 radii long; below 8 "), std::string::npos)
+      << mesh.warnings.front().message;
+}
+
 // Every node of a polyline is a node like any other: elements ending on the boom's corners
 // join it there, and an element ending between the boom's nodes splits its segment.
 TEST(WireMesh, WiresJoinAtPolylineCornersAndInsideSegments) {

@@ -5,6 +5,7 @@
 
 #include <cmath>
 #include <fstream>
+#include <iterator>
 #include <random>
 
 #include "core/constants.hpp"
@@ -57,6 +58,25 @@ TEST(Touchstone, EveryStyleRoundTrips) {
             EXPECT_LT((back.s[k] - original.s[k]).norm(), 1e-13) << "version " << version << ", " << ports << " ports";
           }
         }
+}
+
+// In decibels a coupling of rounding noise (|S21| = 1e-16, −320 dB) is written at the floor,
+// −200 dB, and a comment says so; it reads back as 1e-10, still nothing.
+TEST(Touchstone, DecibelsFloorRoundingNoise) {
+  NetworkData d;
+  d.frequency_hz = {1e9};
+  ComplexMatrix s(2, 2);
+  s << Complex(0.3, 0.1), Complex(1e-16, 0), Complex(1e-16, 0), Complex(0.2, -0.1);
+  d.s.push_back(s);
+  const auto path = scratch("floor.s2p");
+  write_touchstone(path, d, {1, TouchstoneFormat::decibel_angle, 1e9}, "");
+  std::ifstream in(path);
+  const std::string text((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+  EXPECT_NE(text.find("! magnitudes below -200 dB"), std::string::npos) << text;
+  EXPECT_EQ(text.find("-320"), std::string::npos) << text;
+  const NetworkData back = read_touchstone(path);
+  EXPECT_NEAR(std::abs(back.s[0](1, 0)), 1e-10, 1e-22);
+  EXPECT_NEAR(std::abs(back.s[0](0, 0)), std::abs(s(0, 0)), 1e-14);
 }
 
 TEST(Touchstone, VersionOneOnePortMagnitudeAngle) {
