@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <utility>
 
 #include "core/constants.hpp"
 #include "core/formatted_text.hpp"
@@ -20,11 +21,19 @@ constexpr Real longest_element_wavelengths = 0.5;
 /// (FarField::radiated_power takes kR + 16 points in θ).
 const Real largest_phase_extent = max_gauss_legendre_order - 16;
 
-std::string hz_text(Real f) {
-  if (f >= 1e9) return formatted("%.4g GHz", f / 1e9);
-  if (f >= 1e6) return formatted("%.4g MHz", f / 1e6);
-  if (f >= 1e3) return formatted("%.4g kHz", f / 1e3);
-  return formatted("%.4g Hz", f);
+std::string hz_text(Real f, int digits = 4) {
+  if (f >= 1e9) return formatted("%.*g GHz", digits, f / 1e9);
+  if (f >= 1e6) return formatted("%.*g MHz", digits, f / 1e6);
+  if (f >= 1e3) return formatted("%.*g kHz", digits, f / 1e3);
+  return formatted("%.*g Hz", digits, f);
+}
+
+/// A frequency and the limit it falls short of, with the digits that tell them apart: a
+/// warning never says "at 95.43 kHz ... below 95.43 kHz".
+std::pair<std::string, std::string> hz_texts_apart(Real f, Real limit) {
+  int digits = 4;
+  while (digits < 9 && hz_text(f, digits) == hz_text(limit, digits)) ++digits;
+  return {hz_text(f, digits), hz_text(limit, digits)};
 }
 
 }  // namespace
@@ -58,17 +67,19 @@ std::vector<MeshWarning> check_frequency_limits(const Model& model, const Medium
   const auto [lowest, highest] = std::minmax_element(model.frequencies_hz.begin(), model.frequencies_hz.end());
   const Real k_low = 2 * pi * *lowest / speed_of_light, k_high = 2 * pi * *highest / speed_of_light;
 
-  if (k_low * extent < smallest_electrical_size)
+  if (k_low * extent < smallest_electrical_size) {
+    const auto [at, limit] = hz_texts_apart(*lowest, smallest_electrical_size * speed_of_light / (2 * pi * extent));
     throw InputError(where, formatted("at %s the model is %.3g wavelengths across: too small for the integral equation "
                                       "to resolve its radiation (it loses the resistance below %s here); raise the "
                                       "lowest frequency",
-                                      hz_text(*lowest).c_str(), extent * *lowest / speed_of_light,
-                                      hz_text(smallest_electrical_size * speed_of_light / (2 * pi * extent)).c_str()));
-  if (k_low * extent < small_electrical_size)
+                                      at.c_str(), extent * *lowest / speed_of_light, limit.c_str()));
+  }
+  if (k_low * extent < small_electrical_size) {
+    const auto [at, limit] = hz_texts_apart(*lowest, small_electrical_size * speed_of_light / (2 * pi * extent));
     warnings.push_back({where, formatted("at %s the model is only %.3g wavelengths across: the radiation resistance and "
                                          "efficiency keep fewer digits below %s; treat them as estimates",
-                                         hz_text(*lowest).c_str(), extent * *lowest / speed_of_light,
-                                         hz_text(small_electrical_size * speed_of_light / (2 * pi * extent)).c_str())});
+                                         at.c_str(), extent * *lowest / speed_of_light, limit.c_str())});
+  }
   if (longest > longest_element_wavelengths * speed_of_light / *highest)
     throw InputError(where, formatted("at %s an element of the mesh is %s wavelengths long; above half a wavelength "
                                       "its basis cannot follow the current: give more segments or a finer mesh, or "
@@ -76,9 +87,10 @@ std::vector<MeshWarning> check_frequency_limits(const Model& model, const Medium
                                       hz_text(*highest).c_str(),
                                       beside_limit(longest * *highest / speed_of_light, longest_element_wavelengths).c_str()));
   if (0.5 * k_high * extent > largest_phase_extent)
-    throw InputError(where, formatted("at %s the model is %.3g wavelengths across, beyond the %.0f that the far-field "
+    throw InputError(where, formatted("at %s the model is %s wavelengths across, beyond the %.3g that the far-field "
                                       "integration handles; lower the highest frequency",
-                                      hz_text(*highest).c_str(), extent * *highest / speed_of_light,
+                                      hz_text(*highest).c_str(),
+                                      beside_limit(extent * *highest / speed_of_light, 2 * largest_phase_extent / (2 * pi)).c_str(),
                                       2 * largest_phase_extent / (2 * pi)));
   return warnings;
 }

@@ -29,6 +29,19 @@ TEST(FrequencyLimits, TooLowIsRefusedAndNearlyTooLowWarns) {
   EXPECT_TRUE(limits_of(dipole_at("300 MHz")).empty());
 }
 
+// Just below a limit, the frequency and the limit are printed with the digits that tell them
+// apart (95.426 kHz against the 95.4265 kHz of k·D = 1e-3 read "at 95.43 kHz ... below 95.43 kHz").
+TEST(FrequencyLimits, AWarningTellsTheFrequencyFromItsLimit) {
+  const auto warned = limits_of(dipole_at("95.426 kHz"));
+  ASSERT_EQ(warned.size(), 1u);
+  const std::string& message = warned.front().message;
+  const std::string at = message.substr(3, message.find(" the model") - 3);
+  const auto below = message.find("digits below ") + 13;
+  const std::string limit = message.substr(below, message.find(';', below) - below);
+  EXPECT_NE(at, limit) << message;
+  EXPECT_EQ(at, "95.426 kHz") << message;
+}
+
 // Segments longer than half a wavelength, and structures too large for the far-field
 // integration, are refused before any work (1e15 Hz once ran 35 minutes per frequency).
 TEST(FrequencyLimits, ElementsLongerThanHalfAWavelengthAndHugeStructuresAreRefused) {
