@@ -10,25 +10,26 @@
 
 namespace lobe::testing {
 
-/// A numeric dataset, flattened; a missing one fails the test (an empty list would let
-/// comparisons pass on nothing).
-inline std::vector<Real> dataset(const std::filesystem::path& file, const std::string& name) {
+/// A dataset read by `reader` (read_reals, read_complex), flattened; a missing one fails the
+/// test (an empty list would let comparisons pass on nothing).
+template <class Reader>
+auto dataset_read_by(const std::filesystem::path& file, const std::string& name, Reader reader) {
   const hid_t h = open_hdf5_for_reading(file);
   EXPECT_TRUE(hdf5_exists(h, name)) << file << " has no " << name;
   std::vector<hsize_t> dims;
-  std::vector<Real> values = read_reals(h, name, dims);
+  auto values = reader(h, name, dims);
   H5Fclose(h);
   return values;
 }
 
-/// A complex dataset ({r, i}), flattened; a missing one fails the test.
+/// A numeric dataset, flattened.
+inline std::vector<Real> dataset(const std::filesystem::path& file, const std::string& name) {
+  return dataset_read_by(file, name, read_reals);
+}
+
+/// A complex dataset ({r, i}), flattened.
 inline std::vector<Complex> complex_dataset(const std::filesystem::path& file, const std::string& name) {
-  const hid_t h = open_hdf5_for_reading(file);
-  EXPECT_TRUE(hdf5_exists(h, name)) << file << " has no " << name;
-  std::vector<hsize_t> dims;
-  std::vector<Complex> values = read_complex(h, name, dims);
-  H5Fclose(h);
-  return values;
+  return dataset_read_by(file, name, read_complex);
 }
 
 /// An integer attribute of the file's root group.

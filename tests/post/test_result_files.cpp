@@ -150,12 +150,17 @@ TEST(ResultFiles, AnInterruptedPublicationIsRefusedUntilTheSetIsWrittenAgain) {
   EXPECT_NO_THROW(read_result_network(dir / "run.h5"));
 }
 
-TEST(ResultFiles, PortsCsvHasTheDocumentedHeader) {
+/// A half-wave dipole's table written by `write` (write_ports_csv, …), opened for reading.
+std::ifstream dipole_table(const std::string& name, void (*write)(const std::filesystem::path&, const RunRecord&)) {
   const Solved s = solve_text(dipole_text(0.5, 1e-4, 20));
   RunRecord run{*s.problem, {s.result}, {"test", 1, "", std::nullopt}};
-  const auto path = fresh_directory("csv") / "ports.csv";
-  write_ports_csv(path, run);
-  std::ifstream in(path);
+  const auto path = fresh_directory(name) / (name + ".csv");
+  write(path, run);
+  return std::ifstream(path);
+}
+
+TEST(ResultFiles, PortsCsvHasTheDocumentedHeader) {
+  std::ifstream in = dipole_table("ports-csv", write_ports_csv);
   std::string header;
   std::getline(in, header);
   EXPECT_EQ(header.rfind("frequency_hz,port,resistance_ohm,reactance_ohm,vswr,return_loss_db", 0), 0u);
@@ -166,11 +171,7 @@ TEST(ResultFiles, PortsCsvHasTheDocumentedHeader) {
 // complex parts and the position. On a thin half-wave dipole the magnitude follows the
 // sinusoid I0 cos(k z) about the feed (Balanis, Antenna Theory, 3rd ed., eq. 4-56).
 TEST(ResultFiles, CurrentsCsvLeadsWithWireDistanceMagnitudeAndPhase) {
-  const Solved s = solve_text(dipole_text(0.5, 1e-4, 20));
-  RunRecord run{*s.problem, {s.result}, {"test", 1, "", std::nullopt}};
-  const auto path = fresh_directory("currents-csv") / "currents.csv";
-  write_currents_csv(path, run);
-  std::ifstream in(path);
+  std::ifstream in = dipole_table("currents-csv", write_currents_csv);
   std::string line;
   std::getline(in, line);
   EXPECT_EQ(line, "frequency_hz,wire,segment,distance_m,magnitude_a,phase_deg,real_a,imaginary_a,x_m,y_m,z_m");
