@@ -22,7 +22,10 @@ def _check_format(file):
     if version is None:
         raise FormatError(f"{file.filename}: no format_version; not a lobe result, or one from "
                           "before the versioned layout (run the model again)")
-    major = int(_text(version).split(".")[0])
+    try:
+        major = int(_text(version).split(".")[0])
+    except ValueError:
+        raise FormatError(f"{file.filename}: format_version '{_text(version)}' is not MAJOR.MINOR") from None
     if major > FORMAT_MAJOR:
         raise FormatError(f"{file.filename}: lobe result format {_text(version)} is newer than this "
                           f"reader ({FORMAT_MAJOR}.x); use a newer lobe package")
@@ -62,6 +65,16 @@ class _Group:
         if full not in self._file:
             raise KeyError(f"{self._file.filename} has no '{full}'")
         return _labelled(self._file[full])
+
+    def close(self):
+        """Closes the file (also on leaving a `with` block)."""
+        self._file.close()
+
+    def __enter__(self):
+        return self
+
+    def __exit__(self, *exc):
+        self.close()
 
     def __contains__(self, path):
         return f"{self._root}/{path.strip('/')}" in self._file
@@ -128,7 +141,8 @@ class Sweep(_Group):
         return self.values().to_pandas()
 
     def case(self, which):
-        """One case's whole run: by index from 0 or by name ("case-000003")."""
+        """One case's whole run: by index from 0 or by name ("case-000003"). It reads
+        through the sweep's open file: close the sweep, not the case."""
         name = self._cases[which] if isinstance(which, (int, np.integer)) else which
         if name not in self._cases:
             raise KeyError(f"no case '{name}'; the sweep has {len(self._cases)}")

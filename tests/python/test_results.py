@@ -125,8 +125,8 @@ class DemoFiles(unittest.TestCase):
         self.assertEqual(frame.index.name, "frequency")
 
     def test_three_lines_in_a_notebook(self):
-        run = lobe.load(self.files["ground_plane_433"])
-        series = run["ports/vswr"].sel(port="feed").to_pandas()
+        with lobe.load(self.files["ground_plane_433"]) as run:
+            series = run["ports/vswr"].sel(port="feed").to_pandas()
         self.assertEqual(series.index.name, "frequency")
         self.assertEqual(len(series), 31)
 
@@ -215,7 +215,8 @@ class ViewFiles(unittest.TestCase):
 class Refusals(unittest.TestCase):
     def test_newer_major_and_missing_version_are_refused(self):
         source = run_model(SOURCE / "models/half_wave_dipole_ism.lobe")
-        for version, message in (("2.0", "newer than this reader"), (None, "no format_version")):
+        for version, message in (("2.0", "newer than this reader"), (None, "no format_version"),
+                                 ("two", "not MAJOR.MINOR")):
             copy = SCRATCH / f"version-{version}.h5"
             shutil.copy(source, copy)
             with h5py.File(copy, "a") as f:
@@ -228,7 +229,8 @@ class Refusals(unittest.TestCase):
             # lobe itself refuses it too, as bad input (exit code 2).
             done = subprocess.run([LOBE, "export", "--touchstone", str(copy), "-o", str(SCRATCH / "x.s1p")], capture_output=True, text=True)
             self.assertEqual(done.returncode, 2, done.stderr)
-            self.assertIn(message.replace("this reader", "this lobe"), done.stderr)
+            self.assertIn(message.replace("this reader", "this lobe").replace("MAJOR.MINOR", "of the form MAJOR.MINOR"),
+                          done.stderr)
 
 
 if __name__ == "__main__":
