@@ -1,5 +1,5 @@
 # Install rules and the Debian package (cpack -G DEB). The package holds the program, a
-# manual page per command, bash completion, the demo models, the Python reader, the
+# manual page per command, bash completion, the demo models, the Python reader and engine, the
 # documentation, and the libraries with their headers and an exported CMake package.
 # scripts/check-package builds it, unpacks it into a temporary root and uses every part.
 include(GNUInstallDirs)
@@ -25,6 +25,9 @@ install(FILES README.md DEVELOPERS.md docs/hdf5_layout.md post/run_summary.schem
 install(FILES python/examples/plot_s11_and_pattern.py DESTINATION ${CMAKE_INSTALL_DOCDIR}/examples)
 # Debian's own interpreter looks here for packages installed by the system.
 install(DIRECTORY python/lobe DESTINATION lib/python3/dist-packages FILES_MATCHING PATTERN "*.py")
+if(TARGET lobe_engine)
+  install(TARGETS lobe_engine LIBRARY DESTINATION lib/python3/dist-packages)
+endif()
 
 set_target_properties(lobe_options PROPERTIES EXPORT_NAME options)
 foreach(library IN LISTS LOBE_EXPORTED_LAYERS)

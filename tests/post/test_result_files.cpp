@@ -198,7 +198,9 @@ TEST(ResultFiles, CurrentsCsvLeadsWithWireDistanceMagnitudeAndPhase) {
     // Within 0.15 wavelengths of the feed the sinusoid holds to 5 % of the feed current
     // (common practice for a thin dipole; the ends, where it fails, are left out).
     const double z = distance - 0.25;
-    if (std::abs(z) < 0.15) EXPECT_NEAR(std::stod(rows[k][4]) / feed, std::cos(2 * pi * z), 0.05) << "at " << distance;
+    if (std::abs(z) < 0.15) {
+      EXPECT_NEAR(std::stod(rows[k][4]) / feed, std::cos(2 * pi * z), 0.05) << "at " << distance;
+    }
   }
 }
 

@@ -212,6 +212,43 @@ class ViewFiles(unittest.TestCase):
             self.assertAlmostEqual(gain.max(), f["beam/gain_dbi"][0], delta=0.01)
 
 
+@unittest.skipUnless(os.environ.get("LOBE_ENGINE") == "ON", "built without the Python engine (LOBE_PYTHON_ENGINE=OFF)")
+class Engine(unittest.TestCase):
+    """lobe.solve: the solver in this process, for optimisers."""
+
+    def test_solve_gives_the_figures_lobe_run_writes(self):
+        model = SOURCE / "models/ground_plane_433.lobe"
+        solution = lobe.solve(model.read_text())
+        with lobe.load(run_model(model)) as run:
+            np.testing.assert_allclose(solution["ports/impedance_ohm"].values, run["ports/impedance_ohm"].values, rtol=1e-9)
+            self.assertAlmostEqual(solution.figure("worst-vswr", port="feed"),
+                                   run["band_figures/worst_vswr"].sel(band="ism433", port="feed").values, delta=1e-9)
+            np.testing.assert_allclose(solution["beam/gain_dbi"].values, run["beam/gain_dbi"].values, rtol=1e-9)
+        self.assertEqual(solution["ports/vswr"].dims, ("frequency", "port"))
+
+    def test_an_optimiser_finds_a_thin_dipoles_resonance(self):
+        # scipy (Debian's python3-scipy) shortens a thin dipole until its reactance vanishes.
+        # A thin half-wave dipole resonates a little short of half a wavelength, at about 0.48
+        # wavelengths for a radius of 1e-4 wavelengths (common practice, from memory; at
+        # exactly half a wavelength it has +j42.5 ohm, Balanis, Antenna Theory, eq. 4-93).
+        from scipy.optimize import brentq
+
+        text = ("let half = 0.24\nwire d from (0,0,-half) to (0,0,half) radius 0.1 mm segments 41\n"
+                "port p on d at middle\nfrequency 299.792458 MHz\n")
+
+        def reactance(length):
+            solution = lobe.solve(text, set={"half": f"{length / 2!r}"})
+            return solution["ports/impedance_ohm"].values[0, 0].imag
+
+        resonant = brentq(reactance, 0.44, 0.50, xtol=1e-5)
+        self.assertGreater(resonant, 0.47)
+        self.assertLess(resonant, 0.49)
+
+    def test_bad_input_is_a_value_error_with_its_place(self):
+        with self.assertRaisesRegex(ValueError, r"^model:3:11: expected a frequency with a unit"):
+            lobe.solve("wire w from (0,0,0) to (0,0,1) radius 1 mm\nport p on w at start\nfrequency 3 Gz\n")
+
+
 class Refusals(unittest.TestCase):
     def test_newer_major_and_missing_version_are_refused(self):
         source = run_model(SOURCE / "models/half_wave_dipole_ism.lobe")

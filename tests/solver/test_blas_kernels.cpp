@@ -24,8 +24,9 @@ TEST(BlasKernels, ThisMachineRunsOptimisedKernelsWhenItCan) {
   std::printf("OpenBLAS kernels in use: %s\n", name.c_str());
 #if defined(__x86_64__)
   __builtin_cpu_init();
-  if (__builtin_cpu_supports("avx2") && __builtin_cpu_supports("fma"))
+  if (__builtin_cpu_supports("avx2") && __builtin_cpu_supports("fma")) {
     EXPECT_NE(name, "Prescott") << "this CPU has AVX2 and FMA (unless OPENBLAS_CORETYPE forces the generic kernels)";
+  }
 #endif
 }
 

@@ -56,7 +56,9 @@ TEST(MatchDesign, WideBandDesignsImproveOnTheAntennaAndAreSorted) {
     SCOPED_TRACE(designs[i].topology);
     EXPECT_LT(designs[i].built_report.highest_vswr.value, alone);
     EXPECT_EQ(designs[i].built_goal, designs[i].built_report.highest_vswr.value);
-    if (i > 0) EXPECT_LE(designs[i - 1].built_goal, designs[i].built_goal);
+    if (i > 0) {
+      EXPECT_LE(designs[i - 1].built_goal, designs[i].built_goal);
+    }
   }
 }
 
