@@ -16,7 +16,7 @@ namespace {
 
 /// Arrays stored after the XML as raw little-endian bytes (VTK's "appended" format, as
 /// ParaView itself writes): each a 64-bit byte count and the values, at the offset its
-/// <DataArray> names. Full precision, about a third of the ASCII size, and no parsing.
+/// <DataArray> names. Full precision, and no text to parse.
 class AppendedData {
  public:
   template <class T>
