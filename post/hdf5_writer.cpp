@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <functional>
+#include <type_traits>
 #include <vector>
 
 #include "core/constants.hpp"
@@ -19,19 +20,16 @@ namespace {
 
 using hdf5::Axis;
 
-/// Gathers one value per (frequency, item) into a flat frequency-major array.
-template <typename Value, typename Result>
-std::vector<Value> per_frequency(const std::vector<Result>& results, std::size_t items,
-                                 const std::function<Value(const Result&, std::size_t)>& value) {
-  std::vector<Value> data;
+/// Gathers one value per (frequency, item) into a flat frequency-major array; the values'
+/// type is what `value` returns.
+template <typename Result, typename ValueOf>
+auto per_frequency(const std::vector<Result>& results, std::size_t items, const ValueOf& value) {
+  std::vector<std::invoke_result_t<ValueOf, const Result&, std::size_t>> data;
   data.reserve(results.size() * items);
   for (const auto& r : results)
     for (std::size_t i = 0; i < items; ++i) data.push_back(value(r, i));
   return data;
 }
-
-using RealOf = std::function<Real(const FrequencyResult&, std::size_t)>;
-using ComplexOf = std::function<Complex(const FrequencyResult&, std::size_t)>;
 
 std::vector<Real> degrees(std::vector<Real> radians) {
   for (auto& a : radians) a *= 180.0 / pi;
@@ -107,12 +105,12 @@ void write_ports(hid_t file, const RunRecord& run, RunAxes& axes) {
   const std::vector<Axis> per_port{axes.frequency, axes.port};
   auto real = [&](const char* name, const char* units, const std::function<Real(const PortResult&)>& f) {
     hdf5::write_reals(file, std::string("/ports/") + name, per_port,
-                      per_frequency<Real>(run.results, np, RealOf([&](const FrequencyResult& r, std::size_t i) { return f(r.ports[i]); })),
+                      per_frequency(run.results, np, [&](const FrequencyResult& r, std::size_t i) { return f(r.ports[i]); }),
                       units);
   };
   auto complex = [&](const char* name, const char* units, const std::function<Complex(const PortResult&)>& f) {
     hdf5::write_complex(file, std::string("/ports/") + name, per_port,
-                        per_frequency<Complex>(run.results, np, ComplexOf([&](const FrequencyResult& r, std::size_t i) { return f(r.ports[i]); })),
+                        per_frequency(run.results, np, [&](const FrequencyResult& r, std::size_t i) { return f(r.ports[i]); }),
                         units);
   };
   const bool several_driven = std::count_if(model.ports.begin(), model.ports.end(), [](const Port& p) { return p.voltage != 0.0; }) > 1;
@@ -127,7 +125,7 @@ void write_ports(hid_t file, const RunRecord& run, RunAxes& axes) {
   // [frequency, port, driven port]: row i, column j is port i's response to port j alone.
   const std::vector<Axis> square{axes.frequency, axes.port, axes.driven_port};
   auto matrix = [&](const char* name, const char* units, const std::function<Complex(const FrequencyResult&, std::size_t)>& f) {
-    hdf5::write_complex(file, std::string("/ports/") + name, square, per_frequency<Complex>(run.results, np * np, f), units);
+    hdf5::write_complex(file, std::string("/ports/") + name, square, per_frequency(run.results, np * np, f), units);
   };
   matrix("z_matrix_ohm", "ohm", [np](const FrequencyResult& r, std::size_t k) { return r.z_matrix(k / np, k % np); });
   matrix("s_matrix", "1", [np](const FrequencyResult& r, std::size_t k) { return r.s_matrix(k / np, k % np); });
@@ -148,17 +146,17 @@ void write_network(hid_t file, const RunRecord& run, const RunAxes& axes) {
   const std::size_t ne = ends.size();
   auto end = [&](const char* name, const char* units, const std::function<Real(const PortResult&)>& f) {
     hdf5::write_reals(file, std::string("/network/") + name, per_end,
-                      per_frequency<Real>(run.results, ne, RealOf([&](const FrequencyResult& r, std::size_t i) { return f(r.antenna_ends[i]); })),
+                      per_frequency(run.results, ne, [&](const FrequencyResult& r, std::size_t i) { return f(r.antenna_ends[i]); }),
                       units);
   };
   hdf5::write_complex(file, "/network/antenna_end_impedance_ohm", per_end,
-                      per_frequency<Complex>(run.results, ne, ComplexOf([](const FrequencyResult& r, std::size_t i) { return r.antenna_ends[i].impedance; })),
+                      per_frequency(run.results, ne, [](const FrequencyResult& r, std::size_t i) { return r.antenna_ends[i].impedance; }),
                       "ohm");
   end("antenna_end_vswr", "1", [](const PortResult& p) { return p.vswr; });
   end("antenna_end_return_loss_db", "dB", [](const PortResult& p) { return p.return_loss_db; });
   const Axis element = hdf5::text_axis(file, "/network", "element", elements);
   hdf5::write_reals(file, "/network/element_power_w", {axes.frequency, element},
-                    per_frequency<Real>(run.results, elements.size(), RealOf([](const FrequencyResult& r, std::size_t e) { return r.network_powers[e]; })),
+                    per_frequency(run.results, elements.size(), [](const FrequencyResult& r, std::size_t e) { return r.network_powers[e]; }),
                     "W (into the element: a line's or stub's loss, a part's dissipation)");
 }
 
@@ -166,7 +164,7 @@ void write_power(hid_t file, const RunRecord& run, const RunAxes& axes) {
   hdf5::Handle g = hdf5::create_group(file, "/power");
   auto power = [&](const char* name, const char* units, const std::function<Real(const PowerBudget&)>& f) {
     hdf5::write_reals(file, std::string("/power/") + name, {axes.frequency},
-                      per_frequency<Real>(run.results, 1, RealOf([&](const FrequencyResult& r, std::size_t) { return f(r.power); })), units);
+                      per_frequency(run.results, 1, [&](const FrequencyResult& r, std::size_t) { return f(r.power); }), units);
   };
   power("accepted_w", "W", [](const PowerBudget& p) { return p.accepted; });
   power("radiated_w", "W", [](const PowerBudget& p) { return p.radiated; });
@@ -203,7 +201,7 @@ void write_beam(hid_t file, const RunRecord& run, const RunAxes& axes) {
   }
   auto angle = [&](const char* name, const char* units, const std::function<Real(const FrequencyResult&)>& f) {
     hdf5::write_reals(file, std::string("/beam/") + name, {axes.frequency},
-                      per_frequency<Real>(run.results, 1, RealOf([&](const FrequencyResult& r, std::size_t) { return f(r) * 180 / pi; })),
+                      per_frequency(run.results, 1, [&](const FrequencyResult& r, std::size_t) { return f(r) * 180 / pi; }),
                       units);
   };
   angle("peak_theta_deg", "deg (the pattern grid's direction of peak gain)", [](const FrequencyResult& r) { return r.beam.peak.theta; });
@@ -259,9 +257,9 @@ void write_pattern(hid_t file, const RunRecord& run, RunAxes& axes) {
   const std::vector<Axis> shape{axes.frequency, axes.theta, axes.phi};
   auto field = [&](const char* name, const char* units, const std::function<Real(const PatternResult&, Eigen::Index, Eigen::Index)>& f) {
     hdf5::write_reals(file, std::string("/pattern/") + name, shape,
-                      per_frequency<Real>(run.results, points, RealOf([&](const FrequencyResult& r, std::size_t k) {
+                      per_frequency(run.results, points, [&](const FrequencyResult& r, std::size_t k) {
                                             return f(r.pattern, static_cast<Eigen::Index>(k / np), static_cast<Eigen::Index>(k % np));
-                                          })),
+                                          }),
                       units);
   };
   field("gain_dbi", "dBi", [](const PatternResult& p, auto i, auto j) { return p.gain_dbi(i, j); });
@@ -276,9 +274,9 @@ void write_pattern(hid_t file, const RunRecord& run, RunAxes& axes) {
   hdf5::write_ints(file, "/pattern/hand", shape, hands, hand_meaning);
   auto component = [&](const char* name, const std::function<Complex(const PatternResult&, Eigen::Index, Eigen::Index)>& f) {
     hdf5::write_complex(file, std::string("/pattern/") + name, shape,
-                        per_frequency<Complex>(run.results, points, ComplexOf([&](const FrequencyResult& r, std::size_t k) {
+                        per_frequency(run.results, points, [&](const FrequencyResult& r, std::size_t k) {
                                                  return f(r.pattern, static_cast<Eigen::Index>(k / np), static_cast<Eigen::Index>(k % np));
-                                               })),
+                                               }),
                         "V (far field times r, r in m)");
   };
   component("e_theta_v", [](const PatternResult& p, auto i, auto j) { return p.e_theta(i, j); });
@@ -388,7 +386,7 @@ void write_hdf5(const std::filesystem::path& path, const RunRecord& run) {
   hdf5::write_text(file, "/summary", run_summary(run));
   RunAxes axes;
   axes.frequency = hdf5::real_axis(file, "", "frequency",
-                                   per_frequency<Real>(run.results, 1, RealOf([](const FrequencyResult& r, std::size_t) { return r.frequency_hz; })),
+                                   per_frequency(run.results, 1, [](const FrequencyResult& r, std::size_t) { return r.frequency_hz; }),
                                    "Hz");
   write_model(file, run);
   write_ports(file, run, axes);

@@ -113,8 +113,26 @@ class StackedAxes {
 };
 
 /// Why `path` cannot be stacked, or "" when it can.
+/// Whether each axis holds the same positions in every case, read once per axis (every
+/// per-frequency array shares /frequency).
+class AxisAgreement {
+ public:
+  explicit AxisAgreement(const std::vector<hid_t>& cases) : m_cases(cases) {}
+  bool same_in_every_case(const std::string& axis) {
+    if (const auto known = m_same.find(axis); known != m_same.end()) return known->second;
+    const std::vector<std::string> positions = axis_positions(m_cases.front(), axis);
+    bool same = true;
+    for (std::size_t c = 1; c < m_cases.size() && same; ++c) same = axis_positions(m_cases[c], axis) == positions;
+    return m_same.emplace(axis, same).first->second;
+  }
+
+ private:
+  const std::vector<hid_t>& m_cases;
+  std::map<std::string, bool> m_same;
+};
+
 std::string reason_not_stackable(const std::vector<hid_t>& cases, const std::string& path,
-                                 const std::vector<std::string>& axes) {
+                                 const std::vector<std::string>& axes, AxisAgreement& agreement) {
   Hdf5Handle first(H5Dopen2(cases.front(), path.c_str(), H5P_DEFAULT), H5Dclose);
   Hdf5Handle first_type(H5Dget_type(first), H5Tclose);
   for (std::size_t c = 1; c < cases.size(); ++c) {
@@ -125,11 +143,8 @@ std::string reason_not_stackable(const std::vector<hid_t>& cases, const std::str
     const auto paths = axis_paths(set, static_cast<int>(axes.size()));
     if (!paths || *paths != axes) return "its axes differ between cases";
   }
-  for (const auto& axis : axes) {
-    const std::vector<std::string> positions = axis_positions(cases.front(), axis);
-    for (std::size_t c = 1; c < cases.size(); ++c)
-      if (axis_positions(cases[c], axis) != positions) return axis.substr(axis.rfind('/') + 1) + " differs between cases";
-  }
+  for (const auto& axis : axes)
+    if (!agreement.same_in_every_case(axis)) return axis.substr(axis.rfind('/') + 1) + " differs between cases";
   return "";
 }
 
@@ -185,6 +200,7 @@ void write_stacked_arrays(hid_t sweep_file, const std::vector<std::string>& case
   std::vector<std::string> datasets;
   hdf5::check(H5Ovisit2(first, H5_INDEX_NAME, H5_ITER_INC, collect_dataset, &datasets, H5O_INFO_BASIC));
   StackedAxes axes(sweep_file, first);
+  AxisAgreement agreement(case_files);
   std::string left_out;
   for (const auto& path : datasets) {
     if (!in_stacked_group(path)) continue;
@@ -194,7 +210,7 @@ void write_stacked_arrays(hid_t sweep_file, const std::vector<std::string>& case
     const int rank = H5Sget_simple_extent_ndims(space);
     if (H5DSis_scale(set) > 0 || rank < 1 || H5Tget_class(type) == H5T_STRING) continue;
     const auto paths = axis_paths(set, rank);
-    const std::string reason = paths ? reason_not_stackable(case_files, path, *paths) : "it has no axes";
+    const std::string reason = paths ? reason_not_stackable(case_files, path, *paths, agreement) : "it has no axes";
     if (!reason.empty()) {
       left_out += (left_out.empty() ? "" : "; ") + path + " (" + reason + ")";
       continue;

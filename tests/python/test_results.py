@@ -159,6 +159,22 @@ class SweepFile(unittest.TestCase):
             self.assertEqual(f["stacked/pattern/gain_dbi"].shape[0], 3)
             self.assertEqual(f["stacked"].attrs["left_out"], "nothing")
 
+    def test_arrays_whose_axes_differ_are_left_out_and_named(self):
+        # Varying the centre frequency gives each case its own frequencies: per-frequency arrays
+        # cannot be stacked and are named in left_out; the band figures, on the same bands, are.
+        model = SCRATCH / "moving_band.lobe"
+        model.write_text("let f0 = 300 MHz\nwire d from (0,0,-0.24) to (0,0,0.24) radius 1 mm segments 11\n"
+                         "port p on d at middle\nfrequency f0 - 10 MHz to f0 + 10 MHz count 3\n"
+                         "band b 295 MHz to 305 MHz\n")
+        path = SCRATCH / "moving.h5"
+        subprocess.run([LOBE, "sweep", str(model), "--vary", "f0=300MHz,310MHz", "-o", str(path)], check=True,
+                       capture_output=True)
+        with h5py.File(path) as f:
+            left_out = f["stacked"].attrs["left_out"]
+            self.assertIn("/ports/vswr (frequency differs between cases)", left_out)
+            self.assertNotIn("ports", f["stacked"])
+            self.assertEqual(f["stacked/band_figures/worst_vswr"].shape, (2, 1, 1))
+
     def test_reader_package_labels_a_sweep(self):
         sweep = lobe.load(self.path)
         vswr = sweep["ports/vswr"]
