@@ -112,13 +112,12 @@ std::string coupling_text(const Model& model, const std::vector<const FrequencyR
         if (s > highest) highest = s, at = r->frequency_hz;
       }
       const std::string label = model.ports[i].name + "-" + model.ports[j].name;
-      const Real db = highest > 0.0 ? 20 * std::log10(highest) : -1e300;
-      if (db < coupling_floor_db)
+      if (highest < std::pow(10.0, coupling_floor_db / 20))
         out += formatted("  coupling %-6s below %.0f dB at every computed frequency: none beyond the solve's rounding\n",
                          label.c_str(), coupling_floor_db);
       else
         out += formatted("  coupling %-6s highest in the band %.1f dB (|S| between them, each driven alone) at %s\n",
-                         label.c_str(), db, frequency_text(at).c_str());
+                         label.c_str(), 20 * std::log10(highest), frequency_text(at).c_str());
     }
   return out;
 }
